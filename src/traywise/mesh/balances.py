@@ -1,0 +1,121 @@
+"""Checks and bookkeeping on a converged iterate: physical checks, overall balance closure,
+where the heat went; builds the ``ColumnSolution`` or refuses with ``ConvergenceError``."""
+
+import numpy as np
+
+from ..errors import ConvergenceError
+from .solution import ColumnSolution, Convergence, HeatBreakdown
+
+SUMMATION_TOLERANCE = 1e-6  # |sum K x - 1| allowed on any stage
+COMPONENT_CLOSURE = 1e-9  # relative, per component with a feed
+ENERGY_CLOSURE = 1e-7  # relative to the enthalpy throughput
+METHOD = "Naphtali-Sandholm Newton with pseudo-transient continuation (Kelley & Keyes 1998)"
+
+
+def build_solution(equations, x, iterations, norm, tolerance):
+    """The ``ColumnSolution`` of a converged iterate, after the physical and closure checks."""
+    column, model = equations.column, equations.model
+    v, l, t = (a.copy() for a in equations.split(x))
+    props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True))
+    _check_physical(equations, v, l, props, iterations, norm)
+    heat_removed = equations.heat_removed(v, l, props)
+    component_closure, energy_closure = _closure(equations, v, l, props, heat_removed)
+    if np.any(component_closure > COMPONENT_CLOSURE) or energy_closure > ENERGY_CLOSURE:
+        raise ConvergenceError(
+            f"balances do not close (worst component {component_closure.max():.2g}, energy {energy_closure:.2g})",
+            iterations=iterations,
+            residual=norm,
+        )
+    convergence = Convergence(iterations, norm, tolerance, component_closure, energy_closure, METHOD)
+    return ColumnSolution(
+        column=column,
+        component_names=model.names,
+        molar_mass=model.molar_mass,
+        temperature=t,
+        pressure=equations.pressure.copy(),
+        vapour_flows=v,
+        liquid_flows=l,
+        k_values=props.k,
+        heat_removed=heat_removed,
+        heat=_heat_breakdown(equations, v, l, t, heat_removed),
+        convergence=convergence,
+        warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]])),
+    )
+
+
+def _check_physical(equations, v, l, props, iterations, norm):
+    """Refuse the spurious vapour-free root and any non-positive phase flow."""
+    total = equations.flow_scale.sum()
+    big_v, big_l = v.sum(axis=1), l.sum(axis=1)
+    if np.any(big_v <= 1e-9 * total) or np.any(big_l <= 1e-9 * total) or np.any(v < 0) or np.any(l < 0):
+        stage = int(np.argmin(np.minimum(big_v, big_l))) + 1
+        raise ConvergenceError("a phase vanished (non-positive flow)", iterations=iterations, residual=norm, stage=stage)
+    k = np.where(equations.insoluble, 0.0, props.k)
+    x_l = l / big_l[:, None]
+    soluble_y = np.where(equations.insoluble, v / big_v[:, None], 0.0).sum(axis=1)
+    summation = np.sum(k * x_l, axis=1) + soluble_y
+    if np.any(np.abs(summation - 1.0) > SUMMATION_TOLERANCE):
+        stage = int(np.argmax(np.abs(summation - 1.0))) + 1
+        raise ConvergenceError(
+            "converged to a non-physical root (sum of K x differs from 1: the liquid is not at its bubble point)",
+            iterations=iterations,
+            residual=norm,
+            stage=stage,
+        )
+
+
+def _outlets(equations, v, l):
+    """Gas out of the top, liquid out of the bottom, and side draws (c,) each [mol/s]."""
+    draw_v = (1.0 - equations.pass_vapour)[:, None] * v
+    draw_l = (1.0 - equations.pass_liquid)[:, None] * l
+    gas_out = v[0] - draw_v[0]
+    liquid_out = l[-1] - draw_l[-1]
+    draw_v[0] = 0.0
+    draw_l[-1] = 0.0
+    return gas_out, liquid_out, draw_v, draw_l
+
+
+def _closure(equations, v, l, props, heat_removed):
+    """Relative closure of each component balance and of the energy balance over the column."""
+    gas_out, liquid_out, draw_v, draw_l = _outlets(equations, v, l)
+    fed = equations.liquid_feed.sum(axis=0) + equations.vapour_feed.sum(axis=0)
+    out = gas_out + liquid_out + draw_v.sum(axis=0) + draw_l.sum(axis=0)
+    component = np.where(fed > 0.0, np.abs(fed - out) / np.where(fed > 0.0, fed, 1.0), np.abs(out) / fed.sum())
+    h_v, h_l = props.h_vapour, props.h_liquid
+    enthalpy_out = (
+        gas_out @ h_v[0]
+        + liquid_out @ h_l[-1]
+        + np.sum(draw_v * h_v)
+        + np.sum(draw_l * h_l)
+        + heat_removed.sum()
+    )
+    enthalpy_in = equations.feed_enthalpy.sum()
+    throughput = np.sum(np.abs(equations.feed_enthalpy)) + np.sum(np.abs(heat_removed))
+    throughput += equations.energy_scale  # at least the sensible heat of the feeds per kelvin
+    return component, float(abs(enthalpy_in - enthalpy_out) / throughput)
+
+
+def _heat_breakdown(equations, v, l, t, heat_removed):
+    """See ``HeatBreakdown``: an exact split of the overall energy balance [W]."""
+    column, model = equations.column, equations.model
+    gas_in, solvent_in = column.gas.component_flows, column.solvent.component_flows
+    gas_out, liquid_out, _, _ = _outlets(equations, v, l)
+    p_top, p_bottom = equations.pressure[[0]], equations.pressure[[-1]]
+
+    def h(phase, temperature, pressure):
+        props = model.evaluate(np.array([temperature]), pressure)
+        return (props.h_vapour if phase == "vapour" else props.h_liquid)[0]
+
+    h_v_gas_in = h("vapour", column.gas.temperature, p_bottom)
+    h_v_top = h("vapour", t[0], p_top)
+    h_l_solvent_in = h("liquid", column.solvent.temperature, p_top)
+    h_l_bottom = h("liquid", t[-1], p_bottom)
+    absorbed = gas_in - gas_out
+    transfer = absorbed * (h_v_gas_in - h_l_bottom)
+    released = float(np.sum(np.where(absorbed > 0.0, transfer, 0.0)))
+    evaporation = float(-np.sum(np.where(absorbed < 0.0, transfer, 0.0)))
+    gas_heating = float(gas_out @ (h_v_top - h_v_gas_in))
+    liquid_heating = float(solvent_in @ (h_l_bottom - h_l_solvent_in))
+    coolers = float(heat_removed.sum())
+    other = released - evaporation - gas_heating - liquid_heating - coolers
+    return HeatBreakdown(released, gas_heating, liquid_heating, evaporation, coolers, other)

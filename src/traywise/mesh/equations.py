@@ -1,0 +1,189 @@
+"""MESH equations of a counter-current column and their analytic Jacobian.
+
+Unknowns per stage j (1..N from the top), in this order: component vapour flows v_ij,
+component liquid flows l_ij (both leaving the stage, before side draws) [mol/s], and the
+temperature T_j [K] (Naphtali & Sandholm, AIChE J. 17 (1971) 148). Equations per stage:
+
+  M_ij = l_ij + v_ij - (1 - dL_j-1) l_i,j-1 - (1 - dV_j+1) v_i,j+1 - f_ij           (material)
+  E_ij = v_ij - V_j [eta_j K_ij l_ij / L_j + (1 - eta_j) y_in,ij]                    (equilibrium)
+  H_j  = sum l h_L + sum v h_V - (1 - dL_j-1) sum l h_L |j-1 - (1 - dV_j+1) sum v h_V |j+1
+         - H_feed,j + Q_j                                                             (enthalpy)
+
+with Murphree vapour efficiency eta_j, y_in the vapour entering from below (the gas feed for
+stage N), side-draw fractions dL, dV, heat removed Q_j; summations are implicit in working
+with component flows. An insoluble component has E_ij = l_ij; in isothermal mode H_j is
+replaced by T_j - T_set,j. Rows and unknowns are scaled (DESIGN.md section 4): material and
+equilibrium rows and flows by the component's total feed, enthalpy rows by total feed x mean
+heat capacity x 1 K, temperatures by 1 K.
+
+Rows are ordered E, M, H against unknowns v, l, T, so that the diagonal pairs each equation
+with an unknown it increases with (dE_ij/dv_ij = 1 - y_ij, dM_ij/dl_ij = 1, dH_j/dT_j > 0):
+pseudo-transient continuation adds its shift on that diagonal and needs it positive.
+
+The Jacobian is block tridiagonal: blocks (N, n, n) below (stage j-1), on, and above (j+1)
+the diagonal, n = 2c + 1.
+"""
+
+import numpy as np
+
+TRACE = 1e-12  # scale floor for a component that no feed carries, relative to the total feed
+
+
+class StageEquations:
+    """Residuals and Jacobian of one column with one property model."""
+
+    def __init__(self, column, model):
+        self.column = column
+        self.model = model
+        c = model.n_components
+        n_stages = column.n_stages
+        self.c, self.n, self.n_stages = c, 2 * c + 1, n_stages
+        self.pressure = column.pressures
+        self.liquid_feed = column.feed_matrix("liquid", c)
+        self.vapour_feed = column.feed_matrix("vapour", c)
+        self.pass_liquid = 1.0 - column.draw_fractions("liquid")  # fraction sent to the next stage
+        self.pass_vapour = 1.0 - column.draw_fractions("vapour")
+        self.murphree = column.murphree
+        self.isothermal = column.mode == "isothermal"
+        self.insoluble = np.array([k == "insoluble" for k in model.equilibrium])
+        self.feed_enthalpy = self._feed_enthalpies()
+        total_feed = self.liquid_feed.sum(axis=0) + self.vapour_feed.sum(axis=0)
+        self.flow_scale = np.maximum(total_feed, TRACE * total_feed.sum())
+        self.gas_in = column.gas.component_flows / column.gas.flow
+        feeds = column.feeds
+        mean_cp = sum(f.flow * self._mean_cp(f) for f in feeds) / sum(f.flow for f in feeds)
+        self.energy_scale = total_feed.sum() * mean_cp  # W per K
+        self.row_scale = np.concatenate([self.flow_scale, self.flow_scale, [self.energy_scale]])
+        self.unknown_scale = np.concatenate([self.flow_scale, self.flow_scale, [1.0]])
+
+    def _mean_cp(self, feed):
+        t = np.array([feed.temperature])
+        props = self.model.evaluate(t, np.array([self.column.top_pressure]))
+        cp = props.dh_vapour_dt if feed.phase == "vapour" else props.dh_liquid_dt
+        return float(cp[0] @ feed.component_flows) / feed.flow
+
+    def _feed_enthalpies(self):
+        """Enthalpy fed to each stage (N,) [W], feeds at their own temperature and phase."""
+        enthalpy = np.zeros(self.n_stages)
+        for feed in self.column.feeds:
+            j = feed.stage - 1
+            props = self.model.evaluate(np.array([feed.temperature]), self.pressure[j : j + 1])
+            h = props.h_vapour if feed.phase == "vapour" else props.h_liquid
+            enthalpy[j] += float(h[0] @ feed.component_flows)
+        return enthalpy
+
+    def split(self, x):
+        """Unknown vector (N*n,) -> v (N, c), l (N, c), T (N,)."""
+        block = x.reshape(self.n_stages, self.n)
+        return block[:, : self.c], block[:, self.c : 2 * self.c], block[:, -1]
+
+    def join(self, v, l, t):
+        return np.concatenate([v, l, t[:, None]], axis=1).reshape(-1)
+
+    def _entering(self, v, l):
+        """Liquid entering from above and vapour entering from below, (N, c) each [mol/s]."""
+        liquid_in = np.zeros_like(l)
+        liquid_in[1:] = l[:-1] * self.pass_liquid[:-1, None]
+        vapour_in = np.zeros_like(v)
+        vapour_in[:-1] = v[1:] * self.pass_vapour[1:, None]
+        return liquid_in, vapour_in
+
+    def _vapour_from_below(self, v):
+        """Mole fractions of the vapour entering each stage from below (N, c)."""
+        y_in = np.empty_like(v)
+        y_in[:-1] = v[1:] / v[1:].sum(axis=1, keepdims=True)
+        y_in[-1] = self.gas_in
+        return y_in
+
+    def residual(self, x, props=None):
+        """Unscaled residuals (N*n,) and the stage properties used."""
+        v, l, t = self.split(x)
+        big_v, big_l = v.sum(axis=1), l.sum(axis=1)
+        if props is None:
+            props = self.model.evaluate(t, self.pressure, l / big_l[:, None])
+        liquid_in, vapour_in = self._entering(v, l)
+        material = l + v - liquid_in - vapour_in - self.liquid_feed - self.vapour_feed
+        eta = self.murphree[:, None]
+        y_in = self._vapour_from_below(v)
+        k = np.where(self.insoluble, 0.0, props.k)
+        equilibrium = v - big_v[:, None] * (eta * k * l / big_l[:, None] + (1.0 - eta) * y_in)
+        equilibrium[:, self.insoluble] = l[:, self.insoluble]
+        if self.isothermal:
+            energy = t - self.column.temperature
+        else:
+            energy = self.enthalpy_surplus(v, l, props) + self.column.heat_removed
+        return np.concatenate([equilibrium, material, energy[:, None]], axis=1).reshape(-1), props
+
+    def enthalpy_surplus(self, v, l, props):
+        """Enthalpy leaving minus entering each stage with the streams (N,) [W]; the heat
+        that must be removed from the stage to close its balance is its negative."""
+        h_l = np.sum(l * props.h_liquid, axis=1)
+        h_v = np.sum(v * props.h_vapour, axis=1)
+        surplus = h_l + h_v - self.feed_enthalpy
+        surplus[1:] -= self.pass_liquid[:-1] * h_l[:-1]
+        surplus[:-1] -= self.pass_vapour[1:] * h_v[1:]
+        return surplus
+
+    def heat_removed(self, v, l, props):
+        """Heat removed from each stage (N,) [W]: as given, or in isothermal mode the duty
+        that holds each stage at its set temperature."""
+        if self.isothermal:
+            return -self.enthalpy_surplus(v, l, props)
+        return np.array(self.column.heat_removed)
+
+    def jacobian(self, x, props):
+        """Blocks (lower, diagonal, upper), each (N, n, n): d(rows of stage j)/d(unknowns of
+        stage j-1, j, j+1). lower[0] and upper[N-1] are unused (zero)."""
+        c, n, n_stages = self.c, self.n, self.n_stages
+        v, l, t = self.split(x)
+        big_v, big_l = v.sum(axis=1), l.sum(axis=1)
+        lower = np.zeros((n_stages, n, n))
+        diagonal = np.zeros((n_stages, n, n))
+        upper = np.zeros((n_stages, n, n))
+        eye = np.eye(c)
+        vs, ls, ts = slice(0, c), slice(c, 2 * c), 2 * c
+        es, ms, hs = slice(0, c), slice(c, 2 * c), 2 * c
+        # material rows
+        diagonal[:, ms, vs] = eye
+        diagonal[:, ms, ls] = eye
+        lower[1:, ms, ls] = -self.pass_liquid[:-1, None, None] * eye
+        upper[:-1, ms, vs] = -self.pass_vapour[1:, None, None] * eye
+        # equilibrium rows
+        eta = self.murphree[:, None]
+        k = np.where(self.insoluble, 0.0, props.k)
+        x_l = l / big_l[:, None]
+        y_in = self._vapour_from_below(v)
+        equilibrium_y = eta * k * x_l + (1.0 - eta) * y_in  # y_ij = this, at the solution
+        diagonal[:, es, vs] = eye - equilibrium_y[:, :, None]
+        a = (big_v / big_l)[:, None] * eta * k  # (N, c)
+        de_dl = -a[:, :, None] * (eye - x_l[:, :, None])
+        dlnk_dt = np.where(self.insoluble, 0.0, props.dlnk_dt)
+        de_dt = -big_v[:, None] * eta * k * x_l * dlnk_dt
+        if props.dlnk_dx is not None:
+            # K_i(x): dK_i/dl_k = K_i sum_m dlnK_i/dx_m (delta_mk - x_m) / L
+            dlnk_dl = (props.dlnk_dx - np.einsum("sim,sm->si", props.dlnk_dx, x_l)[:, :, None]) / big_l[:, None, None]
+            de_dl -= (big_v[:, None] * eta * k * x_l)[:, :, None] * dlnk_dl
+        diagonal[:, es, ls] = de_dl
+        diagonal[:, es, ts] = de_dt
+        v_below = v[1:].sum(axis=1)
+        y_below = y_in[:-1]
+        upper[:-1, es, vs] = -((1.0 - eta[:-1]) * (big_v[:-1] / v_below)[:, None])[:, :, None] * (
+            eye - y_below[:, :, None]
+        )
+        ins = np.flatnonzero(self.insoluble)
+        diagonal[:, ins, :] = 0.0
+        upper[:, ins, :] = 0.0
+        diagonal[:, ins, c + ins] = 1.0
+        # energy rows
+        if self.isothermal:
+            diagonal[:, hs, ts] = 1.0
+        else:
+            diagonal[:, hs, vs] = props.h_vapour
+            diagonal[:, hs, ls] = props.h_liquid
+            diagonal[:, hs, ts] = np.sum(l * props.dh_liquid_dt + v * props.dh_vapour_dt, axis=1)
+            pl, pv = self.pass_liquid[:-1, None], self.pass_vapour[1:, None]
+            lower[1:, hs, ls] = -pl * props.h_liquid[:-1]
+            lower[1:, hs, ts] = -pl[:, 0] * np.sum(l[:-1] * props.dh_liquid_dt[:-1], axis=1)
+            upper[:-1, hs, vs] = -pv * props.h_vapour[1:]
+            upper[:-1, hs, ts] = -pv[:, 0] * np.sum(v[1:] * props.dh_vapour_dt[1:], axis=1)
+        return lower, diagonal, upper

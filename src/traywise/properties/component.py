@@ -1,0 +1,140 @@
+"""Component data: frozen records of one component's identity and correlation coefficients.
+
+A ``Component`` holds SI numbers and the source of each; it is built from a library file
+(``library.load_component``), from a few plain parameters (``inline.inline_component``) or from
+another component with some properties replaced (``dataclasses.replace``).
+"""
+
+from dataclasses import dataclass, field
+
+import numpy as np
+
+from .constants import GAS_CONSTANT, T_REFERENCE
+from .correlations import (
+    dippr101,
+    henry_solution_enthalpy,
+    iapws_if97_saturation_pressure,
+    ln_henry,
+    offset_scale,
+    stable_polynomial,
+    stable_polynomial_antiderivative,
+)
+
+EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")
+
+
+@dataclass(frozen=True)
+class HeatCapacity:
+    """Molar heat capacity as a polynomial in s = scale*T + offset (highest power first).
+
+    ``coefficients`` [J/(mol K)]; valid between ``t_min`` and ``t_max`` [K]. A plain polynomial
+    in T has offset 0 and scale 1 (``HeatCapacity.in_temperature``).
+    """
+
+    coefficients: tuple
+    t_min: float
+    t_max: float
+    offset: float
+    scale: float
+    source: str
+
+    @classmethod
+    def stable(cls, coefficients, t_min, t_max, source):
+        offset, scale = offset_scale(t_min, t_max)
+        return cls(tuple(float(c) for c in coefficients), float(t_min), float(t_max), offset, scale, source)
+
+    @classmethod
+    def in_temperature(cls, coefficients, t_min, t_max, source):
+        """Cp = sum c_k T**k with coefficients highest power first."""
+        return cls(tuple(float(c) for c in coefficients), float(t_min), float(t_max), 0.0, 1.0, source)
+
+    def heat_capacity(self, temperature):
+        """Cp [J/(mol K)] at temperature [K]."""
+        return stable_polynomial(temperature, np.array(self.coefficients), self.offset, self.scale)
+
+    def enthalpy_change(self, temperature, t_from=T_REFERENCE):
+        """Integral of Cp from t_from to temperature [J/mol]."""
+        q = stable_polynomial_antiderivative(self.coefficients, self.scale)
+        return stable_polynomial(temperature, q, self.offset, self.scale) - stable_polynomial(
+            t_from, q, self.offset, self.scale
+        )
+
+
+@dataclass(frozen=True)
+class VapourPressure:
+    """Vapour pressure correlation: form 'iapws_if97' (no coefficients) or 'dippr101' (a..e)."""
+
+    form: str
+    t_min: float
+    t_max: float
+    source: str
+    coefficients: tuple = ()
+
+    def ln_pressure(self, temperature):
+        """(ln(Psat/Pa), dln(Psat)/dT [1/K]) at temperature [K]."""
+        if self.form == "iapws_if97":
+            return iapws_if97_saturation_pressure(temperature)
+        return dippr101(temperature, *self.coefficients)
+
+
+@dataclass(frozen=True)
+class HenryConstant:
+    """Henry's-law constant in water, volatility form H = p_i/x_i [Pa]:
+    ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2 (coefficients a..f)."""
+
+    coefficients: tuple
+    t_min: float
+    t_max: float
+    source: str
+
+    def ln_constant(self, temperature):
+        """(ln(H/Pa), dln(H)/dT [1/K])."""
+        return ln_henry(temperature, *self.coefficients)
+
+    def solution_enthalpy(self, temperature):
+        """Enthalpy of solution implied by the temperature dependence (van 't Hoff) [J/mol]."""
+        return GAS_CONSTANT * henry_solution_enthalpy(temperature, *self.coefficients)[0]
+
+
+@dataclass(frozen=True)
+class Quantity:
+    """One sourced scalar: value in SI, at ``temperature`` [K] where it depends on it."""
+
+    value: float
+    source: str
+    temperature: float | None = None
+
+
+@dataclass(frozen=True)
+class Component:
+    """Identity and property data of one component (SI units).
+
+    ``equilibrium`` is the default phase-equilibrium model when the component takes part in a
+    column with water as solvent: 'henry' for gases, 'raoult' for solvents and condensables.
+    ``sources`` maps each source key used by a property to its full citation.
+    """
+
+    name: str
+    formula: str
+    cas: str
+    molar_mass: Quantity  # kg/mol
+    ideal_gas_cp: HeatCapacity
+    equilibrium: str
+    aliases: tuple = ()
+    liquid_cp: HeatCapacity | None = None
+    vapour_pressure: VapourPressure | None = None
+    heat_of_vaporisation: Quantity | None = None  # J/mol at its temperature
+    henry_in_water: HenryConstant | None = None
+    melting_point: Quantity | None = None  # K
+    sources: dict = field(default_factory=dict, compare=False)
+    notes: dict = field(default_factory=dict, compare=False)
+    origin: str = "library"
+
+    def matches(self, text):
+        """True when text names this component (name, alias, formula or CAS number; any case)."""
+        key = text.strip().lower()
+        return key in {self.name.lower(), self.formula.lower(), self.cas, *(a.lower() for a in self.aliases)}
+
+    def cite(self, key):
+        """Full citation of a source key, or the key itself when it is already a citation."""
+        return self.sources.get(key, key)
