@@ -55,6 +55,7 @@ class StageEquations:
         self.energy_scale = total_feed.sum() * mean_cp  # W per K
         self.row_scale = np.concatenate([self.flow_scale, self.flow_scale, [self.energy_scale]])
         self.unknown_scale = np.concatenate([self.flow_scale, self.flow_scale, [1.0]])
+        self.row_scale_vector = np.tile(self.row_scale, n_stages)
 
     def _mean_cp(self, feed):
         t = np.array([feed.temperature])
