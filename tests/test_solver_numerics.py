@@ -1,0 +1,119 @@
+"""Rigorous solver numerics: analytic Jacobian, Kremser agreement, the spurious root, cost."""
+
+import numpy as np
+import pytest
+
+from columns import dilute_column, ideal_dilute_model, library_model, water_column
+from traywise.errors import ConvergenceError
+from traywise.kremser import kremser_fraction_absorbed
+from traywise.mesh.balances import build_solution
+from traywise.mesh.equations import StageEquations
+from traywise.mesh.newton import solve_column
+from traywise.mesh.start import initial_estimate
+from traywise.properties.inline import inline_component
+from traywise.properties.model import PropertyModel
+
+
+def _dense(lower, diagonal, upper):
+    n_stages, n, _ = diagonal.shape
+    dense = np.zeros((n_stages * n, n_stages * n))
+    for j in range(n_stages):
+        dense[j * n : (j + 1) * n, j * n : (j + 1) * n] = diagonal[j]
+        if j > 0:
+            dense[j * n : (j + 1) * n, (j - 1) * n : j * n] = lower[j]
+        if j < n_stages - 1:
+            dense[j * n : (j + 1) * n, (j + 1) * n : (j + 2) * n] = upper[j]
+    return dense
+
+
+@pytest.mark.parametrize("murphree", [1.0, 0.6])
+def test_analytic_jacobian_matches_central_differences(murphree):
+    model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
+    gas = np.array([0.02, 0.15, 0.03, 0.80])
+    column = water_column(model, 4, gas=gas, solvent_flow=2.0, murphree=murphree)
+    equations = StageEquations(column, model)
+    x = initial_estimate(equations, "hot")
+    x[equations.n - 1 :: equations.n] += np.linspace(0.0, 7.0, column.n_stages)  # off the start profile
+    _, props = equations.residual(x)
+    analytic = _dense(*equations.jacobian(x, props))
+    numeric = np.empty_like(analytic)
+    for k in range(x.size):
+        h = 1e-6 * max(abs(x[k]), 1e-3)
+        up, down = x.copy(), x.copy()
+        up[k] += h
+        down[k] -= h
+        numeric[:, k] = (equations.residual(up)[0] - equations.residual(down)[0]) / (2 * h)
+    scale = np.abs(numeric).max(axis=1, keepdims=True) + 1e-300
+    # central differences carry ~1e-8 relative truncation and rounding error at this step
+    assert np.max(np.abs(analytic - numeric) / scale) < 1e-5
+
+
+# Kremser's equation: A. Kremser, Natl. Petroleum News 22(21) (1930) 43; fraction absorbed
+# (A^(N+1) - A) / (A^(N+1) - 1) for a dilute solute, linear equilibrium, solute-free solvent.
+@pytest.mark.parametrize("n_stages", [2, 3, 5, 8, 12, 20, 30])
+@pytest.mark.parametrize("absorption_factor", [0.5, 0.8, 1.0, 1.5, 2.0, 3.0])
+def test_dilute_isothermal_column_follows_kremser(n_stages, absorption_factor):
+    model = ideal_dilute_model(henry_pa=2.0e5)
+    k = 2.0e5 / 1.0e5
+    column = dilute_column(n_stages, absorption_factor * k * 1.0, solute_fraction=5e-4)
+    solution = solve_column(column, model)
+    # Kremser takes A = L/(K V) on the inert flows here (solute at 0.05 mol %)
+    expected = kremser_fraction_absorbed(absorption_factor, n_stages)
+    assert solution.fraction_absorbed[1] == pytest.approx(expected, rel=1e-3)  # 0.1 % (issue 3)
+
+
+def test_vapour_free_stage_is_refused():
+    """The equilibrium rows also hold for V_j = 0 (DESIGN.md section 4): such an iterate must
+    never become a result."""
+    model = library_model("water", "ammonia", "nitrogen")
+    column = water_column(model, 3, gas=np.array([0.0, 0.1, 0.9]), solvent_flow=2.0)
+    equations = StageEquations(column, model)
+    v, l, t = equations.split(initial_estimate(equations, "linear"))
+    v[1] = 0.0
+    with pytest.raises(ConvergenceError, match="phase vanished"):
+        build_solution(equations, equations.join(v, l, t), 5, 1e-12, 1e-10)
+
+
+def test_liquid_off_its_bubble_point_is_refused():
+    model = library_model("water", "ammonia", "nitrogen")
+    column = water_column(model, 3, gas=np.array([0.0, 0.1, 0.9]), solvent_flow=2.0)
+    equations = StageEquations(column, model)
+    v, l, t = equations.split(initial_estimate(equations, "linear"))
+    t = t + 40.0  # K-values no longer sum to one against these liquid compositions
+    with pytest.raises(ConvergenceError, match="non-physical root"):
+        build_solution(equations, equations.join(v, l, t), 5, 1e-12, 1e-10)
+
+
+def test_start_above_the_boiling_point_does_not_yield_a_vapour_free_answer():
+    """Solvent and gas fed hot enough that a naive start sits above the solvent's boiling point."""
+    model = library_model("water", "ammonia", "nitrogen")
+    column = water_column(model, 6, gas=np.array([0.05, 0.1, 0.85]), solvent_flow=3.0, t_gas=420.0, t_solvent=360.0)
+    solution = solve_column(column, model)
+    assert np.all(solution.vapour_flow > 0.0)
+    assert np.allclose(np.sum(solution.k_values * solution.liquid_mole_fractions, axis=1), 1.0, atol=1e-8)
+
+
+def test_trace_solute_converges_to_relative_precision():
+    """Row and unknown scaling by component feed (DESIGN.md section 4): a solute at 1e-8 of the
+    gas still matches Kremser's equation to high relative precision."""
+    model = ideal_dilute_model(henry_pa=2.0e5)
+    solution = solve_column(dilute_column(10, 4.0, solute_fraction=1e-8), model)
+    assert solution.fraction_absorbed[1] == pytest.approx(kremser_fraction_absorbed(2.0, 10), rel=1e-6)
+
+
+def test_nonvolatile_solvent_and_insoluble_carrier_stay_in_their_phase():
+    model = ideal_dilute_model()
+    solution = solve_column(dilute_column(5, 3.0, solute_fraction=0.05), model)
+    assert np.all(solution.vapour_flows[:, 0] <= 1e-15 * 3.0)  # zero up to the linear solve's rounding
+    assert np.all(solution.liquid_flows[:, 2] <= 1e-15 * 1.0)
+
+
+def test_isothermal_mode_reports_the_duty_that_holds_the_temperature():
+    solvent = inline_component("test solvent", molar_mass=0.1, ideal_gas_cp=100.0, equilibrium="nonvolatile", liquid_cp=200.0)
+    solute = inline_component("test solute", molar_mass=0.05, ideal_gas_cp=35.0, equilibrium="henry", henry=(1e5, 298.15, -40e3))
+    carrier = inline_component("test carrier", molar_mass=0.028, ideal_gas_cp=29.1, equilibrium="insoluble")
+    model = PropertyModel([solvent, solute, carrier])
+    solution = solve_column(dilute_column(6, 2.0, solute_fraction=0.2), model)
+    absorbed = 0.2 * solution.fraction_absorbed[1]
+    # all feeds at the stage temperature and Cp-free transfer: the duty is the heat of solution
+    assert solution.heat_removed.sum() == pytest.approx(absorbed * 40e3, rel=1e-9)
