@@ -18,6 +18,13 @@ class CaseError(TraywiseError, ValueError):
         super().__init__(f"{where}: {message}" if where else message)
 
 
+class PinchError(CaseError):
+    """A target that the operating line cannot reach without touching the equilibrium curve."""
+
+    def __init__(self, message):
+        super().__init__("pinch", message)
+
+
 class ComponentDataError(CaseError):
     """A component file or inline component definition is malformed or incomplete."""
 
