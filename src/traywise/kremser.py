@@ -55,8 +55,8 @@ def kremser_fraction_absorbed(absorption_factor, n_stages):
     Principles, 3rd ed., Wiley 2011, ch. 6.
     """
     a, n = np.broadcast_arrays(np.asarray(absorption_factor, dtype=float), np.asarray(n_stages, dtype=float))
-    _require(np.isfinite(a) & (a >= 0.0), "absorption_factor", "a finite number >= 0", absorption_factor)
-    _require(n >= 0.0, "n_stages", "a number of stages >= 0", n_stages)
+    _require(np.isfinite(a) & (a >= 0.0), "absorption_factor", "a finite number >= 0", a)
+    _require(n >= 0.0, "n_stages", "a number of stages >= 0", n)
     with np.errstate(divide="ignore", invalid="ignore", over="ignore"):
         ln_a = np.log(a)
         above = np.expm1(-n * ln_a) / np.expm1(-(n + 1.0) * ln_a)  # A > 1, written in A**-N
@@ -92,8 +92,8 @@ def kremser_stages(absorption_factor, fraction_absorbed):
     1980, ch. 5 (the Kremser equation solved for N).
     """
     a, phi = np.broadcast_arrays(np.asarray(absorption_factor, dtype=float), np.asarray(fraction_absorbed, dtype=float))
-    _require(np.isfinite(a) & (a > 0.0), "absorption_factor", "a finite number > 0", absorption_factor)
-    _require(phi >= 0.0, "fraction_absorbed", "a fraction >= 0", fraction_absorbed)
+    _require(np.isfinite(a) & (a > 0.0), "absorption_factor", "a finite number > 0", a)
+    _require(phi >= 0.0, "fraction_absorbed", "a fraction >= 0", phi)
     unreachable = phi >= np.minimum(a, 1.0)
     if np.any(unreachable):
         i = np.flatnonzero(unreachable.ravel())[0]
@@ -130,8 +130,8 @@ def kremser_absorption_factor(n_stages, fraction_absorbed):
     without Derivatives, Prentice-Hall (1973), ch. 4 (the root finder).
     """
     n, phi = np.broadcast_arrays(np.asarray(n_stages, dtype=float), np.asarray(fraction_absorbed, dtype=float))
-    _require(np.isfinite(n) & (n > 0.0), "n_stages", "a finite number of stages > 0", n_stages)
-    _require((phi > 0.0) & (phi < 1.0), "fraction_absorbed", "a fraction between 0 and 1 (exclusive)", fraction_absorbed)
+    _require(np.isfinite(n) & (n > 0.0), "n_stages", "a finite number of stages > 0", n)
+    _require((phi > 0.0) & (phi < 1.0), "fraction_absorbed", "a fraction between 0 and 1 (exclusive)", phi)
     result = np.empty(n.shape)
     for index in np.ndindex(n.shape):
         result[index] = _absorption_factor(float(n[index]), float(phi[index]))
@@ -181,7 +181,7 @@ def approach_to_equilibrium(gas_ratio_in, gas_ratio_out, *, liquid_ratio_in, equ
         "a gas richer than the gas in equilibrium with the entering solvent (m X_in)",
         gas_ratio_in,
     )
-    return _plain((np.subtract(gas_ratio_in, gas_ratio_out)) / (np.subtract(gas_ratio_in, equilibrium_gas)))
+    return _plain(np.subtract(gas_ratio_in, gas_ratio_out) / np.subtract(gas_ratio_in, equilibrium_gas))
 
 
 def _absorption_factor(n, phi):
@@ -201,9 +201,12 @@ def _absorption_factor(n, phi):
     return float(np.exp(brentq(residual, low, high, xtol=1e-15, rtol=4.0 * np.finfo(float).eps, maxiter=200)))
 
 
-def _require(condition, name, expected, found):
+def _require(condition, name, expected, values):
+    """Raise naming the argument and its first offending value unless condition holds everywhere."""
+    condition = np.asarray(condition)
     if not np.all(condition):
-        raise CaseError(name, f"expected {expected}, found {found!r}")
+        found = np.broadcast_to(np.asarray(values, dtype=float), condition.shape)[~condition].flat[0]
+        raise CaseError(name, f"expected {expected}, found {found:.6g}")
 
 
 def _plain(value):

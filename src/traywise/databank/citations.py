@@ -37,14 +37,6 @@ CHEMICALS_MOLAR_MASS = (
     "from the molecular formula and the atomic weights of its periodic table (after N. M. O'Boyle et al., "
     "Open Babel, J. Cheminf. 3 (2011) 33)"
 )
-WAGMAN_1982_AMMONIA = (
-    "D. D. Wagman, W. H. Evans, V. B. Parker, R. H. Schumm, I. Halow, S. M. Bailey, K. L. Churney, "
-    "R. L. Nuttall, The NBS tables of chemical thermodynamic properties, J. Phys. Chem. Ref. Data 11 "
-    "(1982) Suppl. 2: enthalpies of formation of NH3 (g) = -46.11 kJ/mol (value recalled from memory) "
-    "and NH3 (aq, undissociated, standard state m = 1 mol/kg) = -80.29 kJ/mol (value recalled from "
-    "memory), so enthalpy of solution at infinite dilution = -34.18 kJ/mol"
-)
-
 # chemicals' melting-point methods (chemicals.phase_change.Tm) and the publications behind them.
 MELTING_POINT_SOURCES = {
     "OPEN_NTBKM": "J.-C. Bradley, A. Williams, A. Lang, Jean-Claude Bradley Open Melting Point Dataset "
@@ -143,3 +135,9 @@ def coolprop_eos_citation(fluid):
 def thermo_method_citation(kind, method):
     """A value from one named thermo method (when no reference equation of state is available)."""
     return f"thermo {thermo.__version__} (C. Bell et al.), {kind} method '{method}' (see thermo's documentation)"
+
+CLEGG_BRIMBLECOMBE_1989 = (
+    "S. L. Clegg, P. Brimblecombe, Solubility of ammonia in pure aqueous and multicomponent solutions, "
+    "J. Phys. Chem. 93 (1989) 7237-7248, doi:10.1021/j100357a041 (equation for K_H of molecular NH3 in "
+    "pure water; also listed in R. Sander's compilation, Atmos. Chem. Phys. 15 (2015) 4399)"
+)

@@ -37,7 +37,8 @@ def fit_stable_polynomial(function, t_min, t_max):
     check_values = np.array([function(t) for t in check])
     best = None
     for degree in range(2, MAX_DEGREE + 1):
-        nodes = 0.5 * (t_min + t_max) + 0.5 * (t_max - t_min) * np.cos(np.pi * (np.arange(4 * degree) + 0.5) / (4 * degree))
+        angles = np.pi * (np.arange(4 * degree) + 0.5) / (4 * degree)
+        nodes = 0.5 * (t_min + t_max) + 0.5 * (t_max - t_min) * np.cos(angles)
         values = np.array([function(t) for t in nodes])
         coefficients = np.polyfit(scale * nodes + offset, values, degree)
         error = float(np.max(np.abs(stable_polynomial(check, coefficients, offset, scale) / check_values - 1.0)))

@@ -22,7 +22,7 @@ import numpy as np
 from ..errors import CaseError
 from .component import EQUILIBRIUM_KINDS
 from .constants import GAS_CONSTANT, T_REFERENCE
-from .correlations import henry_solution_enthalpy, ln_henry, stable_polynomial_antiderivative
+from .correlations import stable_polynomial_antiderivative
 
 
 @dataclass(frozen=True)
@@ -44,32 +44,67 @@ class StageProperties:
 
 
 class _StackedPolynomials:
-    """Several heat-capacity polynomials evaluated together: Cp and its integral from T_ref."""
+    """Several heat-capacity polynomials evaluated together: Cp and its integral from T_ref.
+
+    Both are power sums over one table of powers of s (built by doubling) contracted with the
+    coefficients in one batched matrix product: a handful of numpy calls for any number of
+    components and any degree, instead of a Horner loop over the coefficients.
+    """
 
     def __init__(self, heat_capacities):
         degree = max(len(cp.coefficients) for cp in heat_capacities)
         coefficients = np.zeros((degree, len(heat_capacities)))
         for j, cp in enumerate(heat_capacities):
             coefficients[degree - len(cp.coefficients) :, j] = cp.coefficients
-        self.offset = np.array([cp.offset for cp in heat_capacities])
-        self.scale = np.array([cp.scale for cp in heat_capacities])
-        self.integral = stable_polynomial_antiderivative(coefficients, self.scale)
+        self.offset = np.array([cp.offset for cp in heat_capacities])[:, None]
+        self.scale = np.array([cp.scale for cp in heat_capacities])[:, None]
+        integral = stable_polynomial_antiderivative(coefficients, self.scale[:, 0])
+        cp_padded = np.concatenate([np.zeros((1, len(heat_capacities))), coefficients])
+        # (component, [integral, Cp], power), lowest power first; d/dT Q(s) = Q'(s) scale = P(s).
+        self._coefficients = np.ascontiguousarray(np.stack([integral[::-1].T, cp_padded[::-1].T], axis=1))
         self.integral_at_reference = self._integral(np.array([T_REFERENCE]))[0][0]
 
     def _integral(self, temperature):
-        """Integral polynomial and its T-derivative (= Cp) by one Horner pass."""
-        s = self.scale * np.reshape(temperature, (-1, 1)) + self.offset
-        value = np.zeros_like(s)
-        slope = np.zeros_like(s)
-        for coefficient in self.integral:
-            slope = slope * s + value
-            value = value * s + coefficient
-        return value, slope * self.scale
+        """Integral polynomial and its T-derivative (= Cp), each (n, m)."""
+        s = self.scale * np.reshape(temperature, (1, -1)) + self.offset  # (m, n)
+        n_powers = self._coefficients.shape[2]
+        powers = np.empty((n_powers,) + s.shape)  # s**k for k = 0 .. n_powers-1
+        powers[0] = 1.0
+        if n_powers > 1:
+            powers[1] = s
+        done = 2
+        while done < n_powers:
+            block = min(done, n_powers - done)
+            np.multiply(powers[:block], powers[done - 1] * s, out=powers[done : done + block])
+            done += block
+        both = np.matmul(self._coefficients, powers.transpose(1, 0, 2))  # (m, 2, n)
+        return both[:, 0, :].T, both[:, 1, :].T
 
     def enthalpy(self, temperature):
         """(integral of Cp from T_ref to T [J/mol], Cp [J/(mol K)]), shape (n, m)."""
         value, cp = self._integral(temperature)
         return value - self.integral_at_reference, cp
+
+
+def _henry_basis(temperature, terms):
+    """Basis of ``ln_henry`` and ``henry_solution_enthalpy`` for the coefficients ``terms``
+    (indices into a..f): array (4, n, len(terms)) whose product with the coefficients gives
+    ln H, d ln H/dT [1/K], dH_sol/R [K] and d(dH_sol/R)/dT [-] (same formulas, as a matrix)."""
+    t = temperature
+    inverse = 1.0 / t
+    columns = {
+        0: (1.0, 0.0, 0.0, 0.0),
+        1: (inverse, -inverse * inverse, 1.0, 0.0),
+        2: (np.log(t), inverse, -t, -1.0),
+        3: (t, 1.0, -t * t, -2.0 * t),
+        4: (inverse * inverse, -2.0 * inverse**3, 2.0 * inverse, -2.0 * inverse * inverse),
+        5: (t * t, 2.0 * t, -2.0 * t**3, -6.0 * t * t),
+    }
+    basis = np.empty((4, t.size, len(terms)))
+    for j, term in enumerate(terms):
+        for row, value in enumerate(columns[term]):
+            basis[row, :, j] = value
+    return basis
 
 
 class PropertyModel:
@@ -95,12 +130,15 @@ class PropertyModel:
         self.molar_mass = np.array([c.molar_mass.value for c in self.components])
         index = {kind: np.array([i for i, k in enumerate(kinds) if k == kind], dtype=int) for kind in EQUILIBRIUM_KINDS}
         self.index = index
-        self._vapour_cp = _StackedPolynomials([c.ideal_gas_cp for c in self.components])
-        henry = [self.components[i].henry_in_water.coefficients for i in index["henry"]]
-        self._henry = np.array(henry).T if henry else np.zeros((6, 0))
         liquid = list(index["raoult"]) + list(index["nonvolatile"])
         self._liquid_index = np.array(liquid, dtype=int)
-        self._liquid_cp = _StackedPolynomials([self.components[i].liquid_cp for i in liquid]) if liquid else None
+        # One stack of heat capacities: ideal gas of every component, then liquid of the liquids.
+        self._cp = _StackedPolynomials(
+            [c.ideal_gas_cp for c in self.components] + [self.components[i].liquid_cp for i in liquid]
+        )
+        henry = np.array([self.components[i].henry_in_water.coefficients for i in index["henry"]]).reshape(-1, 6).T
+        self._henry_terms = tuple(k for k in range(6) if k < 2 or np.any(henry[k]))  # a, b and any non-zero
+        self._henry = henry[list(self._henry_terms)]
         self._liquid_offset = self._liquid_enthalpy_offsets(liquid)
         self._vapour_pressures = [self.components[i].vapour_pressure for i in index["raoult"]]
 
@@ -127,15 +165,16 @@ class PropertyModel:
             latent = component.heat_of_vaporisation
             if latent is None:
                 continue  # nonvolatile without a latent heat: liquid reference at T_ref
-            t_v = np.array([latent.temperature])
-            h_vapour = self._vapour_cp.enthalpy(t_v)[0][0, i]
-            h_liquid_from_reference = self._liquid_cp.enthalpy(t_v)[0][0, j]
+            enthalpies = self._cp.enthalpy(np.array([latent.temperature]))[0][0]
+            h_vapour = enthalpies[i]
+            h_liquid_from_reference = enthalpies[self.n_components + j]
             offsets[j] = h_vapour - latent.value - h_liquid_from_reference
         return offsets
 
     def vapour_enthalpies(self, temperature):
         """Ideal-gas molar enthalpies (n, c) [J/mol] and heat capacities [J/(mol K)]."""
-        return self._vapour_cp.enthalpy(np.asarray(temperature, dtype=float))
+        h, cp = self._cp.enthalpy(np.asarray(temperature, dtype=float))
+        return h[:, : self.n_components], cp[:, : self.n_components]
 
     def evaluate(self, temperature, pressure, liquid_mole_fractions=None):
         """All stage properties for temperature (n,) [K], pressure (n,) [Pa].
@@ -145,17 +184,16 @@ class PropertyModel:
         """
         t = np.asarray(temperature, dtype=float).reshape(-1)
         p = np.broadcast_to(np.asarray(pressure, dtype=float).reshape(-1), t.shape)
-        n, idx = t.size, self.index
-        h_vapour, cp_vapour = self._vapour_cp.enthalpy(t)
+        n, m, idx = t.size, self.n_components, self.index
+        h_all, cp_all = self._cp.enthalpy(t)
+        h_vapour, cp_vapour = h_all[:, :m], cp_all[:, :m]
         ln_k = np.zeros((n, self.n_components))
         dlnk_dt = np.zeros((n, self.n_components))
         h_liquid = h_vapour.copy()
         dh_liquid_dt = cp_vapour.copy()
         ln_p = np.log(p)[:, None]
         if idx["henry"].size:
-            tc = t[:, None]
-            ln_h, dln_h = ln_henry(tc, *self._henry)
-            dh_sol, ddh_sol = henry_solution_enthalpy(tc, *self._henry)
+            ln_h, dln_h, dh_sol, ddh_sol = _henry_basis(t, self._henry_terms) @ self._henry
             ln_k[:, idx["henry"]] = ln_h - ln_p
             dlnk_dt[:, idx["henry"]] = dln_h
             h_liquid[:, idx["henry"]] += GAS_CONSTANT * dh_sol
@@ -165,9 +203,8 @@ class PropertyModel:
             ln_k[:, i] = ln_psat - ln_p[:, 0]
             dlnk_dt[:, i] = dln_psat
         if self._liquid_index.size:
-            h_l, cp_l = self._liquid_cp.enthalpy(t)
-            h_liquid[:, self._liquid_index] = h_l + self._liquid_offset
-            dh_liquid_dt[:, self._liquid_index] = cp_l
+            h_liquid[:, self._liquid_index] = h_all[:, m:] + self._liquid_offset
+            dh_liquid_dt[:, self._liquid_index] = cp_all[:, m:]
         k = np.exp(ln_k)
         k[:, idx["nonvolatile"]] = 0.0
         k[:, idx["insoluble"]] = np.inf

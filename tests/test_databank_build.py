@@ -1,0 +1,31 @@
+"""The component files are what the build script makes from the installed libraries (audit), and
+components can be added by name or CAS number."""
+
+import pytest
+
+from traywise.databank.build import DEFAULT_COMPONENTS, build_component, default_directory, identify
+from traywise.properties.library import load_component
+
+
+@pytest.mark.parametrize("name", DEFAULT_COMPONENTS)
+def test_library_file_is_reproduced_by_the_build_script(name):
+    # A difference means the file was edited by hand, or the libraries' data changed: rebuild and review.
+    file_name, text = build_component(name)
+    assert (default_directory() / file_name).read_text(encoding="utf-8") == text
+
+
+def test_component_by_cas_number_is_named_like_by_name():
+    assert identify("7664-41-7") == ("ammonia", "7664-41-7")
+    assert identify("Carbon Dioxide") == ("carbon dioxide", "124-38-9")
+
+
+def test_new_component_without_reference_equation_of_state(tmp_path):
+    # 1-butanol: no CoolProp fluid and no thermo fit to a reference equation of state, so its heat
+    # capacities are fitted here to thermo's correlations; the file must load and say so.
+    file_name, text = build_component("71-36-3")
+    path = tmp_path / file_name
+    path.write_text(text, encoding="utf-8")
+    butanol = load_component(path)
+    assert butanol.name == "1-butanol" and butanol.equilibrium == "henry"
+    assert butanol.ideal_gas_cp.source.endswith("_fit") and "fit error" in butanol.notes["ideal_gas_cp"]
+    assert butanol.vapour_pressure is not None and butanol.liquid_cp is not None
