@@ -72,7 +72,8 @@ class PointByPoint:
                 else:
                     k[j, i] = Henry_pressure(t, *component.henry_in_water.coefficients) / p
                     h_l[j, i] = h_v[j, i] + component.henry_in_water.solution_enthalpy(t)
-                    cp_l[j, i] = cp_v[j, i]
+                    henry = component.henry_in_water  # d(dH_sol)/dT by central difference
+                    cp_l[j, i] = cp_v[j, i] + (henry.solution_enthalpy(t + 1e-3) - henry.solution_enthalpy(t - 1e-3)) / 2e-3
         return k, h_v, h_l, cp_v, cp_l
 
 
