@@ -117,3 +117,18 @@ def test_isothermal_mode_reports_the_duty_that_holds_the_temperature():
     absorbed = 0.2 * solution.fraction_absorbed[1]
     # all feeds at the stage temperature and Cp-free transfer: the duty is the heat of solution
     assert solution.heat_removed.sum() == pytest.approx(absorbed * 40e3, rel=1e-9)
+
+
+@pytest.mark.parametrize("murphree", [1.0, 0.7])
+def test_band_widths_hold_every_jacobian_entry(murphree):
+    """The banded solve drops entries outside the band it is given: check that none is non-zero."""
+    model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
+    column = water_column(model, 5, gas=np.array([0.02, 0.15, 0.03, 0.80]), solvent_flow=2.0, murphree=murphree)
+    equations = StageEquations(column, model)
+    x = initial_estimate(equations, "hot")
+    dense = _dense(*equations.jacobian(x, equations.residual(x)[1]))
+    n = equations.n
+    permutation = (np.arange(column.n_stages)[:, None] * n + equations.band_order[None, :]).ravel()
+    rows, cols = np.nonzero(dense[np.ix_(permutation, permutation)])
+    below, above = equations.band
+    assert np.max(rows - cols) <= below and np.max(cols - rows) <= above

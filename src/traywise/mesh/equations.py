@@ -56,6 +56,10 @@ class StageEquations:
         self.row_scale = np.concatenate([self.flow_scale, self.flow_scale, [self.energy_scale]])
         self.unknown_scale = np.concatenate([self.flow_scale, self.flow_scale, [1.0]])
         self.row_scale_vector = np.tile(self.row_scale, n_stages)
+        # per-stage order (v, T, l) / (E, H, M) that narrows the band, and the band widths that
+        # hold the Jacobian in that order (see banded.py)
+        self.band_order = np.r_[np.arange(c), 2 * c, np.arange(c, 2 * c)]
+        self.band = (self.n, self.n + (c - 1 if np.any(self.murphree < 1.0) else 0))
 
     def _mean_cp(self, feed):
         t = np.array([feed.temperature])

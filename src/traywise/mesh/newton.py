@@ -107,7 +107,9 @@ def _iterations(equations, x, settings):
         lower, diagonal, upper = equations.jacobian(x, props)
         scale = equations.unknown_scale[None, :] / equations.row_scale[:, None]
         shift = 0.0 if dt >= settings.newton_time_step else 1.0 / dt
-        step = cols * solve_block_tridiagonal(lower * scale, diagonal * scale, upper * scale, -f / rows, shift)
+        step = cols * solve_block_tridiagonal(
+            lower * scale, diagonal * scale, upper * scale, -f / rows, shift, order=equations.band_order, band=equations.band
+        )
         x_new = _limited(x, step, is_flow, settings)
         f_new, props_new = _residual(equations, x_new)
         norm_new, size_new = _norms(f_new, rows)
