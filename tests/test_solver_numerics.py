@@ -132,3 +132,11 @@ def test_band_widths_hold_every_jacobian_entry(murphree):
     rows, cols = np.nonzero(dense[np.ix_(permutation, permutation)])
     below, above = equations.band
     assert np.max(rows - cols) <= below and np.max(cols - rows) <= above
+
+
+def test_insoluble_carrier_with_murphree_efficiency_is_accepted():
+    """sum y* = 1 on every stage also when a carrier is insoluble and trays are not ideal."""
+    model = ideal_dilute_model()
+    column = dilute_column(5, 3.0, solute_fraction=0.05)
+    solution = solve_column(column.__class__(**{**column.__dict__, "murphree": 0.6}), model)
+    assert solution.fraction_absorbed[1] < solve_column(column, model).fraction_absorbed[1]

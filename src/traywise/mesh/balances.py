@@ -50,10 +50,12 @@ def _check_physical(equations, v, l, props, iterations, norm):
     if np.any(big_v <= 1e-9 * total) or np.any(big_l <= 1e-9 * total) or np.any(v < 0) or np.any(l < 0):
         stage = int(np.argmin(np.minimum(big_v, big_l))) + 1
         raise ConvergenceError("a phase vanished (non-positive flow)", iterations=iterations, residual=norm, stage=stage)
+    # sum of the equilibrium vapour y* = K x over the stage; an insoluble component's y* follows
+    # from the Murphree relation y = eta y* + (1 - eta) y_in
     k = np.where(equations.insoluble, 0.0, props.k)
-    x_l = l / big_l[:, None]
-    soluble_y = np.where(equations.insoluble, v / big_v[:, None], 0.0).sum(axis=1)
-    summation = np.sum(k * x_l, axis=1) + soluble_y
+    eta = equations.murphree[:, None]
+    y_star_insoluble = (v / big_v[:, None] - (1.0 - eta) * equations.vapour_from_below(v)) / eta
+    summation = np.sum(k * l / big_l[:, None], axis=1) + np.sum(np.where(equations.insoluble, y_star_insoluble, 0.0), axis=1)
     if np.any(np.abs(summation - 1.0) > SUMMATION_TOLERANCE):
         stage = int(np.argmax(np.abs(summation - 1.0))) + 1
         raise ConvergenceError(

@@ -93,7 +93,7 @@ class StageEquations:
         vapour_in[:-1] = v[1:] * self.pass_vapour[1:, None]
         return liquid_in, vapour_in
 
-    def _vapour_from_below(self, v):
+    def vapour_from_below(self, v):
         """Mole fractions of the vapour entering each stage from below (N, c)."""
         y_in = np.empty_like(v)
         y_in[:-1] = v[1:] / v[1:].sum(axis=1, keepdims=True)
@@ -109,7 +109,7 @@ class StageEquations:
         liquid_in, vapour_in = self._entering(v, l)
         material = l + v - liquid_in - vapour_in - self.liquid_feed - self.vapour_feed
         eta = self.murphree[:, None]
-        y_in = self._vapour_from_below(v)
+        y_in = self.vapour_from_below(v)
         k = np.where(self.insoluble, 0.0, props.k)
         equilibrium = v - big_v[:, None] * (eta * k * l / big_l[:, None] + (1.0 - eta) * y_in)
         equilibrium[:, self.insoluble] = l[:, self.insoluble]
@@ -157,7 +157,7 @@ class StageEquations:
         eta = self.murphree[:, None]
         k = np.where(self.insoluble, 0.0, props.k)
         x_l = l / big_l[:, None]
-        y_in = self._vapour_from_below(v)
+        y_in = self.vapour_from_below(v)
         equilibrium_y = eta * k * x_l + (1.0 - eta) * y_in  # y_ij = this, at the solution
         diagonal[:, es, vs] = eye - equilibrium_y[:, :, None]
         a = (big_v / big_l)[:, None] * eta * k  # (N, c)
