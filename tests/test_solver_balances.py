@@ -138,3 +138,15 @@ def test_non_convergence_raises_with_diagnostics():
         solve_column(column, model, settings=SolverSettings(max_iterations=1))
     assert failure.value.iterations >= 1
     assert failure.value.residual > 1e-10
+
+
+def test_an_overcooled_column_is_flagged():
+    """A cooler that takes out more than the absorption releases drives the liquid below 0 degC:
+    the equations still solve, but the result must carry a warning, never pass as good."""
+    model = library_model(*AMMONIA_CASE)
+    gas = np.array([0.0, 0.05, 0.95 * 0.79, 0.95 * 0.21])
+    duty = np.zeros(6)
+    duty[3] = 6000.0  # W, several times the heat released
+    solution = solve_column(water_column(model, 6, gas=gas, solvent_flow=1.5, heat_removed=duty), model)
+    assert solution.temperature.min() < 273.15
+    assert any("would freeze" in warning for warning in solution.warnings)

@@ -39,7 +39,7 @@ def build_solution(equations, x, iterations, norm, tolerance):
         heat_removed=heat_removed,
         heat=_heat_breakdown(equations, v, l, t, heat_removed),
         convergence=convergence,
-        warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]])),
+        warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]])) + _frozen(model, l, t),
     )
 
 
@@ -121,3 +121,21 @@ def _heat_breakdown(equations, v, l, t, heat_removed):
     coolers = float(heat_removed.sum())
     other = released - evaporation - gas_heating - liquid_heating - coolers
     return HeatBreakdown(released, gas_heating, liquid_heating, evaporation, coolers, other)
+
+
+def _frozen(model, l, t):
+    """Warnings for stages colder than the melting point of a liquid-forming component that
+    makes up most of their liquid (an overcooled column: the liquid would freeze)."""
+    warnings = []
+    x_l = l / l.sum(axis=1, keepdims=True)
+    for i, component in enumerate(model.components):
+        if component.melting_point is None:
+            continue
+        cold = np.flatnonzero((t < component.melting_point.value) & (x_l[:, i] > 0.5))
+        if cold.size:
+            warnings.append(
+                f"stages {cold[0] + 1}-{cold[-1] + 1}: liquid at {t[cold].min() - 273.15:.1f} degC, below the melting "
+                f"point of {component.name} ({component.melting_point.value - 273.15:.1f} degC): it would freeze; "
+                "remove less heat"
+            )
+    return tuple(warnings)
