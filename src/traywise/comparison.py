@@ -13,7 +13,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from .errors import PinchError
+from .errors import ConvergenceError, PinchError
 from .shortcut import inert_basis_design
 
 STAGE_TOLERANCE = (0.10, 0.5)  # relative, absolute [stages]
@@ -77,7 +77,7 @@ def default_key(solution, solvent_index=0):
     return solution.component_names[int(np.argmax(absorbed))]
 
 
-def compare(solution, model, key=None, *, solvent_index=0):
+def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
     """Run the isothermal inert-basis method on the column of ``solution`` and compare.
 
     Parameters
@@ -86,6 +86,8 @@ def compare(solution, model, key=None, *, solvent_index=0):
     model : PropertyModel        the model it was solved with
     key : str, optional          key solute (default ``default_key``)
     solvent_index : int          index of the solvent component (never a solute)
+    solutes : sequence of str, optional   the solutes to compare one by one (default: every
+        gas-feed component absorbed more than MIN_ABSORBED, the solvent excepted)
     """
     column = solution.column
     key = key or default_key(solution, solvent_index)
@@ -105,7 +107,8 @@ def compare(solution, model, key=None, *, solvent_index=0):
         isothermal_stages = design.theoretical_stages
     except PinchError:
         design, isothermal_stages = None, None
-    solutes = tuple(_solute(solution, model, i, stages, common) for i in _solute_indices(solution, solvent_index))
+    indices = [names.index(name) for name in solutes] if solutes is not None else _solute_indices(solution, solvent_index)
+    solutes = tuple(_solute(solution, model, i, stages, common) for i in indices)
     rise = float(solution.temperature.max() - temperature)
     held, verdict = _verdict(key, stages, isothermal_stages, solutes, rise)
     return Comparison(
@@ -124,7 +127,7 @@ def _solute(solution, model, i, stages, common):
     rigorous_y = float(gas_out[i] / gas_out.sum())
     try:
         rating = inert_basis_design(model, name, n_stages=stages, **common)
-    except PinchError:
+    except (PinchError, ConvergenceError):  # pinched, or no outlet found for a barely absorbed gas
         return SoluteComparison(name, rigorous_y, None, float(solution.fraction_absorbed[i]), None)
     y_out = rating.gas_ratio_out / (1.0 + rating.gas_ratio_out)  # key over key + inert at the top
     return SoluteComparison(name, rigorous_y, y_out, float(solution.fraction_absorbed[i]), rating.fraction_absorbed)

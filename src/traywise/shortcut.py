@@ -487,8 +487,10 @@ def _pinch(equilibrium, ratio, gas_in, gas_out, liquid_in, liquid_out):
     """None when the operating line lies above the curve over [X_in, X_out], else (end, finding)."""
     x = np.linspace(liquid_in, liquid_out, PINCH_SAMPLES)
     curve = _curve(equilibrium, x)
-    if np.any(np.diff(curve) < 0.0):
-        i = int(np.flatnonzero(np.diff(curve) < 0.0)[0])
+    with np.errstate(invalid="ignore"):  # a curve that reaches y* = 1 is infinite there
+        falling = np.diff(curve) < 0.0
+    if np.any(falling):
+        i = int(np.flatnonzero(falling)[0])
         raise CaseError("equilibrium", f"Y*(X) falls between X = {x[i]:.6g} and {x[i + 1]:.6g}; it must increase")
     margin = gas_out + ratio * (x - liquid_in) - curve
     i = int(np.argmin(margin))

@@ -66,12 +66,11 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
     on 200 generated hard cases: median 8, max 67 iterations in all, no failure).
     """
     equations = StageEquations(column, model)
-    starts = [initial_estimate(equations, profile) for profile in START_ORDER]
+    starts = [lambda profile=profile: initial_estimate(equations, profile) for profile in START_ORDER]
     if start is not None and start.n_stages == column.n_stages:
-        starts.insert(0, equations.join(start.vapour_flows, start.liquid_flows, start.temperature))
-    runs = [_iterations(equations, x, settings) for x in starts]
-    total, last = 0, None
-    turn = 0
+        starts.insert(0, lambda: equations.join(start.vapour_flows, start.liquid_flows, start.temperature))
+    runs = [_iterations(equations, starts.pop(0)(), settings)]
+    total, turn, last = 0, 0, None
     while runs:
         run = runs[turn % len(runs)]
         try:
@@ -84,6 +83,9 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
         except ConvergenceError as failure:
             runs.remove(run)
             last = failure
+        if total >= settings.solo_iterations and starts:  # the other starts join (estimates built lazily)
+            runs.extend(_iterations(equations, make(), settings) for make in starts)
+            starts = []
     raise ConvergenceError(last.reason, iterations=total, residual=last.residual, stage=last.stage)
 
 

@@ -1,0 +1,34 @@
+"""Design loops over the rigorous solver (layer above ``column``, ``mesh`` and ``shortcut``).
+
+targets          SoluteTarget, TemperatureLimit: what a design aims at
+adjust           solvent_for_target, stages_for_target, cooler_duty_for_limit -> DesignResult
+minimum_solvent  minimum_solvent -> MinimumSolvent (rigorous, pinch located, and inert-basis)
+efficiency       O'Connell's absorber correlation, liquid-water viscosity and density, Lewis
+trays            tray_design -> TrayDesign (overall-efficiency and Murphree routes)
+sweep            sweep -> SweepTable
+variables        the column inputs that loops and sweeps change
+"""
+
+from .adjust import DesignResult, cooler_duty_for_limit, solvent_for_target, stages_for_target
+from .minimum_solvent import MinimumSolvent, Pinch, find_pinch, minimum_solvent
+from .sweep import SweepTable, sweep
+from .targets import SoluteTarget, TemperatureLimit
+from .trays import TrayDesign, actual_trays, tray_design
+
+__all__ = [
+    "DesignResult",
+    "MinimumSolvent",
+    "Pinch",
+    "SoluteTarget",
+    "SweepTable",
+    "TemperatureLimit",
+    "TrayDesign",
+    "actual_trays",
+    "cooler_duty_for_limit",
+    "find_pinch",
+    "minimum_solvent",
+    "solvent_for_target",
+    "stages_for_target",
+    "sweep",
+    "tray_design",
+]

@@ -1,0 +1,99 @@
+"""report.md: the run written for a reviewer, from the results record.
+
+Sections: summary, safety cautions, inputs (as read, in SI), components and equilibrium
+models, streams, absorption per component, stage profile, where the heat went, convergence and
+balance closure, the isothermal inert-basis comparison, figures, property sources, warnings.
+"""
+
+from .cautions import SAFETY_CAUTIONS
+from .sections import (
+    column_lines,
+    comparison_table,
+    component_table,
+    convergence_lines,
+    flatten,
+    heat_table,
+    key_line,
+    stage_profile_table,
+    stream_table,
+    temperature_line,
+)
+from .comparison_view import verdict_line
+from .tables import markdown_table
+
+FIGURE_TITLES = {
+    "temperature_profile.png": "Temperature profile",
+    "composition_profiles.png": "Composition profiles",
+    "xy_diagram.png": "x-y diagram (isothermal inert-basis design, with the passing streams of the rigorous solution)",
+    "heat_balance.png": "Where the heat of absorption went",
+}
+
+
+def markdown_report(results):
+    """The text of report.md for a results record."""
+    case = results["case"]
+    blocks = [
+        f"# {case['title']}",
+        f"Case file `{case['file']}`, solved by traywise {results['software']['version']}. "
+        "Machine-readable results: `results.json` (all values in SI) and `stages.csv`.",
+    ]
+    if case["notes"]:
+        blocks += ["## Notes", case["notes"]]
+    blocks += [
+        "## Summary",
+        _bullets([*column_lines(results), key_line(results), temperature_line(results), verdict_line(results["isothermal_comparison"]) + "."]),
+        "## Safety cautions",
+        _bullets(SAFETY_CAUTIONS),
+        "## Inputs (as read, in SI units)",
+        markdown_table(["input", "value"], [(f"`{key}`", value) for key, value in flatten(_inputs(results))]),
+        "## Components",
+        markdown_table(
+            ["component", "formula", "CAS", "equilibrium model", "molar mass [g/mol]"],
+            [
+                (c["name"], c["formula"], c["cas"], c["equilibrium_model"], f"{c['molar_mass_kg_per_mol'] * 1e3:.4f}")
+                for c in results["components"]
+            ],
+        ),
+        "## Streams",
+        markdown_table(*stream_table(results)),
+        "## Absorption per component",
+        markdown_table(*component_table(results)),
+        "## Stage profile",
+        markdown_table(*stage_profile_table(results)),
+        "## Where the heat went",
+        markdown_table(*heat_table(results)),
+        "## Convergence and balance closure",
+        _bullets(convergence_lines(results)),
+        "## Isothermal inert-basis comparison",
+        _comparison(results),
+    ]
+    figures = [name for name in FIGURE_TITLES if name in results["files"]]
+    if figures:
+        blocks += ["## Figures", *(f"![{FIGURE_TITLES[name]}]({name})" for name in figures)]
+    blocks += ["## Property sources", _sources(results), "## Warnings", _bullets(results["warnings"]) or "None."]
+    return "\n\n".join(blocks) + "\n"
+
+
+def _comparison(results):
+    heading, headers, rows, verdict = comparison_table(results)
+    text = f"Rigorous stage-by-stage solution compared with the {heading}.\n\n{markdown_table(headers, rows)}\n\n**{verdict}.**"
+    if any(name.endswith(".png") for name in results["files"]) and "xy_diagram.png" not in results["files"]:
+        text += "\n\nNo x-y diagram: the isothermal design pinches, so there are no stages to step."
+    return text
+
+
+def _inputs(results):
+    """The echoed inputs without title and notes, which head the report."""
+    return {key: value for key, value in results["inputs"].items() if key not in ("title", "notes")}
+
+
+def _sources(results):
+    lines = []
+    for name, sources in results["property_sources"].items():
+        lines.append(f"- **{name}**")
+        lines.extend(f"  - {label}: {citation}" for label, citation in sources.items())
+    return "\n".join(lines)
+
+
+def _bullets(lines):
+    return "\n".join(f"- {line}" for line in lines)

@@ -1,0 +1,147 @@
+"""The figures of the results folder, as PNG files.
+
+matplotlib is imported here, inside the functions, and used through its object interface with
+the Agg canvas (no pyplot, no global backend), so that runs without plots never load it.
+
+  temperature_profile.png   stage temperatures, feeds marked, the isothermal design's temperature
+  composition_profiles.png  vapour and liquid mole fractions on every stage (log scale)
+  xy_diagram.png            key solute in mole ratios: equilibrium curve, operating line and the
+                            stepped stages of the isothermal inert-basis design, with the
+                            passing streams of the rigorous solution beside them
+  heat_balance.png          where the heat released by absorption went
+"""
+
+import numpy as np
+
+from ..properties.constants import ZERO_CELSIUS
+
+DPI = 110
+FIGURE_SIZE = (6.4, 4.8)  # inches
+MARGINS = {"left": 0.12, "right": 0.97, "bottom": 0.11, "top": 0.91, "wspace": 0.08}  # fractions of the figure
+
+
+def write_plots(folder, solution, comparison, design):
+    """Draw every figure into ``folder``; return the file names.
+
+    Parameters
+    ----------
+    folder : pathlib.Path
+    solution : ColumnSolution
+    comparison : traywise.comparison.Comparison   (its temperature is marked on the profile)
+    design : InertBasisDesign or None   Drawn on the x-y diagram; without one (the classic
+        method pinches) the diagram is not drawn and the report says so.
+    """
+    drawings = [
+        ("temperature_profile.png", lambda figure: _temperature_profile(figure, solution, comparison)),
+        ("composition_profiles.png", lambda figure: _composition_profiles(figure, solution)),
+        ("heat_balance.png", lambda figure: _heat_balance(figure, solution)),
+    ]
+    if design is not None:
+        drawings.append(("xy_diagram.png", lambda figure: _xy_diagram(figure, solution, design)))
+    for name, draw in drawings:
+        _save(folder / name, draw)
+    return [name for name, _ in drawings]
+
+
+def _save(path, draw):
+    from matplotlib.backends.backend_agg import FigureCanvasAgg
+    from matplotlib.figure import Figure
+
+    figure = Figure(figsize=FIGURE_SIZE, dpi=DPI)
+    figure.subplots_adjust(**MARGINS)  # fixed margins: a layout engine costs 0.05-0.15 s a figure
+    FigureCanvasAgg(figure)
+    draw(figure)
+    figure.savefig(path, format="png")
+
+
+def _stage_axis(axes, n_stages, *, feeds=False):
+    """Stages on the vertical axis, stage 1 at the top (common practice for column profiles);
+    with ``feeds`` the axis reaches 0 (solvent in) and N + 1 (gas in)."""
+    margin = 1.3 if feeds else 0.5
+    axes.set_ylim(n_stages + margin, 1.0 - margin)
+    axes.set_ylabel("stage (1 = top)")
+    if n_stages <= 20:
+        axes.set_yticks(range(1, n_stages + 1))
+    axes.grid(True, alpha=0.3)
+
+
+def _temperature_profile(figure, solution, comparison):
+    axes = figure.add_subplot()
+    stages = np.arange(1, solution.n_stages + 1)
+    axes.plot(solution.temperature - ZERO_CELSIUS, stages, "o-", label="stage temperature")
+    column = solution.column
+    axes.plot([column.solvent.temperature - ZERO_CELSIUS], [0], "v", color="tab:blue", label="solvent in (above stage 1)")
+    axes.plot([column.gas.temperature - ZERO_CELSIUS], [solution.n_stages + 1], "^", color="tab:red", label="gas in (below stage N)")
+    axes.axvline(comparison.temperature - ZERO_CELSIUS, color="grey", ls="--", label="isothermal design")
+    _stage_axis(axes, solution.n_stages, feeds=True)
+    axes.set_xlabel("temperature [degC]")
+    axes.set_title("Temperature profile")
+    axes.legend(loc="best", fontsize="small")
+
+
+def _composition_profiles(figure, solution):
+    stages = np.arange(1, solution.n_stages + 1)
+    vapour_axes, liquid_axes = figure.subplots(1, 2, sharey=True)
+    for axes, fractions, title in (
+        (vapour_axes, solution.vapour_mole_fractions, "vapour, y"),
+        (liquid_axes, solution.liquid_mole_fractions, "liquid, x"),
+    ):
+        for i, name in enumerate(solution.component_names):
+            shown = np.where(fractions[:, i] > 0.0, fractions[:, i], np.nan)
+            if np.any(np.isfinite(shown)):
+                axes.plot(shown, stages, ".-", label=name)
+        axes.set_xscale("log")
+        axes.set_xlabel("mole fraction [-]")
+        axes.set_title(title)
+        _stage_axis(axes, solution.n_stages)
+    liquid_axes.set_ylabel("")
+    liquid_axes.legend(loc="best", fontsize="x-small")
+    figure.suptitle("Composition profiles")
+    figure.subplots_adjust(top=0.87)
+
+
+def _heat_balance(figure, solution):
+    heat = solution.heat
+    labels = ["released by\nabsorption", "liquid\nheating", "gas\nheating", "solvent\nevaporation", "coolers", "feeds and\ndraws"]
+    values = np.array([heat.released, heat.liquid_heating, heat.gas_heating, heat.evaporation, heat.removed_by_coolers, heat.other]) / 1e3
+    colours = ["tab:red"] + ["tab:blue"] * 5
+    axes = figure.add_subplot()
+    axes.bar(labels, values, color=colours)
+    axes.axhline(0.0, color="black", lw=0.8)
+    axes.set_ylabel("heat flow [kW]")
+    axes.set_title("Where the heat of absorption went (red = sum of blue)")
+    axes.tick_params(axis="x", labelsize="small")
+    figure.subplots_adjust(bottom=0.14)
+    axes.grid(True, axis="y", alpha=0.3)
+
+
+def _xy_diagram(figure, solution, design):
+    stepping = design.stepping
+    axes = figure.add_subplot()
+    axes.plot(*stepping.equilibrium_curve.T, "-", color="tab:green", label="equilibrium curve Y*(X)")
+    axes.plot(*stepping.operating_line.T, "-", color="tab:blue", label="operating line")
+    axes.plot(*stepping.staircase.T, "-", color="black", lw=0.9, label=f"stages stepped ({stepping.stages:.2f})")
+    passing = _rigorous_passing_streams(solution, design.key)
+    axes.plot(*passing.T, "o", ms=3.5, mfc="none", color="tab:red", label="rigorous solution, passing streams")
+    axes.set_xlim(left=0.0)
+    axes.set_ylim(bottom=0.0)
+    axes.set_xlabel(f"X, {design.key} per solute-free liquid [mol/mol]")
+    axes.set_ylabel(f"Y, {design.key} per solute-free gas [mol/mol]")
+    axes.set_title(f"x-y diagram of {design.key}, isothermal at {design.temperature - ZERO_CELSIUS:.1f} degC")
+    axes.grid(True, alpha=0.3)
+    axes.legend(loc="best", fontsize="small")
+
+
+def _rigorous_passing_streams(solution, key):
+    """(X, Y) of the key solute in the streams passing between stages of the rigorous
+    solution: liquid leaving stage j with vapour leaving stage j+1, plus both column ends."""
+    i = solution.component_names.index(key)
+    column = solution.column
+    liquid = np.vstack([column.solvent.component_flows, solution.liquid_flows])
+    vapour = np.vstack([solution.vapour_flows, column.gas.component_flows])
+    return np.column_stack([_key_ratio(liquid, i), _key_ratio(vapour, i)])
+
+
+def _key_ratio(flows, i):
+    """Mole ratio of component i to the rest of each stream (rows of ``flows``) [mol/mol]."""
+    return flows[:, i] / (flows.sum(axis=1) - flows[:, i])

@@ -1,0 +1,252 @@
+"""The full results record of a run, as written to results.json and printed by ``--json``.
+
+Every key that carries a dimensioned number names its unit (``temperature_K``,
+``vapour_flows_mol_per_s``); mole fractions, K-values and fractions are dimensionless. Values
+that are not defined are ``null``: the fraction absorbed of a component the gas does not carry,
+and the K-value of a component modelled as insoluble (infinite). Stage arrays run from stage 1
+(top) to N; per-component arrays follow the order of ``components``. ``RESULTS_KEYS`` documents
+every key; the tests check the written file against it.
+"""
+
+import math
+
+import numpy as np
+
+from .. import __version__
+from .cautions import SAFETY_CAUTIONS
+
+RESULTS_KEYS = {
+    "software": "name and version of the program that wrote the file",
+    "software.name": "'traywise'",
+    "software.version": "traywise version",
+    "case": "the case file",
+    "case.file": "path of the case file as given",
+    "case.title": "title from the case file",
+    "case.notes": "notes from the case file",
+    "inputs": "the case inputs as read, converted to SI (units in the keys)",
+    "components": "one entry per component, in the order used by every per-component array",
+    "components[].name": "component name",
+    "components[].formula": "chemical formula",
+    "components[].cas": "CAS registry number",
+    "components[].equilibrium_model": "'henry', 'raoult', 'nonvolatile' or 'insoluble'",
+    "components[].molar_mass_kg_per_mol": "molar mass [kg/mol]",
+    "column": "the column solved",
+    "column.theoretical_stages": "stages N of the stage model [-]",
+    "column.mode": "'adiabatic' (energy balances) or 'isothermal'",
+    "column.top_pressure_Pa": "pressure on stage 1 [Pa]",
+    "column.pressure_drop_Pa_per_stage": "pressure increase per stage going down [Pa]",
+    "column.murphree_efficiency": "Murphree vapour efficiency of each stage (N,) [-]",
+    "column.overall_efficiency": "overall tray efficiency from the case, or null [-]",
+    "column.actual_trays": "ceil(N / overall efficiency), or null [-]",
+    "column.solvent": "name of the solvent component",
+    "column.key_component": "name of the key solute",
+    "stages": "per-stage profiles, stage 1 at the top",
+    "stages.stage": "stage numbers 1..N",
+    "stages.temperature_K": "stage temperature (N,) [K]",
+    "stages.pressure_Pa": "stage pressure (N,) [Pa]",
+    "stages.vapour_flow_mol_per_s": "total vapour leaving each stage (N,) [mol/s]",
+    "stages.liquid_flow_mol_per_s": "total liquid leaving each stage (N,) [mol/s]",
+    "stages.vapour_flows_mol_per_s": "component vapour flows leaving each stage (N, c) [mol/s]",
+    "stages.liquid_flows_mol_per_s": "component liquid flows leaving each stage (N, c) [mol/s]",
+    "stages.vapour_mole_fractions": "y (N, c) [-]",
+    "stages.liquid_mole_fractions": "x (N, c) [-]",
+    "stages.k_values": "K = y*/x at stage conditions (N, c) [-]; null where infinite",
+    "stages.heat_removed_W": "heat taken out of each stage (N,) [W]; coolers > 0",
+    "gas_in": "gas fed under the bottom stage; keys as gas_out",
+    "gas_in.temperature_K": "[K]",
+    "gas_in.pressure_Pa": "pressure of the bottom stage [Pa]",
+    "gas_in.flow_mol_per_s": "total flow [mol/s]",
+    "gas_in.component_flows_mol_per_s": "per component name [mol/s]",
+    "gas_in.mole_fractions": "per component name [-]",
+    "solvent_in": "solvent fed onto the top stage; keys as gas_out",
+    "solvent_in.temperature_K": "[K]",
+    "solvent_in.pressure_Pa": "pressure of the top stage [Pa]",
+    "solvent_in.flow_mol_per_s": "total flow [mol/s]",
+    "solvent_in.component_flows_mol_per_s": "per component name [mol/s]",
+    "solvent_in.mole_fractions": "per component name [-]",
+    "gas_out": "gas leaving the top",
+    "gas_out.temperature_K": "[K]",
+    "gas_out.pressure_Pa": "[Pa]",
+    "gas_out.flow_mol_per_s": "total flow [mol/s]",
+    "gas_out.component_flows_mol_per_s": "per component name [mol/s]",
+    "gas_out.mole_fractions": "per component name [-]",
+    "liquid_out": "liquid leaving the bottom; keys as gas_out",
+    "liquid_out.temperature_K": "[K]",
+    "liquid_out.pressure_Pa": "[Pa]",
+    "liquid_out.flow_mol_per_s": "total flow [mol/s]",
+    "liquid_out.component_flows_mol_per_s": "per component name [mol/s]",
+    "liquid_out.mole_fractions": "per component name [-]",
+    "fraction_absorbed": "per component name: 1 - gas out / gas in [-]; negative when the gas picks it up; null when the gas carries none",
+    "solvent_lost_mol_per_s": "per component name: flow the gas carries out beyond what it brought in [mol/s]",
+    "temperatures": "temperature extremes",
+    "temperatures.max_temperature_K": "hottest stage temperature [K]",
+    "temperatures.hottest_stage": "1-based stage of the maximum",
+    "temperatures.gas_out_temperature_K": "top stage [K]",
+    "temperatures.liquid_out_temperature_K": "bottom stage [K]",
+    "heat": "where the heat released by absorption went, whole column",
+    "heat.released_W": "heat released by the components absorbed [W]",
+    "heat.gas_heating_W": "sensible heat taken up by the gas [W]",
+    "heat.liquid_heating_W": "sensible heat taken up by the solvent [W]",
+    "heat.evaporation_W": "heat taken up by components leaving the liquid (solvent evaporation) [W]",
+    "heat.removed_by_coolers_W": "heat removed by coolers and intercoolers [W]",
+    "heat.other_W": "carried by extra feeds and side draws [W]",
+    "convergence": "how the solution was reached and how well it closes",
+    "convergence.iterations": "Newton iterations [-]",
+    "convergence.scaled_residual": "final max-norm of the scaled residuals [-]",
+    "convergence.tolerance": "max-norm required [-]",
+    "convergence.component_closure": "per component name: |in - out| / in over the column [-]",
+    "convergence.energy_closure": "|enthalpy in - out - heat removed| / enthalpy throughput [-]",
+    "convergence.method": "iteration method in words",
+    "isothermal_comparison": "the isothermal inert-basis design beside the rigorous one",
+    "isothermal_comparison.key_component": "the solute the stage counts refer to",
+    "isothermal_comparison.isothermal_temperature_K": "temperature of the isothermal design [K]",
+    "isothermal_comparison.isothermal_pressure_Pa": "pressure of the isothermal design [Pa]",
+    "isothermal_comparison.theoretical_stages_rigorous": "theoretical stages of the rigorous column [-]",
+    "isothermal_comparison.theoretical_stages_isothermal": "stages the isothermal method needs for the same removal of the key solute [-]; null when it pinches",
+    "isothermal_comparison.solutes": "one entry per solute absorbed",
+    "isothermal_comparison.solutes[].name": "solute name",
+    "isothermal_comparison.solutes[].gas_out_mole_fraction_rigorous": "in the gas leaving the top [-]",
+    "isothermal_comparison.solutes[].gas_out_mole_fraction_isothermal": "the same by the isothermal method with the rigorous stage count [-]; null when it pinches",
+    "isothermal_comparison.solutes[].fraction_absorbed_rigorous": "[-]",
+    "isothermal_comparison.solutes[].fraction_absorbed_isothermal": "[-]; null when it pinches",
+    "isothermal_comparison.max_temperature_rise_K": "hottest stage above the isothermal temperature [K]",
+    "isothermal_comparison.hottest_stage": "1-based",
+    "isothermal_comparison.isothermal_assumption_held": "the plain verdict (true or false)",
+    "isothermal_comparison.verdict": "one sentence saying why",
+    "isothermal_comparison.inert_basis_design": "the isothermal design for the rigorous removal of the key solute (K-value, L'/V', its minimum, terminal mole ratios, stages), or null when it pinches",
+    "property_sources": "per component name: property -> full citation of the data used",
+    "warnings": "warnings from the case and the solution (list of text)",
+    "files": "the files of the results folder",
+    "safety_cautions": "the usual cautions; local codes and licensed practice take precedence",
+}
+
+
+def results_record(case, solution, comparison_json, files):
+    """The results record (a JSON-ready dict) of one solved case.
+
+    Parameters
+    ----------
+    case : traywise case (fields path, title, notes, components, model, column, solvent,
+        key_component, overall_efficiency, warnings, echo)
+    solution : traywise.mesh.solution.ColumnSolution
+    comparison_json : dict           From ``comparison_view.comparison_json``
+    files : list of str              File names of the results folder
+    """
+    names = list(solution.component_names)
+    column = solution.column
+    return {
+        "software": {"name": "traywise", "version": __version__},
+        "case": {"file": str(case.path), "title": case.title, "notes": case.notes},
+        "inputs": _plain(case.echo),
+        "components": [
+            {
+                "name": component.name,
+                "formula": component.formula,
+                "cas": component.cas,
+                "equilibrium_model": kind,
+                "molar_mass_kg_per_mol": component.molar_mass.value,
+            }
+            for component, kind in zip(case.model.components, case.model.equilibrium)
+        ],
+        "column": {
+            "theoretical_stages": solution.n_stages,
+            "mode": column.mode,
+            "top_pressure_Pa": column.top_pressure,
+            "pressure_drop_Pa_per_stage": column.pressure_drop,
+            "murphree_efficiency": _plain(column.murphree),
+            "overall_efficiency": case.overall_efficiency,
+            "actual_trays": actual_trays(solution.n_stages, case.overall_efficiency),
+            "solvent": case.solvent,
+            "key_component": case.key_component,
+        },
+        "stages": {
+            "stage": list(range(1, solution.n_stages + 1)),
+            "temperature_K": _plain(solution.temperature),
+            "pressure_Pa": _plain(solution.pressure),
+            "vapour_flow_mol_per_s": _plain(solution.vapour_flow),
+            "liquid_flow_mol_per_s": _plain(solution.liquid_flow),
+            "vapour_flows_mol_per_s": _plain(solution.vapour_flows),
+            "liquid_flows_mol_per_s": _plain(solution.liquid_flows),
+            "vapour_mole_fractions": _plain(solution.vapour_mole_fractions),
+            "liquid_mole_fractions": _plain(solution.liquid_mole_fractions),
+            "k_values": _plain(solution.k_values),
+            "heat_removed_W": _plain(solution.heat_removed),
+        },
+        "gas_in": _stream(names, column.gas.component_flows, column.gas.temperature, solution.pressure[-1]),
+        "solvent_in": _stream(names, column.solvent.component_flows, column.solvent.temperature, solution.pressure[0]),
+        "gas_out": _stream(names, solution.gas_out, solution.temperature[0], solution.pressure[0]),
+        "liquid_out": _stream(names, solution.liquid_out, solution.temperature[-1], solution.pressure[-1]),
+        "fraction_absorbed": _per_name(names, solution.fraction_absorbed),
+        "solvent_lost_mol_per_s": _per_name(names, solution.solvent_lost),
+        "temperatures": {
+            "max_temperature_K": solution.max_temperature,
+            "hottest_stage": solution.hottest_stage,
+            "gas_out_temperature_K": solution.gas_out_temperature,
+            "liquid_out_temperature_K": solution.liquid_out_temperature,
+        },
+        "heat": {f"{field}_W": _plain(value) for field, value in vars(solution.heat).items()},
+        "convergence": {
+            "iterations": solution.convergence.iterations,
+            "scaled_residual": solution.convergence.residual,
+            "tolerance": solution.convergence.tolerance,
+            "component_closure": _per_name(names, solution.convergence.component_closure),
+            "energy_closure": solution.convergence.energy_closure,
+            "method": solution.convergence.method,
+        },
+        "isothermal_comparison": comparison_json,
+        "property_sources": {c.name: property_sources(c, kind) for c, kind in zip(case.model.components, case.model.equilibrium)},
+        "warnings": [*case.warnings, *solution.warnings],
+        "files": sorted(files),
+        "safety_cautions": list(SAFETY_CAUTIONS),
+    }
+
+
+def actual_trays(n_stages, overall_efficiency):
+    """ceil(N / E), or None without an overall efficiency; rounded to 9 digits first so that
+    rounding noise on a whole N / E does not add a tray."""
+    if overall_efficiency is None:
+        return None
+    return math.ceil(round(n_stages / overall_efficiency, 9))
+
+
+def property_sources(component, equilibrium_model):
+    """Property -> full citation of the data a component contributes under its equilibrium model."""
+    used = {"molar mass": component.molar_mass, "ideal-gas heat capacity": component.ideal_gas_cp}
+    if equilibrium_model == "henry":
+        used["Henry's constant in water"] = component.henry_in_water
+    if equilibrium_model in ("raoult", "nonvolatile"):
+        used["liquid heat capacity"] = component.liquid_cp
+    if equilibrium_model == "raoult":
+        used["vapour pressure"] = component.vapour_pressure
+        used["heat of vaporisation"] = component.heat_of_vaporisation
+    return {label: component.cite(data.source) for label, data in used.items() if data is not None}
+
+
+def _per_name(names, values):
+    return {name: _plain(value) for name, value in zip(names, values)}
+
+
+def _stream(names, flows, temperature, pressure):
+    total = float(np.sum(flows))
+    return {
+        "temperature_K": float(temperature),
+        "pressure_Pa": float(pressure),
+        "flow_mol_per_s": total,
+        "component_flows_mol_per_s": {name: float(f) for name, f in zip(names, flows)},
+        "mole_fractions": {name: float(f) / total for name, f in zip(names, flows)},
+    }
+
+
+def _plain(value):
+    """numpy values, arrays, tuples and dicts as JSON-ready Python; NaN and infinity as None."""
+    if isinstance(value, dict):
+        return {str(key): _plain(item) for key, item in value.items()}
+    if isinstance(value, (list, tuple, np.ndarray)):
+        return [_plain(item) for item in value]
+    if isinstance(value, (bool, np.bool_)):
+        return bool(value)
+    if isinstance(value, (int, np.integer)):
+        return int(value)
+    if isinstance(value, (float, np.floating)):
+        return float(value) if math.isfinite(value) else None
+    return value

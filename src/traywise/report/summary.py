@@ -1,0 +1,62 @@
+"""The console summary of a run: what an engineer reads first, in display units.
+
+Three levels: quiet (nothing but the warnings, which go to stderr), normal (streams, absorption,
+temperatures, heat, closure, the isothermal check) and verbose (also the stage table and the
+property sources).
+"""
+
+from .cautions import SAFETY_ONE_LINE
+from .sections import (
+    column_lines,
+    comparison_table,
+    component_table,
+    convergence_lines,
+    heat_table,
+    key_line,
+    stage_profile_table,
+    stream_table,
+    temperature_line,
+)
+from .tables import text_table
+
+
+def summary_text(results, *, verbose=False, folder=None):
+    """The console summary of a results record; ``folder`` is where the results were written."""
+    case = results["case"]
+    parts = [f"traywise {results['software']['version']}: {case['title']} ({case['file']})"]
+    parts.append("\n".join([*column_lines(results), *convergence_lines(results)]))
+    parts.append(text_table(*stream_table(results)))
+    parts.append(text_table(*component_table(results)))
+    parts.append("\n".join([key_line(results), temperature_line(results)]))
+    parts.append(text_table(*heat_table(results)))
+    parts.append(comparison_text(results))
+    if verbose:
+        parts.append(text_table(*stage_profile_table(results)))
+        parts.append(sources_text(results))
+    parts.append(warnings_text(results))
+    if folder is not None:
+        parts.append(f"Results written to {folder}")
+    parts.append(SAFETY_ONE_LINE)
+    return "\n\n".join(parts)
+
+
+def comparison_text(results):
+    """The isothermal check as a small table and its verdict."""
+    heading, headers, rows, verdict = comparison_table(results)
+    return f"Compared with the {heading}:\n{text_table(headers, rows)}\n{verdict}."
+
+
+def warnings_text(results):
+    """The warnings as a list, or 'Warnings: none.'."""
+    if not results["warnings"]:
+        return "Warnings: none."
+    return "Warnings:\n" + "\n".join(f"  - {warning}" for warning in results["warnings"])
+
+
+def sources_text(results):
+    """Property sources per component."""
+    lines = ["Property sources:"]
+    for name, sources in results["property_sources"].items():
+        lines.append(f"  {name}:")
+        lines.extend(f"    {label}: {citation}" for label, citation in sources.items())
+    return "\n".join(lines)

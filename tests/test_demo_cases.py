@@ -1,0 +1,145 @@
+"""Every demo case in cases/ runs from the command line and writes a complete, valid results folder.
+
+Run in temporary folders outside the repository, in-process (click's CliRunner) for each case,
+and once as a separate process through the installed `traywise` entry point (or
+`python -m traywise.cli` where it is not installed). The demo data are invented (each case's
+notes say so); the checks here are on the outputs and the balances, plus the one point each
+demo is there to show.
+"""
+
+import csv
+import json
+import os
+import shutil
+import subprocess
+import sys
+from pathlib import Path
+
+import pytest
+from click.testing import CliRunner
+from test_reports import PNG_SIGNATURE, lookup, strict_json
+
+from traywise.cli import main
+from traywise.report.results import RESULTS_KEYS
+
+REPOSITORY = Path(__file__).resolve().parents[1]
+CASES = sorted((REPOSITORY / "cases").glob("*.toml"))
+DEMOS = {
+    "acid-gas-vent-scrubber",
+    "ammonia-recovery",
+    "solvent-recovery-dryer-air",
+    "sour-gas-water-wash",
+}
+FIGURES = {"temperature_profile.png", "composition_profiles.png", "xy_diagram.png", "heat_balance.png"}
+BALANCE_TOLERANCE = 1e-9  # relative, per component: the solver's own acceptance limit (mesh/balances.py)
+
+
+def test_the_four_demo_cases_are_there():
+    assert {case.stem for case in CASES} == DEMOS
+
+
+@pytest.fixture(scope="module", params=CASES, ids=lambda path: path.stem)
+def demo_run(request, tmp_path_factory):
+    """(case path, results folder, CLI result) of one demo case run in a fresh folder."""
+    folder = tmp_path_factory.mktemp(request.param.stem)
+    cwd = os.getcwd()
+    os.chdir(folder)
+    try:
+        result = CliRunner().invoke(main, ["run", str(request.param)])
+    finally:
+        os.chdir(cwd)
+    assert result.exit_code == 0, result.output
+    return request.param, folder / f"{request.param.stem}-results", result
+
+
+def test_demo_runs_and_writes_every_output(demo_run):
+    _, folder, result = demo_run
+    assert "Results written to" in result.stdout
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md"} | FIGURES
+    assert not [p for p in folder.parent.iterdir() if p.name.startswith(".")]  # no temporary folder left
+
+
+def test_demo_results_json_is_complete(demo_run):
+    _, folder, _ = demo_run
+    record = strict_json(folder / "results.json")
+    for dotted in RESULTS_KEYS:
+        lookup(record, dotted)
+    assert "Invented demo scenario" in record["case"]["notes"]
+    assert record["warnings"] == []  # the demos are meant to run clean
+
+
+def test_demo_balances_close(demo_run):
+    """Recomputed from the streams in results.json: in = out for every component, within the
+    solver's acceptance limit."""
+    _, folder, _ = demo_run
+    record = strict_json(folder / "results.json")
+    names = [c["name"] for c in record["components"]]
+    for name in names:
+        fed = record["gas_in"]["component_flows_mol_per_s"][name] + record["solvent_in"]["component_flows_mol_per_s"][name]
+        left = record["gas_out"]["component_flows_mol_per_s"][name] + record["liquid_out"]["component_flows_mol_per_s"][name]
+        assert abs(fed - left) <= BALANCE_TOLERANCE * max(fed, 1e-12), name
+    assert record["convergence"]["energy_closure"] < 1e-7  # the solver's energy acceptance limit
+    assert record["convergence"]["scaled_residual"] <= record["convergence"]["tolerance"]
+
+
+def test_demo_stage_table_has_one_row_per_stage(demo_run):
+    _, folder, _ = demo_run
+    with open(folder / "stages.csv", newline="", encoding="utf-8") as stream:
+        rows = list(csv.DictReader(stream))
+    n_stages = strict_json(folder / "results.json")["column"]["theoretical_stages"]
+    assert [int(row["stage"]) for row in rows] == list(range(1, n_stages + 1))
+    assert all(250.0 < float(row["temperature_K"]) < 400.0 for row in rows)
+
+
+def test_demo_figures_are_png_images(demo_run):
+    from matplotlib.image import imread
+
+    _, folder, _ = demo_run
+    for name in FIGURES:
+        assert (folder / name).read_bytes()[:8] == PNG_SIGNATURE
+        height, width, _ = imread(folder / name).shape
+        assert height > 200 and width > 200
+
+
+def test_demo_report_carries_the_cautions(demo_run):
+    _, folder, _ = demo_run
+    text = (folder / "report.md").read_text(encoding="utf-8")
+    assert "## Safety cautions" in text and "licensed engineering practice" in text
+    assert "Invented demo scenario" in text
+
+
+def test_demo_removes_its_key_solute(demo_run):
+    _, folder, _ = demo_run
+    record = strict_json(folder / "results.json")
+    assert record["fraction_absorbed"][record["column"]["key_component"]] > 0.9
+
+
+def test_ammonia_demo_shows_the_heat_of_absorption(tmp_path):
+    """Its point: the isothermal assumption fails by a wide temperature rise, even with the
+    intercooler; the cooler removes heat."""
+    case = REPOSITORY / "cases" / "ammonia-recovery.toml"
+    result = CliRunner().invoke(main, ["compare", str(case), "--json"])
+    record = json.loads(result.stdout)
+    comparison = record["isothermal_comparison"]
+    assert comparison["max_temperature_rise_K"] > 10.0
+    assert comparison["isothermal_assumption_held"] is False
+    assert record["heat"]["removed_by_coolers_W"] > 0.0
+
+
+def traywise_command():
+    installed = shutil.which("traywise")
+    return [installed] if installed else [sys.executable, "-m", "traywise.cli"]
+
+
+def test_entry_point_runs_a_demo_in_a_fresh_process(tmp_path):
+    env = {**os.environ, "PYTHONPATH": str(REPOSITORY / "src"), "MPLBACKEND": "Agg"}
+    case = REPOSITORY / "cases" / "solvent-recovery-dryer-air.toml"
+    finished = subprocess.run(traywise_command() + ["run", str(case), "--quiet"], cwd=tmp_path, env=env,
+                              capture_output=True, text=True, check=False)
+    assert finished.returncode == 0, finished.stderr
+    folder = tmp_path / "solvent-recovery-dryer-air-results"
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md"} | FIGURES
+    missing = subprocess.run(traywise_command() + ["run", "missing.toml"], cwd=tmp_path, env=env,
+                             capture_output=True, text=True, check=False)
+    assert missing.returncode == 2
+    assert len(missing.stderr.strip().splitlines()) == 1 and "Traceback" not in missing.stderr
