@@ -20,7 +20,10 @@ from .correlations import (
     stable_polynomial_antiderivative,
 )
 
-EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")
+EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a component's own default model
+# Models a property model can also give a component: they need more than the component's data
+# (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
+MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table")
 
 
 @dataclass(frozen=True)

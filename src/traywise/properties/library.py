@@ -24,7 +24,8 @@ def library_directory():
     checkout = Path(__file__).resolve().parents[3] / "components"
     if checkout.is_dir():
         return checkout
-    return Path(str(resources.files("traywise.data.components")))
+    # a regular package's files() is a real path; the data folder has no __init__.py of its own
+    return Path(str(resources.files("traywise.data").joinpath("components")))
 
 
 @functools.cache

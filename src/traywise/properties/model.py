@@ -8,11 +8,23 @@ Equilibrium (K_i = y_i / x_i), per component:
   henry        K = H(T) / P                         (gases, carrier gases too)
   nonvolatile  K = 0                                (a solvent that does not evaporate)
   insoluble    K = infinity                         (a carrier gas that does not dissolve)
+  activity     K = gamma(x, T) Psat(T) / P          (organic solute, gamma from the activity model,
+                                                     anchored to its Henry's constant in water)
+  table        K = p(u, T) / (x P)                  (user equilibrium table, u = solute/solvent)
+With an activity model (``activity=``), 'raoult' members get gamma(x, T) too and 'nonvolatile'
+members their excess enthalpy. A 'henry' gas keeps its Henry's constant in water whatever the
+liquid (see ``PropertyModel``).
 Enthalpy, reference ideal gas at 298.15 K (DESIGN.md section 3):
   vapour       h_V = integral of the ideal-gas Cp from 298.15 K
-  raoult       h_L = h_V(T_v) - dH_vap(T_v) + integral of the liquid Cp from T_v
+  raoult       h_L = h_V(T_v) - dH_vap(T_v) + integral of the liquid Cp from T_v  (+ h_E)
   henry        h_L = h_V(T) + dH_sol(T), dH_sol = R dlnH/d(1/T), so that
                d ln K / d(1/T) = -(h_V - h_L) / R holds exactly (van 't Hoff)
+  activity     h_L = h_V(T) - R T**2 d ln K/dT at fixed x: the Henry reference (the enthalpy at
+               infinite dilution in water implied by H(T)) plus the excess enthalpy relative to it
+  table        h_L = h_V(T) + R d ln p/d(1/T) at fixed loading; the table's solvent gets the
+               Gibbs-Duhem complement (``equilibrium_table``)
+with h_E = -R T**2 d ln gamma/dT at fixed x, the excess partial enthalpy of the model that
+gives K. Every h_L is a partial molar enthalpy (Gibbs-Duhem holds), as the solver assumes.
 """
 
 from dataclasses import dataclass
@@ -20,9 +32,11 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..errors import CaseError
-from .component import EQUILIBRIUM_KINDS
+from .component import MODEL_KINDS
 from .constants import GAS_CONSTANT, T_REFERENCE
 from .correlations import stable_polynomial_antiderivative
+from .equilibrium_table import TINY
+from .liquid import AnchoredLiquid
 
 
 @dataclass(frozen=True)
@@ -41,6 +55,19 @@ class StageProperties:
     h_liquid: np.ndarray
     dh_liquid_dt: np.ndarray
     dlnk_dx: np.ndarray | None = None
+
+
+@dataclass
+class _Arrays:
+    """The arrays of ``StageProperties`` while they are filled in, with ln K in place of K."""
+
+    ln_k: np.ndarray
+    dlnk_dt: np.ndarray
+    h_vapour: np.ndarray
+    dh_vapour_dt: np.ndarray
+    h_liquid: np.ndarray
+    dh_liquid_dt: np.ndarray
+    dlnk_dx: np.ndarray
 
 
 class _StackedPolynomials:
@@ -115,9 +142,24 @@ class PropertyModel:
     components : sequence of Component
     equilibrium : sequence of str, optional   Model per component (see module docstring);
         defaults to each component's own ``equilibrium``.
+    activity : Unifac or Nrtl, optional   Activity-coefficient model of the liquid
+        (``activity.py``, ``unifac_parameters.unifac``). Its members, matched by name, must be
+        'raoult', 'activity' or 'nonvolatile' components, and every 'activity' component one
+        of them; anchoring to Henry's constants needs water among them.
+    tables : dict, optional   Name -> ``EquilibriumTable`` for every 'table' component.
+
+    Without liquid mole fractions, ``evaluate`` takes the reference liquid: the first 'raoult'
+    or 'nonvolatile' component, pure, with every solute at infinite dilution in it (where an
+    anchored solute's K is its Henry's constant over P).
+
+    Gases ('henry') keep their Henry's constant in water whatever else the liquid holds. That
+    is right while water is most of the liquid (organics below about 10 mol %, common
+    practice); most gases dissolve several times better in organic liquids, so in an
+    organic-rich liquid a gas's K is overstated: its absorption, and the carrier gas lost into
+    the liquid, are understated.
     """
 
-    def __init__(self, components, equilibrium=None):
+    def __init__(self, components, equilibrium=None, *, activity=None, tables=None):
         self.components = tuple(components)
         kinds = tuple(equilibrium) if equilibrium is not None else tuple(c.equilibrium for c in components)
         if len(kinds) != len(self.components):
@@ -128,7 +170,7 @@ class PropertyModel:
         self.names = tuple(c.name for c in self.components)
         self.n_components = len(self.components)
         self.molar_mass = np.array([c.molar_mass.value for c in self.components])
-        index = {kind: np.array([i for i, k in enumerate(kinds) if k == kind], dtype=int) for kind in EQUILIBRIUM_KINDS}
+        index = {kind: np.array([i for i, k in enumerate(kinds) if k == kind], dtype=int) for kind in MODEL_KINDS}
         self.index = index
         liquid = list(index["raoult"]) + list(index["nonvolatile"])
         self._liquid_index = np.array(liquid, dtype=int)
@@ -141,20 +183,73 @@ class PropertyModel:
         self._henry = henry[list(self._henry_terms)]
         self._liquid_offset = self._liquid_enthalpy_offsets(liquid)
         self._vapour_pressures = [self.components[i].vapour_pressure for i in index["raoult"]]
+        self.reference_liquid = np.zeros(self.n_components)
+        if liquid:
+            self.reference_liquid[min(liquid)] = 1.0
+        self.activity = activity
+        self.tables = dict(tables or {})
+        self._activity_liquid = self._anchored_liquid(activity)
+        self._table_models = self._prepared_tables()
+        self.composition_dependent = self._activity_liquid is not None or bool(self._table_models)
 
     @staticmethod
     def _check(component, kind):
-        if kind not in EQUILIBRIUM_KINDS:
-            raise CaseError(component.name, f"equilibrium model '{kind}' unknown; use one of {EQUILIBRIUM_KINDS}")
+        if kind not in MODEL_KINDS:
+            raise CaseError(component.name, f"equilibrium model '{kind}' unknown; use one of {MODEL_KINDS}")
         needs = {
             "henry": ("henry_in_water",),
             "raoult": ("vapour_pressure", "liquid_cp", "heat_of_vaporisation"),
             "nonvolatile": ("liquid_cp",),
             "insoluble": (),
+            "activity": ("henry_in_water", "vapour_pressure"),
+            "table": (),
         }[kind]
         missing = [key for key in needs if getattr(component, key) is None]
         if missing:
             raise CaseError(component.name, f"equilibrium model '{kind}' needs {', '.join(missing)}, which it lacks")
+
+    def _position(self, name, where):
+        if name not in self.names:
+            raise CaseError(where, f"'{name}' is not a component of the model; expected one of {', '.join(self.names)}")
+        return self.names.index(name)
+
+    def _anchored_liquid(self, activity):
+        """The ``AnchoredLiquid`` of the activity model's members, or None without one."""
+        if activity is None:
+            if self.index["activity"].size:
+                name = self.names[self.index["activity"][0]]
+                raise CaseError(name, "equilibrium model 'activity' needs an activity model of the liquid (activity=...)")
+            return None
+        members = [self._position(name, "activity") for name in activity.names]
+        for i in members:
+            if self.equilibrium[i] not in ("raoult", "activity", "nonvolatile"):
+                raise CaseError(self.names[i], f"a member of the liquid activity model must be 'raoult', 'activity' or "
+                                               f"'nonvolatile', not '{self.equilibrium[i]}'")
+        outside = [self.names[i] for i in self.index["activity"] if i not in members]
+        if outside:
+            raise CaseError("activity", f"{', '.join(outside)} use model 'activity' but are not in the activity model")
+        water = [p for p, i in enumerate(members) if self.components[i].matches("water") or self.components[i].cas == "7732-18-5"]
+        anchored = [(p, self.components[i].henry_in_water, self.components[i].vapour_pressure)
+                    for p, i in enumerate(members) if self.equilibrium[i] == "activity"]
+        liquid = AnchoredLiquid(activity, members, anchored, water[0] if water else None)
+        self._ideal_members = np.array([p for p, i in enumerate(members) if self.equilibrium[i] != "activity"], dtype=int)
+        return liquid
+
+    def _prepared_tables(self):
+        """{component index: (solvent index, TableEquilibrium)} for the 'table' components."""
+        prepared = {}
+        for i in self.index["table"]:
+            table = self.tables.get(self.names[i])
+            if table is None:
+                raise CaseError(self.names[i], "equilibrium model 'table' needs an equilibrium table (tables={name: ...})")
+            s = self._position(table.solvent, f"{self.names[i]}: table.solvent")
+            if self.equilibrium[s] not in ("raoult", "nonvolatile"):
+                raise CaseError(f"{self.names[i]}: table.solvent", f"'{table.solvent}' must be a 'raoult' or 'nonvolatile' liquid")
+            prepared[i] = (s, table.prepared(self.molar_mass[i], self.molar_mass[s]))
+        extra = [name for name in self.tables if name not in self.names or self.equilibrium[self.names.index(name)] != "table"]
+        if extra:
+            raise CaseError("tables", f"tables given for {', '.join(extra)}, whose equilibrium model is not 'table'")
+        return prepared
 
     def _liquid_enthalpy_offsets(self, liquid):
         """Liquid enthalpy at T_ref for raoult/nonvolatile components: h_V(T_v) - dH_vap(T_v)
@@ -177,11 +272,9 @@ class PropertyModel:
         return h[:, : self.n_components], cp[:, : self.n_components]
 
     def evaluate(self, temperature, pressure, liquid_mole_fractions=None):
-        """All stage properties for temperature (n,) [K], pressure (n,) [Pa].
-
-        ``liquid_mole_fractions`` (n, c) is accepted for composition-dependent models and
-        ignored by the ideal-solution models here.
-        """
+        """All stage properties for temperature (n,) [K], pressure (n,) [Pa] and, for the
+        composition-dependent models, liquid mole fractions (n, c) [-] (default: the reference
+        liquid, see the class docstring; ignored by the ideal-solution models)."""
         t = np.asarray(temperature, dtype=float).reshape(-1)
         p = np.broadcast_to(np.asarray(pressure, dtype=float).reshape(-1), t.shape)
         n, m, idx = t.size, self.n_components, self.index
@@ -205,22 +298,56 @@ class PropertyModel:
         if self._liquid_index.size:
             h_liquid[:, self._liquid_index] = h_all[:, m:] + self._liquid_offset
             dh_liquid_dt[:, self._liquid_index] = cp_all[:, m:]
+        dlnk_dx = None
+        if self.composition_dependent:
+            if liquid_mole_fractions is None:
+                x = np.broadcast_to(self.reference_liquid, (n, m))
+            else:
+                x = np.asarray(liquid_mole_fractions, dtype=float).reshape(n, m)
+            dlnk_dx = np.zeros((n, m, m))
+            props = _Arrays(ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
+            if self._activity_liquid is not None:
+                self._add_activity(props, t, ln_p, x)
+            for i, (s, table) in self._table_models.items():
+                _add_table(props, t, ln_p, x, i, s, table)
         k = np.exp(ln_k)
         k[:, idx["nonvolatile"]] = 0.0
         k[:, idx["insoluble"]] = np.inf
-        return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt)
+        return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
 
-    def range_warnings(self, temperatures):
-        """Plain-language warnings for correlations used outside their valid temperature range."""
+    def _add_activity(self, props, t, ln_p, x):
+        """Activity coefficients into ln K, excess enthalpies into h_liquid (in place)."""
+        liquid = self._activity_liquid
+        phi, dphi, d2phi, dphi_dx = liquid.evaluate(x, t)
+        tt = t[:, None]
+        h_excess = -GAS_CONSTANT * tt * tt * dphi
+        dh_excess = -GAS_CONSTANT * (2.0 * tt * dphi + tt * tt * d2phi)
+        ideal, anchored, members = self._ideal_members, liquid.anchored, liquid.members
+        i, a = members[ideal], members[anchored]
+        props.ln_k[:, i] += phi[:, ideal]
+        props.dlnk_dt[:, i] += dphi[:, ideal]
+        props.h_liquid[:, i] += h_excess[:, ideal]
+        props.dh_liquid_dt[:, i] += dh_excess[:, ideal]
+        # anchored solutes: phi = ln(gamma Psat); Henry reference, h_L = h_V - R T**2 dlnK/dT
+        props.ln_k[:, a] = phi[:, anchored] - ln_p
+        props.dlnk_dt[:, a] = dphi[:, anchored]
+        props.h_liquid[:, a] = props.h_vapour[:, a] + h_excess[:, anchored]
+        props.dh_liquid_dt[:, a] = props.dh_vapour_dt[:, a] + dh_excess[:, anchored]
+        props.dlnk_dx[:, members[:, None], members[None, :]] += dphi_dx
+
+    def range_warnings(self, temperatures, liquid_mole_fractions=None):
+        """Plain-language warnings for correlations used outside their valid temperature range,
+        and for equilibrium tables used outside their temperatures or (given the liquid mole
+        fractions (n, c) of the stages) their loadings."""
         t_low, t_high = float(np.min(temperatures)), float(np.max(temperatures))
         warnings = []
         for component, kind in zip(self.components, self.equilibrium):
             used = [("ideal-gas heat capacity", component.ideal_gas_cp)]
-            if kind == "henry":
+            if kind in ("henry", "activity"):
                 used.append(("Henry's constant", component.henry_in_water))
             if kind in ("raoult", "nonvolatile"):
                 used.append(("liquid heat capacity", component.liquid_cp))
-            if kind == "raoult":
+            if kind in ("raoult", "activity"):
                 used.append(("vapour pressure", component.vapour_pressure))
             for label, correlation in used:
                 if t_low < correlation.t_min - 1e-9 or t_high > correlation.t_max + 1e-9:
@@ -228,4 +355,33 @@ class PropertyModel:
                         f"{component.name}: {label} used from {t_low:.1f} K to {t_high:.1f} K, outside its "
                         f"valid range {correlation.t_min:.1f}-{correlation.t_max:.1f} K (extrapolated)"
                     )
+        for i, (s, table) in self._table_models.items():
+            ratios = None
+            if liquid_mole_fractions is not None:
+                x = np.asarray(liquid_mole_fractions, dtype=float).reshape(-1, self.n_components)
+                ratios = x[:, i] / np.maximum(x[:, s], TINY)
+            warnings.extend(table.range_warnings(self.names[i], temperatures, ratios))
         return warnings
+
+
+def _add_table(props, t, ln_p, x, i, s, table):
+    """Solute i from its table, and the Gibbs-Duhem complement on its solvent s (in place).
+    See ``equilibrium_table`` for the formulas."""
+    x_i, x_s = x[:, i], np.maximum(x[:, s], TINY)
+    u = x_i / x_s
+    r = table.evaluate(u, t)
+    tau2 = 1.0 / (t * t)
+    props.ln_k[:, i] = r["ln_p_over_u"] + np.log1p(u) - ln_p[:, 0]
+    props.dlnk_dt[:, i] = -tau2 * r["dln_p_dtau"]
+    props.h_liquid[:, i] = props.h_vapour[:, i] + GAS_CONSTANT * r["dln_p_dtau"]
+    props.dh_liquid_dt[:, i] = props.dh_vapour_dt[:, i] - GAS_CONSTANT * tau2 * r["d2ln_p_dtau2"]
+    props.ln_k[:, s] += np.log1p(u) - r["integral"]
+    props.dlnk_dt[:, s] += tau2 * r["dintegral_dtau"]
+    props.h_liquid[:, s] -= GAS_CONSTANT * r["dintegral_dtau"]
+    props.dh_liquid_dt[:, s] += GAS_CONSTANT * tau2 * r["d2integral_dtau2"]
+    # g = d ln K_i / d ln u; d ln gamma_s / d ln u = -u g; u = x_i / x_s
+    g = r["slope"] - 1.0 / (1.0 + u)
+    props.dlnk_dx[:, i, i] += np.divide(g, x_i, out=np.zeros_like(g), where=x_i > 0.0)
+    props.dlnk_dx[:, i, s] -= g / x_s
+    props.dlnk_dx[:, s, i] -= g / x_s
+    props.dlnk_dx[:, s, s] += u * g / x_s
