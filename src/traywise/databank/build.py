@@ -20,6 +20,7 @@ from chemicals import CAS_from_any, Tb, Tm
 from chemicals.identifiers import search_chemical
 
 from ..properties.constants import T_REFERENCE
+from ..properties.library import library_directory
 from . import tables
 from .toml_text import component_text
 
@@ -47,8 +48,9 @@ TABLE_ORDER = ("molar_mass", "melting_point", "ideal_gas_cp", "liquid_cp", "vapo
 
 
 def default_directory():
-    """The repository's components/ folder."""
-    return Path(__file__).resolve().parents[3] / "components"
+    """The component library folder: the repository's components/ in a checkout, else the copy
+    installed with the package (rebuilding there only makes sense for checking)."""
+    return library_directory()
 
 
 def identify(text):
