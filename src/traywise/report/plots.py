@@ -20,6 +20,9 @@ FIGURE_SIZE = (6.4, 4.8)  # inches
 MARGINS = {"left": 0.12, "right": 0.97, "bottom": 0.11, "top": 0.91, "wspace": 0.08}  # fractions of the figure
 
 
+LOG_PANEL_RATIO = 100.0  # Y_in / Y_out beyond which the x-y diagram gets a log-log panel
+
+
 def write_plots(folder, solution, comparison, design):
     """Draw every figure into ``folder``; return the file names.
 
@@ -116,20 +119,37 @@ def _heat_balance(figure, solution):
 
 
 def _xy_diagram(figure, solution, design):
+    """Linear x-y diagram; when the gas is cleaned by more than two decades, a log-log panel
+    beside it shows the stages near the lean end, which the linear one crowds into a corner."""
     stepping = design.stepping
-    axes = figure.add_subplot()
-    axes.plot(*stepping.equilibrium_curve.T, "-", color="tab:green", label="equilibrium curve Y*(X)")
-    axes.plot(*stepping.operating_line.T, "-", color="tab:blue", label="operating line")
-    axes.plot(*stepping.staircase.T, "-", color="black", lw=0.9, label=f"stages stepped ({stepping.stages:.2f})")
+    logarithmic = design.gas_ratio_in > LOG_PANEL_RATIO * design.gas_ratio_out > 0.0
+    if logarithmic:
+        figure.set_size_inches(2.0 * FIGURE_SIZE[0], FIGURE_SIZE[1])
+        figure.subplots_adjust(left=0.07, right=0.98, wspace=0.22)
+    panels = figure.subplots(1, 2) if logarithmic else [figure.add_subplot()]
     passing = _rigorous_passing_streams(solution, design.key)
-    axes.plot(*passing.T, "o", ms=3.5, mfc="none", color="tab:red", label="rigorous solution, passing streams")
-    axes.set_xlim(left=0.0)
-    axes.set_ylim(bottom=0.0)
-    axes.set_xlabel(f"X, {design.key} per solute-free liquid [mol/mol]")
-    axes.set_ylabel(f"Y, {design.key} per solute-free gas [mol/mol]")
-    axes.set_title(f"x-y diagram of {design.key}, isothermal at {design.temperature - ZERO_CELSIUS:.1f} degC")
-    axes.grid(True, alpha=0.3)
-    axes.legend(loc="best", fontsize="small")
+    line = stepping.operating_line
+    staircase_x = stepping.staircase[:, 0]
+    lean = max(line[0, 0], staircase_x[staircase_x > 0.0].min(initial=line[1, 0]))
+    dense_x = np.geomspace(lean, line[1, 0], 200)  # straight in linear axes, curved in log axes
+    dense_line = (dense_x, np.interp(dense_x, line[:, 0], line[:, 1]))
+    for axes in panels:
+        axes.plot(*stepping.equilibrium_curve.T, "-", color="tab:green", label="equilibrium curve Y*(X)")
+        axes.plot(*dense_line, "-", color="tab:blue", label="operating line")
+        axes.plot(*stepping.staircase.T, "-", color="black", lw=0.9, label=f"stages stepped ({stepping.stages:.2f})")
+        axes.plot(*passing.T, "o", ms=3.5, mfc="none", color="tab:red", label="rigorous solution, passing streams")
+        axes.set_xlabel(f"X, {design.key} per solute-free liquid [mol/mol]")
+        axes.grid(True, alpha=0.3)
+    panels[0].set_xlim(left=0.0)
+    panels[0].set_ylim(bottom=0.0)
+    panels[0].set_ylabel(f"Y, {design.key} per solute-free gas [mol/mol]")
+    panels[0].legend(loc="best", fontsize="small")
+    if logarithmic:
+        panels[1].set_xscale("log")
+        panels[1].set_yscale("log")
+        panels[1].set_ylim(bottom=0.3 * design.gas_ratio_out, top=2.0 * design.gas_ratio_in)
+        panels[1].set_title("log-log, lean end", fontsize="small")
+    figure.suptitle(f"x-y diagram of {design.key}, isothermal at {design.temperature - ZERO_CELSIUS:.1f} degC")
 
 
 def _rigorous_passing_streams(solution, key):
