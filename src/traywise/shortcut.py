@@ -11,9 +11,10 @@ X_out. A solute balance over the top of the column gives the straight operating 
     Y = Y_out + (L'/V') (X - X_in),
 
 and the equilibrium curve Y*(X) comes from the property model at one temperature and pressure
-(or from the user). Heat effects, solvent evaporation and carrier solubility are ignored by
-construction: this is the simple check that ``DESIGN.md`` section 5 runs beside the rigorous
-stage model.
+(``equilibrium_curve``: K evaluated at the liquid of solute and solvent along the curve, the
+same model as the rigorous stage model), or from the user. Heat effects, solvent evaporation
+and carrier solubility are ignored by construction: this is the simple check that ``DESIGN.md``
+section 5 runs beside the rigorous stage model.
 
 References
 ----------
@@ -29,39 +30,13 @@ from dataclasses import dataclass
 import numpy as np
 from scipy.optimize import brentq, minimize_scalar
 
+from .equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium, mole_ratio_equilibrium
+from .equilibrium_curve import component_index as _component_index
 from .errors import CaseError, ConvergenceError, PinchError
 
 MAX_STAGES = 1000  # a staircase still short of its terminal after this many stages is taken as pinched
 PINCH_SAMPLES = 1001  # points on which the operating line is checked against the equilibrium curve
 _RTOL = 4.0 * np.finfo(float).eps
-
-
-@dataclass(frozen=True)
-class ConstantKEquilibrium:
-    """Equilibrium of the key solute in mole ratios for a constant K = y*/x.
-
-    y* = K x with x = X / (1 + X) and Y* = y* / (1 - y*), which simplify to
-
-        Y*(X) = K X / (1 + (1 - K) X),
-
-    returned as infinity where y* would reach 1 (K > 1 and X >= 1 / (K - 1)). ``k_value`` [-];
-    ``temperature`` [K] and ``pressure`` [Pa] record where K was evaluated.
-
-    References
-    ----------
-    Treybal, Mass-Transfer Operations, 3rd ed. 1980, ch. 8 (equilibrium curve in mole ratios).
-    """
-
-    k_value: float
-    temperature: float
-    pressure: float
-
-    def __call__(self, liquid_ratio):
-        x = np.asarray(liquid_ratio, dtype=float)
-        denominator = 1.0 + (1.0 - self.k_value) * x
-        with np.errstate(divide="ignore", invalid="ignore"):
-            gas = np.where(denominator > 0.0, self.k_value * x / denominator, np.inf)
-        return float(gas) if gas.ndim == 0 else gas
 
 
 @dataclass(frozen=True)
@@ -96,34 +71,6 @@ class StageStepping:
     def stage_points(self):
         """(X_j, Y_j) leaving each stage, in stepping order (m, 2) [mol/mol]."""
         return self.staircase[1::2]
-
-
-def mole_ratio_equilibrium(model, key, *, temperature, pressure):
-    """Equilibrium curve Y*(X) of one solute from a property model at one temperature and pressure.
-
-    K = y*/x is ``model.evaluate(temperature, pressure).k`` for the key component, held constant
-    along the curve (the ideal-solution models do not depend on composition).
-
-    Parameters
-    ----------
-    model : PropertyModel
-    key : str                Name (or alias, formula) of the solute
-    temperature : float      [K]
-    pressure : float         [Pa]
-
-    Returns
-    -------
-    ConstantKEquilibrium   Callable Y*(X) [mol/mol -> mol/mol]
-    """
-    i = _component_index(model, key)
-    k_value = float(model.evaluate([temperature], [pressure]).k[0, i])
-    if not (np.isfinite(k_value) and k_value > 0.0):
-        raise CaseError(
-            key,
-            f"K = {k_value:g} at {temperature:g} K and {pressure:g} Pa (equilibrium model "
-            f"'{model.equilibrium[i]}'); the key solute needs a finite K > 0, e.g. model 'henry'",
-        )
-    return ConstantKEquilibrium(k_value, float(temperature), float(pressure))
 
 
 def step_stages(
@@ -267,7 +214,8 @@ class InertBasisDesign:
 
     key : str                          Solute name
     temperature : float, pressure : float   Where the equilibrium was taken [K], [Pa]
-    k_value : float or None            K = y*/x of the key used (None for a user curve) [-]
+    k_value : float or None            K = y*/x of the key used, at infinite dilution where K
+                                       depends on composition (None for a user curve) [-]
     inert_gas_flow : float             V', gas feed less the key [mol/s]
     solvent_flow : float               L', solute-free solvent feed [mol/s]
     liquid_to_gas_ratio : float        L'/V' [mol/mol]
@@ -303,7 +251,8 @@ class InertBasisDesign:
 
     @property
     def absorption_factor(self):
-        """A = (L'/V') / K [-], Kremser's parameter for the dilute limit; None for a user curve."""
+        """A = (L'/V') / K [-], Kremser's parameter for the dilute limit (K at infinite dilution);
+        None for a user curve."""
         return None if self.k_value is None else self.liquid_to_gas_ratio / self.k_value
 
 
@@ -369,8 +318,10 @@ def inert_basis_design(
     if solvent_flow <= 0.0:
         raise CaseError("solvent_flows", f"expected some solvent besides {key}, found {solvent_flows!r}")
     if equilibrium is None:
-        equilibrium = mole_ratio_equilibrium(model, key, temperature=temperature, pressure=pressure)
-    k_value = equilibrium.k_value if isinstance(equilibrium, ConstantKEquilibrium) else None
+        equilibrium = mole_ratio_equilibrium(
+            model, key, temperature=temperature, pressure=pressure, solvent_mole_fractions=solvent
+        )
+    k_value = equilibrium.k_value if isinstance(equilibrium, (ConstantKEquilibrium, MixtureEquilibrium)) else None
     ratio, gas_in, liquid_in = solvent_flow / inert_gas, gas[i] / inert_gas, solvent[i] / solvent_flow
     if n_stages is None:
         if not 0.0 < target_fraction_absorbed < 1.0:
@@ -557,10 +508,3 @@ def _liquid_in_equilibrium(equilibrium, gas_ratio, low, high=None):
     elif residual(high) <= 0.0:
         return high
     return brentq(residual, low, high, xtol=1e-300, rtol=_RTOL, maxiter=500)
-
-
-def _component_index(model, key):
-    for i, component in enumerate(model.components):
-        if component.matches(key):
-            return i
-    raise CaseError("key", f"'{key}' is not a component of the model; expected one of {', '.join(model.names)}")

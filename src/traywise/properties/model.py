@@ -228,11 +228,12 @@ class PropertyModel:
         outside = [self.names[i] for i in self.index["activity"] if i not in members]
         if outside:
             raise CaseError("activity", f"{', '.join(outside)} use model 'activity' but are not in the activity model")
-        water = [p for p, i in enumerate(members) if self.components[i].matches("water") or self.components[i].cas == "7732-18-5"]
+        water = [p for p, i in enumerate(members) if self.components[i].cas == "7732-18-5" or self.components[i].matches("water")]
         anchored = [(p, self.components[i].henry_in_water, self.components[i].vapour_pressure)
                     for p, i in enumerate(members) if self.equilibrium[i] == "activity"]
         liquid = AnchoredLiquid(activity, members, anchored, water[0] if water else None)
         self._ideal_members = np.array([p for p, i in enumerate(members) if self.equilibrium[i] != "activity"], dtype=int)
+        self._member_pairs = (np.array(members)[:, None] * self.n_components + np.array(members)[None, :]).reshape(-1)
         return liquid
 
     def _prepared_tables(self):
@@ -244,9 +245,12 @@ class PropertyModel:
                 raise CaseError(self.names[i], "equilibrium model 'table' needs an equilibrium table (tables={name: ...})")
             s = self._position(table.solvent, f"{self.names[i]}: table.solvent")
             if self.equilibrium[s] not in ("raoult", "nonvolatile"):
-                raise CaseError(f"{self.names[i]}: table.solvent", f"'{table.solvent}' must be a 'raoult' or 'nonvolatile' liquid")
+                raise CaseError(
+                    f"{self.names[i]}: table.solvent", f"'{table.solvent}' must be a 'raoult' or 'nonvolatile' liquid"
+                )
             prepared[i] = (s, table.prepared(self.molar_mass[i], self.molar_mass[s]))
-        extra = [name for name in self.tables if name not in self.names or self.equilibrium[self.names.index(name)] != "table"]
+        table_names = {self.names[i] for i in self.index["table"]}
+        extra = [name for name in self.tables if name not in table_names]
         if extra:
             raise CaseError("tables", f"tables given for {', '.join(extra)}, whose equilibrium model is not 'table'")
         return prepared
@@ -333,7 +337,8 @@ class PropertyModel:
         props.dlnk_dt[:, a] = dphi[:, anchored]
         props.h_liquid[:, a] = props.h_vapour[:, a] + h_excess[:, anchored]
         props.dh_liquid_dt[:, a] = props.dh_vapour_dt[:, a] + dh_excess[:, anchored]
-        props.dlnk_dx[:, members[:, None], members[None, :]] += dphi_dx
+        n = t.size
+        props.dlnk_dx.reshape(n, -1)[:, self._member_pairs] += dphi_dx.reshape(n, -1)
 
     def range_warnings(self, temperatures, liquid_mole_fractions=None):
         """Plain-language warnings for correlations used outside their valid temperature range,

@@ -1,0 +1,120 @@
+"""Equilibrium curves Y*(X) of one solute in mole ratios, for the isothermal inert-basis method.
+
+X = solute / solute-free solvent and Y = solute / inert gas [mol/mol]; the liquid at X is the
+binary of the solute (mole fraction x = X / (1 + X)) and the solute-free solvent, y* = K x and
+Y* = y* / (1 - y*). K comes from the same property model as the rigorous stage model: constant
+along the curve for the ideal-solution models, evaluated at the liquid composition of each X
+for composition-dependent ones (activity models, equilibrium tables).
+
+References
+----------
+Treybal, Mass-Transfer Operations, 3rd ed. 1980, ch. 8 (equilibrium curve in mole ratios).
+"""
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from .errors import CaseError
+
+
+@dataclass(frozen=True)
+class ConstantKEquilibrium:
+    """Equilibrium of the key solute in mole ratios for a constant K = y*/x.
+
+    y* = K x with x = X / (1 + X) and Y* = y* / (1 - y*), which simplify to
+
+        Y*(X) = K X / (1 + (1 - K) X),
+
+    returned as infinity where y* would reach 1 (K > 1 and X >= 1 / (K - 1)). ``k_value`` [-];
+    ``temperature`` [K] and ``pressure`` [Pa] record where K was evaluated.
+    """
+
+    k_value: float
+    temperature: float
+    pressure: float
+
+    def __call__(self, liquid_ratio):
+        x = np.asarray(liquid_ratio, dtype=float)
+        denominator = 1.0 + (1.0 - self.k_value) * x
+        with np.errstate(divide="ignore", invalid="ignore"):
+            gas = np.where(denominator > 0.0, self.k_value * x / denominator, np.inf)
+        return float(gas) if gas.ndim == 0 else gas
+
+
+@dataclass(frozen=True, eq=False)
+class MixtureEquilibrium:
+    """Equilibrium of the key solute in mole ratios with K evaluated along the curve.
+
+    At X the liquid mole fractions are (1 - x) ``solvent`` + x (the key), x = X / (1 + X);
+    K = ``model.evaluate(T, P, liquid).k`` of the key there, y* = K x, Y* = y* / (1 - y*)
+    (infinity where y* reaches 1). ``k_value`` is K at X = 0, infinite dilution [-];
+    ``temperature`` [K] and ``pressure`` [Pa] where the curve holds; ``solvent`` (c,) the
+    solute-free solvent's mole fractions in model order [-].
+    """
+
+    model: object
+    index: int
+    solvent: np.ndarray
+    temperature: float
+    pressure: float
+    k_value: float
+
+    def __call__(self, liquid_ratio):
+        ratio = np.asarray(liquid_ratio, dtype=float)
+        x = (ratio / (1.0 + ratio)).reshape(-1)
+        liquid = (1.0 - x)[:, None] * self.solvent
+        liquid[:, self.index] += x
+        n = x.size
+        y = self.model.evaluate(np.full(n, self.temperature), np.full(n, self.pressure), liquid).k[:, self.index] * x
+        with np.errstate(divide="ignore"):
+            gas = np.where(y < 1.0, y / (1.0 - y), np.inf)
+        return float(gas[0]) if ratio.ndim == 0 else gas.reshape(ratio.shape)
+
+
+def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fractions=None):
+    """Equilibrium curve Y*(X) of one solute from a property model at one temperature and pressure.
+
+    Parameters
+    ----------
+    model : PropertyModel
+    key : str                Name (or alias, formula) of the solute
+    temperature : float      [K]
+    pressure : float         [Pa]
+    solvent_mole_fractions : array_like (c,), optional   The solute-free solvent in model order
+        [-] (normalised here; the key's entry is ignored); default the model's reference
+        liquid. Used only by composition-dependent models.
+
+    Returns
+    -------
+    ConstantKEquilibrium (ideal-solution models) or MixtureEquilibrium   Callable Y*(X)
+    [mol/mol -> mol/mol], with ``k_value`` the K used (at infinite dilution for a mixture)
+    """
+    i = component_index(model, key)
+    k_value = float(model.evaluate([temperature], [pressure]).k[0, i])
+    if not (np.isfinite(k_value) and k_value > 0.0):
+        raise CaseError(
+            key,
+            f"K = {k_value:g} at {temperature:g} K and {pressure:g} Pa (equilibrium model "
+            f"'{model.equilibrium[i]}'); the key solute needs a finite K > 0, e.g. model 'henry'",
+        )
+    if not model.composition_dependent:
+        return ConstantKEquilibrium(k_value, float(temperature), float(pressure))
+    given = model.reference_liquid if solvent_mole_fractions is None else solvent_mole_fractions
+    solvent = np.array(given, dtype=float).reshape(-1)
+    if solvent.shape != (model.n_components,) or not np.all(np.isfinite(solvent) & (solvent >= 0.0)):
+        raise CaseError("solvent_mole_fractions", f"expected {model.n_components} fractions >= 0, found {given!r}")
+    solvent[i] = 0.0
+    if solvent.sum() <= 0.0:
+        raise CaseError("solvent_mole_fractions", f"the solvent must hold something besides {key}")
+    solvent /= solvent.sum()
+    dilute = model.evaluate([temperature], [pressure], solvent[None, :]).k[0, i]
+    return MixtureEquilibrium(model, i, solvent, float(temperature), float(pressure), float(dilute))
+
+
+def component_index(model, key):
+    """Position of the component named ``key`` (name, alias, formula or CAS number) in the model."""
+    for i, component in enumerate(model.components):
+        if component.matches(key):
+            return i
+    raise CaseError("key", f"'{key}' is not a component of the model; expected one of {', '.join(model.names)}")
