@@ -141,3 +141,10 @@ CLEGG_BRIMBLECOMBE_1989 = (
     "J. Phys. Chem. 93 (1989) 7237-7248, doi:10.1021/j100357a041 (equation for K_H of molecular NH3 in "
     "pure water; also listed in R. Sander's compilation, Atmos. Chem. Phys. 15 (2015) 4399)"
 )
+
+STAUDINGER_ROBERTS_2001 = (
+    "J. Staudinger, P. V. Roberts, A critical compilation of Henry's law constant temperature dependence "
+    "relations for organic compounds in dilute aqueous solutions, Chemosphere 44 (2001) 561-576, as listed in "
+    "R. Sander, Compilation of Henry's law constants (version 4.0) for water as solvent, Atmos. Chem. Phys. 15 "
+    "(2015) 4399-4981 (values recalled from memory)"
+)
