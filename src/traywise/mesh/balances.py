@@ -39,7 +39,8 @@ def build_solution(equations, x, iterations, norm, tolerance):
         heat_removed=heat_removed,
         heat=_heat_breakdown(equations, v, l, t, heat_removed),
         convergence=convergence,
-        warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]])) + _frozen(model, l, t),
+        warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]], l / l.sum(axis=1, keepdims=True)))
+        + _frozen(model, l, t),
     )
 
 
@@ -104,14 +105,15 @@ def _heat_breakdown(equations, v, l, t, heat_removed):
     gas_out, liquid_out, _, _ = _outlets(equations, v, l)
     p_top, p_bottom = equations.pressure[[0]], equations.pressure[[-1]]
 
-    def h(phase, temperature, pressure):
-        props = model.evaluate(np.array([temperature]), pressure)
+    def h(phase, temperature, pressure, liquid=None):
+        x = None if liquid is None else liquid[None, :] / liquid.sum()
+        props = model.evaluate(np.array([temperature]), pressure, x)
         return (props.h_vapour if phase == "vapour" else props.h_liquid)[0]
 
     h_v_gas_in = h("vapour", column.gas.temperature, p_bottom)
     h_v_top = h("vapour", t[0], p_top)
-    h_l_solvent_in = h("liquid", column.solvent.temperature, p_top)
-    h_l_bottom = h("liquid", t[-1], p_bottom)
+    h_l_solvent_in = h("liquid", column.solvent.temperature, p_top, solvent_in)
+    h_l_bottom = h("liquid", t[-1], p_bottom, l[-1])
     absorbed = gas_in - gas_out
     transfer = absorbed * (h_v_gas_in - h_l_bottom)
     released = float(np.sum(np.where(absorbed > 0.0, transfer, 0.0)))

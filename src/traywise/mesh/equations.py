@@ -63,7 +63,7 @@ class StageEquations:
 
     def _mean_cp(self, feed):
         t = np.array([feed.temperature])
-        props = self.model.evaluate(t, np.array([self.column.top_pressure]))
+        props = self.model.evaluate(t, np.array([self.column.top_pressure]), _liquid_composition(feed))
         cp = props.dh_vapour_dt if feed.phase == "vapour" else props.dh_liquid_dt
         return float(cp[0] @ feed.component_flows) / feed.flow
 
@@ -72,7 +72,7 @@ class StageEquations:
         enthalpy = np.zeros(self.n_stages)
         for feed in self.column.feeds:
             j = feed.stage - 1
-            props = self.model.evaluate(np.array([feed.temperature]), self.pressure[j : j + 1])
+            props = self.model.evaluate(np.array([feed.temperature]), self.pressure[j : j + 1], _liquid_composition(feed))
             h = props.h_vapour if feed.phase == "vapour" else props.h_liquid
             enthalpy[j] += float(h[0] @ feed.component_flows)
         return enthalpy
@@ -192,3 +192,9 @@ class StageEquations:
             upper[:-1, hs, vs] = -pv * props.h_vapour[1:]
             upper[:-1, hs, ts] = -pv[:, 0] * np.sum(v[1:] * props.dh_vapour_dt[1:], axis=1)
         return lower, diagonal, upper
+
+
+def _liquid_composition(feed):
+    """Mole fractions (1, c) of a liquid feed, for composition-dependent liquid models; None
+    for a vapour feed (its enthalpy does not depend on a liquid composition)."""
+    return feed.component_flows[None, :] / feed.flow if feed.phase == "liquid" else None
