@@ -401,7 +401,7 @@ README = Path(__file__).resolve().parents[1] / "cases" / "README.md"
 
 
 def test_the_readme_example_is_a_valid_case_that_solves():
-    block = re.search(r"```toml\n(.*?)```", README.read_text(encoding="utf-8"), re.S).group(1)
+    block = re.search(r"## A complete example.*?```toml\n(.*?)```", README.read_text(encoding="utf-8"), re.S).group(1)
     case = parse_case(block, "README.md example")
     assert case.warnings == ()
     solution = solve_column(case.column, case.model)
@@ -411,11 +411,15 @@ def test_the_readme_example_is_a_valid_case_that_solves():
 def test_the_readme_lists_every_key():
     from traywise.case.column import COLUMN_KEYS, COOLER_KEYS, SIDE_DRAW_KEYS
     from traywise.case.components import COMPONENT_KEYS
+    from traywise.case.design import DESIGN_KEYS
     from traywise.case.feeds import STREAM_KEYS
     from traywise.case.load import REPORT_KEYS, TOP_KEYS
+    from traywise.case.sweep import SWEEP_KEYS
 
     text = README.read_text(encoding="utf-8")
-    for key in {*TOP_KEYS, *COMPONENT_KEYS, *STREAM_KEYS, *COLUMN_KEYS, *COOLER_KEYS, *SIDE_DRAW_KEYS, *REPORT_KEYS}:
+    tables = (TOP_KEYS, COMPONENT_KEYS, STREAM_KEYS, COLUMN_KEYS, COOLER_KEYS, SIDE_DRAW_KEYS, REPORT_KEYS, DESIGN_KEYS,
+              SWEEP_KEYS)
+    for key in {key for table in tables for key in table}:
         assert re.search(rf"`[^`\n]*\b{key}\b[^`\n]*`", text), key  # `key`, or in a heading `[[column.key]]`
 
 

@@ -2,13 +2,20 @@
 
     traywise run CASE [--out DIR] [--json] [--no-plots] [--quiet | --verbose]
     traywise compare CASE [--json] [--quiet | --verbose]
+    traywise sweep CASE [--vary INPUT --from VALUE --to VALUE] [--points N] [--log] [--output NAME ...]
+                        [--stage N] [--processes N] [--out DIR] [--no-plots] [--quiet]
     traywise new [FILE] [--force]
     traywise components [show NAME]
 
+A case with a [design] table is designed by `run` and `compare` (the adjusted input solved for
+its target); `sweep` solves the column as written at every point.
+
 Exit status: 0 success; 1 the results could not be written (file system); 2 bad input (case
 file, missing file, unknown component, a folder that may not be replaced); 3 the stage
-equations did not converge. Every failure prints one line on stderr, ``traywise: error: ...``,
-and never a traceback for these causes; a program fault still shows its traceback.
+equations did not converge, a design target cannot be reached, or no point of a sweep
+converged (a sweep with some failed points exits 0, warns and marks them). Every failure
+prints one line on stderr, ``traywise: error: ...``, and never a traceback for these causes; a
+program fault still shows its traceback.
 
 Only click is imported at module level: the solver, the unit library and matplotlib are
 imported inside the commands that need them, so ``traywise --help`` returns at once.
@@ -25,7 +32,7 @@ class _Command(click.Command):
     """A command that turns traywise's deliberate errors into one line and an exit status."""
 
     def invoke(self, ctx):
-        from .errors import CaseError, ConvergenceError, PropertyRangeError
+        from .errors import CaseError, ConvergenceError, PropertyRangeError, TargetNotReached
 
         try:
             return super().invoke(ctx)
@@ -33,6 +40,8 @@ class _Command(click.Command):
             _fail(ctx, str(error), EXIT_INPUT)
         except ConvergenceError as error:
             _fail(ctx, str(error), EXIT_CONVERGENCE)
+        except TargetNotReached as error:
+            _fail(ctx, f"design target not reached: {error}", EXIT_CONVERGENCE)
         except OSError as error:
             _fail(ctx, f"cannot write the results: {error}", EXIT_OUTPUT)
 
@@ -77,12 +86,12 @@ def _case_argument(command):
     return click.argument("case_file", metavar="CASE", type=click.Path(dir_okay=False))(command)
 
 
-def _solve(ctx, case_file, quiet, verbose, *, target=None):
-    """Load and solve a case: (case, solution, comparison record). The arguments and the
-    results folder ``target`` are checked first, so that a mistake costs no solve."""
+def _load(ctx, case_file, quiet, verbose, *, target=None):
+    """The case, after checking the arguments and the results folder ``target``, so that a
+    mistake costs no solve."""
     from pathlib import Path
 
-    from .errors import CaseError, ConvergenceError
+    from .errors import CaseError
 
     if quiet and verbose:
         raise click.UsageError("--quiet and --verbose exclude each other", ctx)
@@ -93,19 +102,35 @@ def _solve(ctx, case_file, quiet, verbose, *, target=None):
 
         check_replaceable(target)
     from .case import load_case
-    from .mesh.newton import solve_column
+
+    return load_case(case_file)
+
+
+def _solve(ctx, case_file, quiet, verbose, *, target=None):
+    """Load and solve a case, designing it when it has a [design] table: (case, solution,
+    comparison record, design outcome or None)."""
+    from .errors import ConvergenceError
     from .report.comparison_view import isothermal_comparison
 
-    case = load_case(case_file)
+    case = _load(ctx, case_file, quiet, verbose, target=target)
+    design = None
     try:
-        solution = solve_column(case.column, case.model)
+        if case.design is not None:
+            from .design.plan import carry_out_design
+
+            design = carry_out_design(case.column, case.model, case.design, overall_efficiency=case.overall_efficiency)
+            solution = design.result.solution
+        else:
+            from .mesh.newton import solve_column
+
+            solution = solve_column(case.column, case.model)
     except ConvergenceError as error:
         _fail(ctx, f"no converged solution: {error}", EXIT_CONVERGENCE)
     try:
         comparison = isothermal_comparison(case, solution)
     except ConvergenceError as error:
         _fail(ctx, f"the stage equations converged, but the isothermal inert-basis comparison did not: {error}", EXIT_CONVERGENCE)
-    return case, solution, comparison
+    return case, solution, comparison, design
 
 
 def _echo_warnings(record):
@@ -121,15 +146,16 @@ def _echo_warnings(record):
 @_verbosity
 @click.pass_context
 def run(ctx, case_file, out_dir, as_json, no_plots, quiet, verbose):
-    """Solve CASE and write its results folder (results.json, stages.csv, report.md, figures)."""
+    """Solve CASE (designed first when it has a [design] table) and write its results folder
+    (results.json, stages.csv, report.md, figures)."""
     from pathlib import Path
 
     target = Path(out_dir) if out_dir else Path.cwd() / f"{Path(case_file).stem}-results"
-    case, solution, comparison = _solve(ctx, case_file, quiet, verbose, target=target)
+    case, solution, comparison, design = _solve(ctx, case_file, quiet, verbose, target=target)
     from .report.outputs import results_json, write_outputs
     from .report.summary import summary_text
 
-    record = write_outputs(target, case, solution, comparison, plots=case.plots and not no_plots)
+    record = write_outputs(target, case, solution, comparison, plots=case.plots and not no_plots, design=design)
     if as_json:
         click.echo(results_json(record), nl=False)
     elif not quiet:
@@ -144,14 +170,18 @@ def run(ctx, case_file, out_dir, as_json, no_plots, quiet, verbose):
 @_verbosity
 @click.pass_context
 def compare(ctx, case_file, as_json, quiet, verbose):
-    """Solve CASE and print the rigorous solution beside the isothermal inert-basis design."""
-    case, solution, comparison = _solve(ctx, case_file, quiet, verbose)
+    """Solve CASE (designed first when it has a [design] table) and print the rigorous solution
+    beside the isothermal inert-basis design."""
+    case, solution, comparison, design = _solve(ctx, case_file, quiet, verbose)
     from .report.comparison_view import comparison_json, verdict_line
+    from .report.design_view import design_json
     from .report.outputs import results_json
     from .report.results import results_record
-    from .report.summary import comparison_text, sources_text, warnings_text
+    from .report.summary import comparison_text, design_text, sources_text, warnings_text
 
-    record = results_record(case, solution, comparison_json(comparison), [])
+    record = results_record(case, solution, comparison_json(comparison), [],
+                            design=None if design is None else design_json(design),
+                            design_warnings=() if design is None else design.warnings)
     if as_json:
         click.echo(results_json(record), nl=False)
         _echo_warnings(record)
@@ -163,11 +193,83 @@ def compare(ctx, case_file, as_json, quiet, verbose):
     from .report.sections import key_line, stage_profile_table, temperature_line
     from .report.tables import text_table
 
-    parts = [f"{record['case']['title']} ({case_file})", key_line(record) + "\n" + temperature_line(record), comparison_text(record)]
+    parts = [f"{record['case']['title']} ({case_file})", key_line(record) + "\n" + temperature_line(record)]
+    if design is not None:
+        parts.append(design_text(record))
+    parts.append(comparison_text(record))
     if verbose:
         parts += [text_table(*stage_profile_table(record)), sources_text(record)]
     parts.append(warnings_text(record))
     click.echo("\n\n".join(parts))
+
+
+LONG_SWEEP = 10  # points from which a sweep shows a progress bar
+
+
+@main.command()
+@_case_argument
+@click.option("--vary", metavar="INPUT", help="The input to vary: solvent_flow, stages, gas_temperature, "
+              "solvent_temperature, top_pressure or cooler_duty [default: the case's sweep.vary].")
+@click.option("--from", "start", metavar="VALUE", help="First value with its unit: '1000 kg/h', '50 kmol/h', '20 degC', "
+              "'1.1 bar', '0 kW', or a stage count.")
+@click.option("--to", "end", metavar="VALUE", help="Last value with its unit.")
+@click.option("--points", type=int, metavar="N", help="Number of points, ends included [default: 21].")
+@click.option("--log/--linear", default=None, help="Space the points evenly in the logarithm [default: linear].")
+@click.option("--output", "outputs", multiple=True, metavar="NAME", help="An output to tabulate and plot; repeat for "
+              "more. E.g. fraction_absorbed:ammonia, outlet_ppmv:ammonia, outlet_mole_fraction:ammonia, "
+              "max_temperature, liquid_out_temperature, heat_removed, solvent_lost [default: the key solute's "
+              "fraction absorbed and outlet ppmv, the hottest stage and liquid outlet temperatures].")
+@click.option("--stage", "cooler_stage", type=int, metavar="N", help="Stage of the cooler whose duty is varied.")
+@click.option("--processes", type=click.IntRange(min=1), default=1, show_default=True, metavar="N",
+              help="Worker processes solving points side by side (2 uses both cores of a two-core machine).")
+@click.option("--out", "out_dir", metavar="DIR", type=click.Path(file_okay=False),
+              help="Results folder [default: CASE-STEM-sweep in the current folder].")
+@click.option("--no-plots", is_flag=True, help="Skip sweep.png.")
+@click.option("--quiet", "-q", is_flag=True, help="Print nothing but warnings (on stderr) and errors.")
+@click.pass_context
+def sweep(ctx, case_file, vary, start, end, points, log, outputs, cooler_stage, processes, out_dir, no_plots, quiet):
+    """Solve CASE at every point of a range of one input; write sweep.csv, sweep.png, sweep.json
+    and sweep.md. Options replace the case's [sweep] table values; failed points are kept and
+    marked."""
+    import os
+    from pathlib import Path
+
+    if processes > 1:
+        # Before numpy loads: worker processes each running OpenBLAS threads would compete for
+        # the cores they share (tests/benchmarks/bench_cli_sweep.py measures it).
+        os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")
+    target = Path(out_dir) if out_dir else Path.cwd() / f"{Path(case_file).stem}-sweep"
+    case = _load(ctx, case_file, quiet, False, target=target)
+    from .case.sweep import sweep_request
+    from .design.sweep import sweep as run_sweep
+    from .report.sweep_view import write_sweep, sweep_text
+
+    request = sweep_request(case, vary=vary, start=start, end=end, points=points, log=log, outputs=outputs,
+                            cooler_stage=cooler_stage)
+    total = len(request.values)
+    with _progress(quiet or total < LONG_SWEEP or not click.get_text_stream("stderr").isatty(), total) as bar:
+        table = run_sweep(
+            case.column, case.model, variable=request.design_variable, values=request.values, outputs=request.outputs,
+            stage=request.cooler_stage, processes=processes,
+            progress=None if bar is None else (lambda done, _total: bar.update(done - bar.pos)),
+        )
+    record = write_sweep(target, case, request, table, plots=case.plots and not no_plots)
+    if record["failed_points"] == total:
+        _fail(ctx, f"no point of the sweep converged (see {target / 'sweep.csv'}); the first failed with: "
+              f"{table.messages[0]}", EXIT_CONVERGENCE)
+    if quiet:
+        _echo_warnings(record)
+    else:
+        click.echo(sweep_text(record, folder=target))
+
+
+def _progress(hidden, total):
+    """click's progress bar on stderr, or a context giving None when ``hidden``."""
+    if hidden:
+        from contextlib import nullcontext
+
+        return nullcontext(None)
+    return click.progressbar(length=total, label="Solving", file=click.get_text_stream("stderr"))
 
 
 @main.command()

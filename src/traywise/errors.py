@@ -1,7 +1,7 @@
 """The few exception types traywise raises on purpose.
 
 The command line turns each into one line on stderr and an exit status
-(CaseError: 2, ConvergenceError: 3); nothing else is caught.
+(CaseError: 2, ConvergenceError and TargetNotReached: 3); nothing else is caught.
 """
 
 
@@ -47,3 +47,9 @@ class ConvergenceError(TraywiseError, RuntimeError):
         self.stage = stage
         where = f", largest residual on stage {stage}" if stage is not None else ""
         super().__init__(f"{reason} (after {iterations} iterations, scaled residual {residual:.3g}{where})")
+
+
+class TargetNotReached(TraywiseError, RuntimeError):
+    """A design target that adjusting the chosen input cannot meet (the removal needs more than
+    the largest solvent flow or stage count searched, a pinch, a temperature limit one cooler
+    cannot hold); the message says what was reached instead and what to change."""

@@ -15,8 +15,10 @@ from ..column import Column, Feed, SideDraw
 from ..errors import CaseError
 from .column import read_column
 from .components import read_components
+from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
 from .reader import Section, where
+from .sweep import SWEEP_KEYS, check_sweep_table
 
 TOP_KEYS = (
     "title",
@@ -30,6 +32,8 @@ TOP_KEYS = (
     "solvent_feed",
     "column",
     "report",
+    "design",
+    "sweep",
 )
 REPORT_KEYS = ("plots", "xy_solute")
 LIQUID_KINDS = ("raoult", "nonvolatile")  # equilibrium models of components that can be the solvent
@@ -53,6 +57,9 @@ class Case:
     xy_solute : str                 Solute of the x-y diagram
     warnings : tuple of str
     echo : dict                     Every input in SI, units in the key names (for results.json)
+    design : DesignInput or None    The ``[design]`` table (case/design.py)
+    sweep_table : dict or None      The ``[sweep]`` table as written, checked (case/sweep.py)
+    source : str                    The case's name in error messages (usually the file name)
     """
 
     path: Path | None
@@ -69,6 +76,9 @@ class Case:
     xy_solute: str
     warnings: tuple
     echo: dict
+    design: object = None
+    sweep_table: dict | None = None
+    source: str = "<case>"
 
 
 def load_case(path):
@@ -90,7 +100,9 @@ def parse_case(text, where_from="<case>", *, path=None):
     except tomllib.TOMLDecodeError as exc:
         line = re.search(r"at line (\d+)", str(exc))
         raise CaseError(where(where_from, f"line {line.group(1)}" if line else ""), f"not valid TOML: {exc}") from None
-    return _CaseBuilder(Section(data, "", where_from, TOP_KEYS), path).build()
+    case = _CaseBuilder(Section(data, "", where_from, TOP_KEYS), path).build()
+    check_sweep_table(case)
+    return case
 
 
 class _CaseBuilder:
@@ -127,6 +139,9 @@ class _CaseBuilder:
         report = top.table("report", REPORT_KEYS) or Section({}, "report", top.file)
         plots = report.boolean("plots", True)
         xy_solute = self._xy_solute(report, key, solvent)
+        design = read_design(top, model=model, column_input=column_input, key=key, gas_flows=flows["gas_feed"],
+                             solvent=solvent)
+        sweep = top.table("sweep", SWEEP_KEYS)
         names = model.names
         echo = {
             "title": title,
@@ -142,6 +157,8 @@ class _CaseBuilder:
             ),
             "report": {"plots": plots, "xy_solute": names[xy_solute]},
         }
+        if design is not None:
+            echo["design"] = design.echo()
         return Case(
             path=self.path,
             title=title,
@@ -157,6 +174,9 @@ class _CaseBuilder:
             xy_solute=names[xy_solute],
             warnings=tuple(self.warnings),
             echo=echo,
+            design=design,
+            sweep_table=None if sweep is None else sweep.data,
+            source=top.file,
         )
 
     # -- roles of the components ----------------------------------------------------------------

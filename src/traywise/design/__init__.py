@@ -5,17 +5,20 @@ adjust           solvent_for_target, stages_for_target, cooler_duty_for_limit ->
 minimum_solvent  minimum_solvent -> MinimumSolvent (rigorous, pinch located, and inert-basis)
 efficiency       O'Connell's absorber correlation, liquid-water viscosity and density, Lewis
 trays            tray_design -> TrayDesign (overall-efficiency and Murphree routes)
+plan             carry_out_design -> DesignOutcome (the adjusted input, minimum solvent, trays)
 sweep            sweep -> SweepTable
 variables        the column inputs that loops and sweeps change
 """
 
 from .adjust import DesignResult, cooler_duty_for_limit, solvent_for_target, stages_for_target
 from .minimum_solvent import MinimumSolvent, Pinch, find_pinch, minimum_solvent
+from .plan import DesignOutcome, carry_out_design
 from .sweep import SweepTable, sweep
 from .targets import SoluteTarget, TemperatureLimit
 from .trays import TrayDesign, actual_trays, tray_design
 
 __all__ = [
+    "DesignOutcome",
     "DesignResult",
     "MinimumSolvent",
     "Pinch",
@@ -24,6 +27,7 @@ __all__ = [
     "TemperatureLimit",
     "TrayDesign",
     "actual_trays",
+    "carry_out_design",
     "cooler_duty_for_limit",
     "find_pinch",
     "minimum_solvent",

@@ -4,7 +4,10 @@ the pinch located) beside the isothermal inert-basis value.
 Rigorous: the solvent flow that just meets the target is found on N stages, then on 2N, 4N ...
 until it changes by less than ``tolerance``; more stages never need more solvent, so the last
 value is an upper bound that the pinch makes converge (geometrically for a pinch at the end of
-the column, more slowly for a pinch zone inside it).
+the column, more slowly for a pinch zone inside it). The longer columns keep the design's top
+and bottom pressures (the drop per stage shrinks as stages are added): kept per stage, the drop
+would put the bottom of a 320-stage column at several bar and make the gas look far more
+soluble than in the column designed.
 
 Pinch: on each stage j the relative driving force of the key solute between the vapour coming
 up from below and the vapour in equilibrium with the liquid leaving the stage,
@@ -19,7 +22,7 @@ for straight lines and dilute gases, and 'inside' the column when the heat of ab
 a temperature bulge while the entering gas cools the bottom.
 """
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
@@ -163,7 +166,7 @@ def minimum_solvent(
     n, previous, start = n_stages, None, column
     solves = iterations = 0
     while True:
-        found = solvent_for_target(with_stages(start, n), model, target, settings=settings)
+        found = solvent_for_target(_longer(start, n), model, target, settings=settings)
         solves, iterations = solves + found.solves, iterations + found.iterations
         resolution = np.inf if previous is None else (previous.value - found.value) / found.value
         if abs(resolution) <= tolerance or 2 * n > max_stages:
@@ -191,6 +194,13 @@ def minimum_solvent(
         iterations=iterations,
         warnings=tuple(_warnings(multiple, resolution, tolerance, n, pinch)),
     )
+
+
+def _longer(column, n_stages):
+    """The column with ``n_stages`` stages between the same top and bottom pressures [Pa]."""
+    bottom = column.pressures[-1]
+    drop = (bottom - column.top_pressure) / (n_stages - 1) if n_stages > 1 else 0.0
+    return replace(with_stages(column, n_stages), pressure_drop=float(drop))
 
 
 def _inert_basis_minimum(column, model, target, temperature):

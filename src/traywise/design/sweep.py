@@ -124,7 +124,7 @@ def sweep(
         raise CaseError("stage", "a 'cooler_duty' sweep needs the stage of the cooler")
     if processes < 1:
         raise CaseError("processes", f"expected at least 1, found {processes!r}")
-    specs = [_output_spec(name, model) for name in outputs]
+    specs = [output_spec(name, model) for name in outputs]
     job = (column, model, variable, stage, tuple(specs), settings)
     total = values.size
     if processes == 1 or total <= 1:
@@ -152,8 +152,9 @@ def sweep(
     )
 
 
-def _output_spec(name, model):
-    """(name, unit, component index or None) for an output name, checked against the model."""
+def output_spec(name, model):
+    """(name, unit, component index or None) for an output name, checked against the model;
+    CaseError('outputs', ...) listing the valid names otherwise."""
     kind, _, key = name.partition(":")
     if kind in _COMPONENT_OUTPUTS:
         try:

@@ -19,7 +19,12 @@ SAFETY_CAUTIONS = (
     "engineer. Local codes, standards and licensed engineering practice take precedence.",
 )
 
-SAFETY_ONE_LINE = (
-    "Safety: toxic and corrosive gases, temperature rise and pressure need qualified review; "
-    "local codes and licensed engineering practice take precedence (see report.md)."
-)
+def safety_one_line(report_file):
+    """The cautions in one line for the console, pointing to the report that has them in full."""
+    return (
+        "Safety: toxic and corrosive gases, temperature rise and pressure need qualified review; "
+        f"local codes and licensed engineering practice take precedence (see {report_file})."
+    )
+
+
+SAFETY_ONE_LINE = safety_one_line("report.md")

@@ -2,8 +2,8 @@
 
 A run that fails part-way leaves no folder that looks complete, and an older complete folder is
 replaced only after the new one is complete. An existing folder is replaced only when it is
-empty or was written by traywise (it holds a results.json naming traywise), so that ``--out``
-pointed at the wrong place cannot delete someone's files.
+empty or was written by traywise (it holds a results.json or, for a sweep, a sweep.json naming
+traywise), so that ``--out`` pointed at the wrong place cannot delete someone's files.
 """
 
 import json
@@ -14,7 +14,7 @@ from pathlib import Path
 
 from ..errors import CaseError
 
-MARKER = "results.json"
+MARKERS = ("results.json", "sweep.json")  # files naming traywise as the writer of a results folder
 
 
 def write_results_folder(target, write_files):
@@ -78,14 +78,16 @@ def check_replaceable(target):
         raise CaseError(str(target), "exists and is not a folder; give --out a folder path")
     if not any(target.iterdir()):
         return
-    marker = target / MARKER
-    try:
-        written_by = json.loads(marker.read_text(encoding="utf-8"))["software"]["name"]
-    except (OSError, ValueError, KeyError, TypeError):
-        written_by = None
-    if written_by != "traywise":
+    if not any(_written_by_traywise(target / marker) for marker in MARKERS):
         raise CaseError(
             str(target),
-            "exists and is not a traywise results folder (no results.json written by traywise); "
+            "exists and is not a traywise results folder (no results.json or sweep.json written by traywise); "
             "choose another --out folder or move it away",
         )
+
+
+def _written_by_traywise(marker):
+    try:
+        return json.loads(marker.read_text(encoding="utf-8"))["software"]["name"] == "traywise"
+    except (OSError, ValueError, KeyError, TypeError):
+        return False

@@ -1,8 +1,9 @@
 """report.md: the run written for a reviewer, from the results record.
 
-Sections: summary, safety cautions, inputs (as read, in SI), components and equilibrium
-models, streams, absorption per component, stage profile, where the heat went, convergence and
-balance closure, the isothermal inert-basis comparison, figures, property sources, warnings.
+Sections: summary, design (when the case has one), safety cautions, inputs (as read, in SI),
+components and equilibrium models, streams, absorption per component, stage profile, where the
+heat went, convergence and balance closure, the isothermal inert-basis comparison, figures,
+property sources, warnings.
 """
 
 from .cautions import SAFETY_CAUTIONS
@@ -19,6 +20,7 @@ from .sections import (
     temperature_line,
 )
 from .comparison_view import verdict_line
+from .design_view import design_lines, trays_table
 from .tables import markdown_table
 
 FIGURE_TITLES = {
@@ -42,6 +44,7 @@ def markdown_report(results):
     blocks += [
         "## Summary",
         _bullets([*column_lines(results), key_line(results), temperature_line(results), verdict_line(results["isothermal_comparison"]) + "."]),
+        *_design(results),
         "## Safety cautions",
         _bullets(SAFETY_CAUTIONS),
         "## Inputs (as read, in SI units)",
@@ -72,6 +75,19 @@ def markdown_report(results):
         blocks += ["## Figures", *(f"![{FIGURE_TITLES[name]}]({name})" for name in figures)]
     blocks += ["## Property sources", _sources(results), "## Warnings", _bullets(results["warnings"]) or "None."]
     return "\n\n".join(blocks) + "\n"
+
+
+def _design(results):
+    """The design section's blocks, none without a design."""
+    if results["design"] is None:
+        return []
+    blocks = ["## Design", _bullets(design_lines(results))]
+    table = trays_table(results)
+    if table is not None:
+        blocks += ["Actual trays by each efficiency route (theoretical stages for the target divided by the overall "
+                   "efficiency, and the target solved again on trays with the Murphree efficiency that Lewis's relation "
+                   "gives for it):", markdown_table(*table)]
+    return blocks
 
 
 def _comparison(results):

@@ -7,6 +7,7 @@ unless switched off, the PNG figures (``plots``), written together by ``folder``
 import json
 
 from .comparison_view import comparison_json, xy_design
+from .design_view import design_json
 from .folder import write_results_folder
 from .markdown import markdown_report
 from .results import results_record
@@ -17,7 +18,7 @@ STAGES_FILE = "stages.csv"
 REPORT_FILE = "report.md"
 
 
-def write_outputs(target, case, solution, comparison, *, plots=True):
+def write_outputs(target, case, solution, comparison, *, plots=True, design=None):
     """Write the results folder ``target``; return the results record it holds.
 
     Parameters
@@ -27,6 +28,7 @@ def write_outputs(target, case, solution, comparison, *, plots=True):
     solution : ColumnSolution
     comparison : traywise.comparison.Comparison
     plots : bool             Draw the PNG figures
+    design : DesignOutcome, optional   The design whose column ``solution`` solves
     """
     written = {}
 
@@ -38,7 +40,9 @@ def write_outputs(target, case, solution, comparison, *, plots=True):
 
             figures = write_plots(folder, solution, comparison, xy_design(case, solution, comparison))
         record = results_record(
-            case, solution, comparison_json(comparison), [RESULTS_FILE, STAGES_FILE, REPORT_FILE, *figures]
+            case, solution, comparison_json(comparison), [RESULTS_FILE, STAGES_FILE, REPORT_FILE, *figures],
+            design=None if design is None else design_json(design),
+            design_warnings=() if design is None else design.warnings,
         )
         (folder / REPORT_FILE).write_text(markdown_report(record), encoding="utf-8")
         (folder / RESULTS_FILE).write_text(results_json(record), encoding="utf-8")

@@ -114,6 +114,56 @@ RESULTS_KEYS = {
     "isothermal_comparison.isothermal_assumption_held": "the plain verdict (true or false)",
     "isothermal_comparison.verdict": "one sentence saying why",
     "isothermal_comparison.inert_basis_design": "the isothermal design for the rigorous removal of the key solute (K-value, L'/V', its minimum, terminal mole ratios, stages), or null when it pinches",
+    "design": "the design of a case with a [design] table (cases/README.md); null without one",
+    "design.adjusted": "the input adjusted: 'solvent_flow', 'stages' or 'cooler_duty'",
+    "design.solvent_flow_mol_per_s": "solvent feed of the designed column [mol/s]",
+    "design.solvent_mass_flow_kg_per_s": "the same as a mass flow [kg/s]",
+    "design.stages": "theoretical stages of the designed column (or trays, with Murphree efficiencies) [-]",
+    "design.fractional_stages": "for 'stages': where the target is just met, interpolated in the logarithm of the outlet between N - 1 and N [-]; else null",
+    "design.cooler_stage": "for 'cooler_duty': 1-based stage of the cooler adjusted; else null",
+    "design.cooler_duty_W": "for 'cooler_duty': the heat it removes [W]; else null",
+    "design.target": "the removal target on the key solute, or null",
+    "design.target.key_component": "the key solute",
+    "design.target.quantity": "'outlet_mole_fraction' [-], 'outlet_ppmv' [ppmv] or 'fraction_absorbed' [-]",
+    "design.target.required": "the outlet at most, or the fraction absorbed at least, in the quantity's units",
+    "design.target.reached": "the value in the designed column, in the quantity's units",
+    "design.target.met": "true or false (true within the loop's tolerance when adjusted for)",
+    "design.target.adjusted_for": "true when the adjusted input was solved for this target, false when only checked",
+    "design.temperature_limit": "the temperature limit, or null",
+    "design.temperature_limit.place": "'liquid_outlet' (bottom stage) or 'column_maximum' (hottest stage)",
+    "design.temperature_limit.limit_K": "highest temperature allowed [K]",
+    "design.temperature_limit.reached_K": "the temperature in the designed column [K]",
+    "design.temperature_limit.held": "true or false (true within the loop's tolerance when adjusted for)",
+    "design.temperature_limit.adjusted_for": "true when the adjusted input was solved for this limit, false when only checked",
+    "design.solves": "rigorous solves the design loop used [-]",
+    "design.iterations": "Newton iterations summed over those solves [-]",
+    "design.minimum_solvent": "the minimum solvent flow for the target, or null when not asked for",
+    "design.minimum_solvent.solvent_flow_mol_per_s": "rigorous minimum, total solvent feed [mol/s]",
+    "design.minimum_solvent.solvent_mass_flow_kg_per_s": "the same as a mass flow [kg/s]",
+    "design.minimum_solvent.stages_used": "stages that stood for infinitely many (same top and bottom pressures) [-]",
+    "design.minimum_solvent.resolution": "relative fall of the minimum from half as many stages [-]",
+    "design.minimum_solvent.design_multiple": "design solvent flow / rigorous minimum [-]",
+    "design.minimum_solvent.common_practice_range": "the usual design multiple, low and high (common practice) [-]",
+    "design.minimum_solvent.pinch": "where the operating line touches the equilibrium curve at the minimum",
+    "design.minimum_solvent.pinch.location": "'bottom', 'top', 'inside' or 'throughout'",
+    "design.minimum_solvent.pinch.stage": "1-based stage of the smallest driving force",
+    "design.minimum_solvent.pinch.zone": "first and last stage of the pinch zone",
+    "design.minimum_solvent.pinch.temperature_K": "temperature of the pinch stage [K]",
+    "design.minimum_solvent.inert_basis_solvent_flow_mol_per_s": "isothermal inert-basis minimum as a total solvent feed [mol/s]",
+    "design.minimum_solvent.inert_basis_solvent_mass_flow_kg_per_s": "the same as a mass flow [kg/s]",
+    "design.minimum_solvent.inert_basis_liquid_to_gas_ratio": "(L'/V')min on the inert basis [mol/mol]",
+    "design.minimum_solvent.inert_basis_temperature_K": "temperature of the isothermal check [K]",
+    "design.minimum_solvent.inert_basis_pressure_Pa": "pressure of the isothermal check [Pa]",
+    "design.minimum_solvent.inert_basis_design_multiple": "design solvent flow / inert-basis minimum [-]",
+    "design.trays": "actual trays by each efficiency route: the given overall efficiency, then O'Connell's estimate",
+    "design.trays[].efficiency_source": "'given', or \"O'Connell's absorber correlation\"",
+    "design.trays[].overall_efficiency": "E_o, theoretical stages per actual tray [-]",
+    "design.trays[].theoretical_stages": "theoretical stages for the target, fractional [-]",
+    "design.trays[].trays_by_overall_efficiency": "ceil(theoretical stages / E_o) [-]",
+    "design.trays[].murphree_efficiency": "E_MV per tray from E_o by Lewis's relation [-]",
+    "design.trays[].trays_by_murphree_efficiency": "fewest trays with that E_MV meeting the target, solved rigorously [-]",
+    "design.trays[].stripping_factor": "K V / L of the key solute, mean over the theoretical stages [-]",
+    "design.trays[].oconnell_group": "K M_L mu_L / rho_L of O'Connell's correlation [cP ft3/lbmol], or null",
     "property_sources": "per component name: property -> full citation of the data used",
     "warnings": "warnings from the case and the solution (list of text)",
     "files": "the files of the results folder",
@@ -121,7 +171,7 @@ RESULTS_KEYS = {
 }
 
 
-def results_record(case, solution, comparison_json, files):
+def results_record(case, solution, comparison_json, files, *, design=None, design_warnings=()):
     """The results record (a JSON-ready dict) of one solved case.
 
     Parameters
@@ -131,13 +181,15 @@ def results_record(case, solution, comparison_json, files):
     solution : traywise.mesh.solution.ColumnSolution
     comparison_json : dict           From ``comparison_view.comparison_json``
     files : list of str              File names of the results folder
+    design : dict, optional          From ``design_view.design_json``, when the case was designed
+    design_warnings : sequence of str   The design's warnings, added to the record's
     """
     names = list(solution.component_names)
     column = solution.column
     return {
         "software": {"name": "traywise", "version": __version__},
         "case": {"file": str(case.path), "title": case.title, "notes": case.notes},
-        "inputs": _plain(case.echo),
+        "inputs": plain(case.echo),
         "components": [
             {
                 "name": component.name,
@@ -153,7 +205,7 @@ def results_record(case, solution, comparison_json, files):
             "mode": column.mode,
             "top_pressure_Pa": column.top_pressure,
             "pressure_drop_Pa_per_stage": column.pressure_drop,
-            "murphree_efficiency": _plain(column.murphree),
+            "murphree_efficiency": plain(column.murphree),
             "overall_efficiency": case.overall_efficiency,
             "actual_trays": actual_trays(solution.n_stages, case.overall_efficiency),
             "solvent": case.solvent,
@@ -161,16 +213,16 @@ def results_record(case, solution, comparison_json, files):
         },
         "stages": {
             "stage": list(range(1, solution.n_stages + 1)),
-            "temperature_K": _plain(solution.temperature),
-            "pressure_Pa": _plain(solution.pressure),
-            "vapour_flow_mol_per_s": _plain(solution.vapour_flow),
-            "liquid_flow_mol_per_s": _plain(solution.liquid_flow),
-            "vapour_flows_mol_per_s": _plain(solution.vapour_flows),
-            "liquid_flows_mol_per_s": _plain(solution.liquid_flows),
-            "vapour_mole_fractions": _plain(solution.vapour_mole_fractions),
-            "liquid_mole_fractions": _plain(solution.liquid_mole_fractions),
-            "k_values": _plain(solution.k_values),
-            "heat_removed_W": _plain(solution.heat_removed),
+            "temperature_K": plain(solution.temperature),
+            "pressure_Pa": plain(solution.pressure),
+            "vapour_flow_mol_per_s": plain(solution.vapour_flow),
+            "liquid_flow_mol_per_s": plain(solution.liquid_flow),
+            "vapour_flows_mol_per_s": plain(solution.vapour_flows),
+            "liquid_flows_mol_per_s": plain(solution.liquid_flows),
+            "vapour_mole_fractions": plain(solution.vapour_mole_fractions),
+            "liquid_mole_fractions": plain(solution.liquid_mole_fractions),
+            "k_values": plain(solution.k_values),
+            "heat_removed_W": plain(solution.heat_removed),
         },
         "gas_in": _stream(names, column.gas.component_flows, column.gas.temperature, solution.pressure[-1]),
         "solvent_in": _stream(names, column.solvent.component_flows, column.solvent.temperature, solution.pressure[0]),
@@ -184,7 +236,7 @@ def results_record(case, solution, comparison_json, files):
             "gas_out_temperature_K": solution.gas_out_temperature,
             "liquid_out_temperature_K": solution.liquid_out_temperature,
         },
-        "heat": {f"{field}_W": _plain(value) for field, value in vars(solution.heat).items()},
+        "heat": {f"{field}_W": plain(value) for field, value in vars(solution.heat).items()},
         "convergence": {
             "iterations": solution.convergence.iterations,
             "scaled_residual": solution.convergence.residual,
@@ -194,8 +246,9 @@ def results_record(case, solution, comparison_json, files):
             "method": solution.convergence.method,
         },
         "isothermal_comparison": comparison_json,
+        "design": design,
         "property_sources": {c.name: property_sources(c, kind) for c, kind in zip(case.model.components, case.model.equilibrium)},
-        "warnings": [*case.warnings, *solution.warnings],
+        "warnings": [*case.warnings, *solution.warnings, *design_warnings],
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
@@ -223,7 +276,7 @@ def property_sources(component, equilibrium_model):
 
 
 def _per_name(names, values):
-    return {name: _plain(value) for name, value in zip(names, values)}
+    return {name: plain(value) for name, value in zip(names, values)}
 
 
 def _stream(names, flows, temperature, pressure):
@@ -237,12 +290,12 @@ def _stream(names, flows, temperature, pressure):
     }
 
 
-def _plain(value):
+def plain(value):
     """numpy values, arrays, tuples and dicts as JSON-ready Python; NaN and infinity as None."""
     if isinstance(value, dict):
-        return {str(key): _plain(item) for key, item in value.items()}
+        return {str(key): plain(item) for key, item in value.items()}
     if isinstance(value, (list, tuple, np.ndarray)):
-        return [_plain(item) for item in value]
+        return [plain(item) for item in value]
     if isinstance(value, (bool, np.bool_)):
         return bool(value)
     if isinstance(value, (int, np.integer)):

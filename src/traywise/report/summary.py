@@ -6,6 +6,7 @@ property sources).
 """
 
 from .cautions import SAFETY_ONE_LINE
+from .design_view import design_lines, trays_table
 from .sections import (
     column_lines,
     comparison_table,
@@ -25,6 +26,8 @@ def summary_text(results, *, verbose=False, folder=None):
     case = results["case"]
     parts = [f"traywise {results['software']['version']}: {case['title']} ({case['file']})"]
     parts.append("\n".join([*column_lines(results), *convergence_lines(results)]))
+    if results["design"] is not None:
+        parts.append(design_text(results))
     parts.append(text_table(*stream_table(results)))
     parts.append(text_table(*component_table(results)))
     parts.append("\n".join([key_line(results), temperature_line(results)]))
@@ -38,6 +41,13 @@ def summary_text(results, *, verbose=False, folder=None):
         parts.append(f"Results written to {folder}")
     parts.append(SAFETY_ONE_LINE)
     return "\n\n".join(parts)
+
+
+def design_text(results):
+    """The design: target, adjusted input, minimum solvent flow, and the trays by each route."""
+    text = "\n".join(design_lines(results))
+    table = trays_table(results)
+    return text if table is None else f"{text}\nTrays by efficiency route:\n{text_table(*table)}"
 
 
 def comparison_text(results):

@@ -1,0 +1,176 @@
+"""The ``[design]`` table: a removal target on the key solute and/or a temperature limit, the
+input adjusted to meet it, and the extra figures asked for (minimum solvent flow, O'Connell's
+tray efficiency). Read into a ``DesignInput`` whose fields are those the design layer takes
+(``traywise.design.plan``); the design itself is run by the command line."""
+
+from dataclasses import dataclass
+
+from .units import composition_basis_of, split_number
+
+DESIGN_KEYS = (
+    "outlet_mole_fraction",
+    "fraction_absorbed",
+    "liquid_out_temperature_limit",
+    "column_temperature_limit",
+    "adjust",
+    "cooler_stage",
+    "minimum_solvent",
+    "oconnell_efficiency",
+)
+# case word -> name in traywise.design.variables
+ADJUSTABLE = {"solvent_flow": "solvent_flow", "stages": "n_stages", "cooler_duty": "cooler_duty"}
+# case key -> place of traywise.design.targets.TemperatureLimit
+LIMITS = {"liquid_out_temperature_limit": "liquid_outlet", "column_temperature_limit": "column_maximum"}
+PER_MILLION_UNITS = ("ppmv", "ppm")  # an outlet written in these is reported in ppmv
+
+
+@dataclass(frozen=True)
+class DesignInput:
+    """The design table in SI (cases/README.md, ``[design]``).
+
+    solute : str or None          The key component when a removal target is given
+    quantity : str or None        'outlet_mole_fraction', 'outlet_ppmv' or 'fraction_absorbed'
+    value : float or None         In the quantity's units: mole fraction [-], ppmv, fraction [-]
+    limit_place : str or None     'liquid_outlet' or 'column_maximum'
+    limit_value : float or None   Highest temperature allowed [K]
+    adjust : str                  'solvent_flow', 'n_stages' or 'cooler_duty'
+    cooler_stage : int or None    1-based
+    minimum_solvent : bool
+    oconnell_efficiency : bool
+    """
+
+    solute: str | None
+    quantity: str | None
+    value: float | None
+    limit_place: str | None
+    limit_value: float | None
+    adjust: str
+    cooler_stage: int | None
+    minimum_solvent: bool
+    oconnell_efficiency: bool
+
+    def echo(self):
+        """The table as read, SI units in the key names (for results.json)."""
+        return {
+            "key_component": self.solute,
+            "target_quantity": self.quantity,
+            "target_value": self.value,
+            "temperature_limit_place": self.limit_place,
+            "temperature_limit_K": self.limit_value,
+            "adjust": next(word for word, name in ADJUSTABLE.items() if name == self.adjust),
+            "cooler_stage": self.cooler_stage,
+            "minimum_solvent": self.minimum_solvent,
+            "oconnell_efficiency": self.oconnell_efficiency,
+        }
+
+
+def read_design(top, *, model, column_input, key, gas_flows, solvent):
+    """The ``[design]`` table of the top-level Section as a DesignInput, or None when absent.
+
+    Parameters
+    ----------
+    top : Section                 The case file's top level
+    model : PropertyModel
+    column_input : ColumnInput    The ``[column]`` table as read
+    key : int                     Index of the key component
+    gas_flows : ndarray (c,)      Component flows of the gas feed [mol/s]
+    solvent : int                 Index of the solvent component
+    """
+    section = top.table("design", DESIGN_KEYS)
+    if section is None:
+        return None
+    adjust = ADJUSTABLE[section.text("adjust", choices=tuple(ADJUSTABLE))]
+    quantity, value = _removal_target(section, model.names[key], gas_flows[key] / gas_flows.sum())
+    limits = [name for name in LIMITS if name in section]
+    if len(limits) > 1:
+        section.fail(limits[1], f"give one temperature limit, not both {' and '.join(limits)}")
+    limit_place = LIMITS[limits[0]] if limits else None
+    limit_value = section.quantity(limits[0], "temperature") if limits else None
+    cooler_stage = _cooler_stage(section, adjust, column_input)
+    minimum = section.boolean("minimum_solvent", False)
+    oconnell = section.boolean("oconnell_efficiency", False)
+    needs_target = [name for name, asked in (("minimum_solvent", minimum), ("oconnell_efficiency", oconnell)) if asked]
+    if adjust != "cooler_duty":
+        needs_target.insert(0, "adjust")
+    if quantity is None and needs_target:
+        section.fail(needs_target[0], "needs a removal target on the key solute: add outlet_mole_fraction (e.g. "
+                     "\"20 ppmv\") or fraction_absorbed (e.g. \"99 %\")")
+    if adjust == "cooler_duty" and limit_place is None:
+        section.fail("adjust", "'cooler_duty' is adjusted to hold a temperature limit: add "
+                     "liquid_out_temperature_limit or column_temperature_limit (e.g. \"40 degC\")")
+    fixed = _fixed_in_place(column_input)
+    if adjust == "n_stages" and fixed:
+        section.fail("adjust", f"'stages' changes the stage count, which leaves {' and '.join(fixed)} without a fixed "
+                     "place; remove them or adjust 'solvent_flow' instead")
+    if oconnell and (fixed or adjust == "cooler_duty"):
+        what = " and ".join(fixed) if fixed else "the cooler being designed"
+        section.fail("oconnell_efficiency", f"trays are found by changing the stage count, which leaves {what} without "
+                     "a fixed place; remove oconnell_efficiency (the column table's overall_efficiency still gives "
+                     "the trays of the designed column)")
+    if oconnell and model.names[solvent] != "water":
+        section.fail("oconnell_efficiency", f"O'Connell's correlation needs the liquid's viscosity and density, which "
+                     f"traywise has for water only (the solvent is {model.names[solvent]}); give "
+                     "column.overall_efficiency instead")
+    return DesignInput(
+        solute=None if quantity is None else model.names[key],
+        quantity=quantity,
+        value=value,
+        limit_place=limit_place,
+        limit_value=limit_value,
+        adjust=adjust,
+        cooler_stage=cooler_stage,
+        minimum_solvent=minimum,
+        oconnell_efficiency=oconnell,
+    )
+
+
+def _removal_target(section, key_name, inlet):
+    """(quantity, value) of the removal target, or (None, None); ``inlet`` is the key's mole
+    fraction in the gas feed [-]."""
+    given = [name for name in ("outlet_mole_fraction", "fraction_absorbed") if name in section]
+    if len(given) > 1:
+        section.fail(given[1], "give one removal target, not both outlet_mole_fraction and fraction_absorbed")
+    if not given:
+        return None, None
+    if given[0] == "fraction_absorbed":
+        return "fraction_absorbed", section.fraction("fraction_absorbed", open_high=True)
+    raw = section.data["outlet_mole_fraction"]
+    fraction = section.fraction("outlet_mole_fraction", open_high=True)
+    if isinstance(raw, str) and composition_basis_of(raw) == "mass":
+        section.fail("outlet_mole_fraction", f"found '{raw}', a mass fraction; give a mole fraction such as "
+                     "\"20 ppmv\", \"0.05 mol%\" or 2e-5")
+    if fraction >= inlet:
+        section.fail("outlet_mole_fraction", f"found {raw!r} = {fraction:.6g}, not below the {key_name} mole fraction "
+                     f"of the gas fed ({inlet:.6g}): there is nothing to absorb")
+    if isinstance(raw, str) and split_number(raw)[1] in PER_MILLION_UNITS:
+        return "outlet_ppmv", split_number(raw)[0]  # the number as written: "30 ppmv" is 30, not 29.999999999999996
+    return "outlet_mole_fraction", fraction
+
+
+def _cooler_stage(section, adjust, column_input):
+    if adjust != "cooler_duty":
+        if "cooler_stage" in section:
+            section.fail("cooler_stage", "is used only with adjust = 'cooler_duty'; remove it or change adjust")
+        return None
+    if column_input.mode != "adiabatic":
+        section.fail("adjust", "'cooler_duty' needs mode = 'adiabatic' (in an isothermal column coolers have no effect)")
+    stage = section.integer("cooler_stage")
+    n = column_input.n_stages
+    if not 1 <= stage <= n:
+        section.fail("cooler_stage", f"found {stage}; the column has stages 1 to {n} (numbered from the top)")
+    return stage
+
+
+def _fixed_in_place(column_input):
+    """What in the column has a place that a different stage count leaves undefined."""
+    c = column_input
+    fixed = [
+        (bool(c.coolers), "[[column.cooler]] tables"),
+        (c.heat_loss > 0.0, "column.heat_loss"),
+        (bool(c.side_feeds), "[[column.side_feed]] tables"),
+        (bool(c.side_draws), "[[column.side_draw]] tables"),
+        (len(set(c.murphree.tolist())) > 1, "a column.murphree_efficiency that differs from stage to stage"),
+        (c.temperature is not None and len(set(c.temperature.tolist())) > 1,
+         "a column.isothermal_temperature that differs from stage to stage"),
+    ]
+    return [what for present, what in fixed if present]
