@@ -21,6 +21,8 @@ Only click is imported at module level: the solver, the unit library and matplot
 imported inside the commands that need them, so ``traywise --help`` returns at once.
 """
 
+import sys
+
 import click
 
 EXIT_OUTPUT = 1
@@ -247,7 +249,7 @@ def sweep(ctx, case_file, vary, start, end, points, log, outputs, cooler_stage, 
     request = sweep_request(case, vary=vary, start=start, end=end, points=points, log=log, outputs=outputs,
                             cooler_stage=cooler_stage)
     total = len(request.values)
-    with _progress(quiet or total < LONG_SWEEP or not click.get_text_stream("stderr").isatty(), total) as bar:
+    with _progress(quiet or total < LONG_SWEEP or not sys.stderr.isatty(), total) as bar:
         table = run_sweep(
             case.column, case.model, variable=request.design_variable, values=request.values, outputs=request.outputs,
             stage=request.cooler_stage, processes=processes,
@@ -269,7 +271,7 @@ def _progress(hidden, total):
         from contextlib import nullcontext
 
         return nullcontext(None)
-    return click.progressbar(length=total, label="Solving", file=click.get_text_stream("stderr"))
+    return click.progressbar(length=total, label="Solving", file=sys.stderr)
 
 
 @main.command()
