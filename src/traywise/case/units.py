@@ -54,6 +54,7 @@ MASS_FRACTION_UNITS = frozenset({"mass_percent", "ppmw", "ppbw"})
 # kind: (SI unit in pint syntax, description, example)
 KINDS = {
     "temperature": ("kelvin", "a temperature", '"40 degC" or "313.15 K"'),
+    "temperature_difference": ("kelvin", "a temperature difference", '"350 K"'),
     "pressure": ("pascal", "an absolute pressure", '"1.2 bar" or "120 kPa"'),
     "pressure_difference": ("pascal", "a pressure difference", '"0.5 kPa" or "5 mbar"'),
     "power": ("watt", "a heat flow", '"50 kW"'),
@@ -99,7 +100,10 @@ def registry():
     """The one pint UnitRegistry of traywise, with the units of the trade added (see module docstring)."""
     import pint
 
-    units = pint.UnitRegistry(autoconvert_offset_to_baseunit=False)
+    try:  # pint keeps its parsed definitions in the user's cache folder: 0.02 s instead of 0.15-0.45 s
+        units = pint.UnitRegistry(autoconvert_offset_to_baseunit=False, cache_folder=":auto:")
+    except OSError:  # no writable cache folder: parse the definitions every time
+        units = pint.UnitRegistry(autoconvert_offset_to_baseunit=False)
     for definition in _DEFINITIONS:
         units.define(definition)
     return units
