@@ -87,3 +87,15 @@ def test_curve_of_a_table_solute_passes_through_the_table():
     curve = mole_ratio_equilibrium(model, "sulfur dioxide", temperature=T, pressure=P)
     p = np.array(pressures)
     assert curve(np.array(loadings)) == pytest.approx(p / (P - p), rel=1e-12)
+
+
+def test_single_values_of_the_curve_are_the_array_values():
+    """The curve remembers single values (the stepping asks for the same X repeatedly): asked
+    once, twice, or inside an array, X gives the same Y*."""
+    curve = mole_ratio_equilibrium(anchored_model(), "acetone", temperature=T, pressure=P)
+    ratios = np.array([0.0, 1e-3, 0.02, 0.3])
+    along = curve(ratios)
+    single = [curve(float(r)) for r in ratios]
+    assert single == pytest.approx(along, rel=1e-14)  # one row or four: the same arithmetic up to rounding
+    assert [curve(float(r)) for r in ratios] == single  # remembered: exactly the first answers
+    assert curve(np.float64(0.02)) == single[2] and isinstance(curve(0.02), float)

@@ -93,3 +93,33 @@ def test_heat_effects_put_the_pinch_inside_the_column(scrubber):
     # The isothermal method at the solvent temperature misses the heat: it asks for far less.
     assert result.solvent_flow > 2.0 * result.inert_basis_solvent_flow
     assert np.all(np.diff(result.solution.temperature[: pinch.zone[0]]) > 0.0)  # warming from the top down to the bulge
+
+
+def test_inert_basis_minimum_takes_k_in_the_solvent_fed():
+    """A composition-dependent liquid (acetone anchored to its Henry's constant, modified UNIFAC
+    (Dortmund)) and a lean solvent carrying 10 mol% methanol: the inert-basis minimum takes
+    acetone's K in that water-methanol liquid, as the comparison's inert-basis design does, not
+    in pure water (numbers invented)."""
+    from columns import water_column
+    from traywise.equilibrium_curve import mole_ratio_equilibrium
+    from traywise.properties.library import find_component
+    from traywise.properties.model import PropertyModel
+    from traywise.properties.unifac_parameters import unifac
+    from traywise.shortcut import inert_basis_design
+    from traywise.stepping import minimum_liquid_to_gas_ratio
+
+    components = [find_component(n) for n in ("water", "acetone", "methanol", "nitrogen")]
+    model = PropertyModel(components, equilibrium=["raoult", "activity", "activity", "insoluble"],
+                          activity=unifac(components[:3]))
+    column = water_column(model, 4, gas=np.array([0.0, 0.02, 0.0, 0.98]), solvent_flow=1.0)
+    column = replace(column, solvent=replace(column.solvent, component_flows=np.array([2.7, 0.0, 0.3, 0.0])))
+    target = SoluteTarget("acetone", "fraction_absorbed", 0.9)
+    result = minimum_solvent(column, model, target, n_stages=10, max_stages=20)
+    t, p = result.inert_basis_temperature, result.inert_basis_pressure
+    design = inert_basis_design(model, "acetone", gas_flows=column.gas.component_flows,
+                                solvent_flows=column.solvent.component_flows, temperature=t, pressure=p,
+                                target_fraction_absorbed=0.9)
+    assert result.inert_basis_ratio == pytest.approx(design.minimum_liquid_to_gas_ratio, rel=1e-12)
+    in_water = minimum_liquid_to_gas_ratio(mole_ratio_equilibrium(model, "acetone", temperature=t, pressure=p),
+                                           gas_ratio_in=design.gas_ratio_in, gas_ratio_out=design.gas_ratio_out)
+    assert abs(in_water / result.inert_basis_ratio - 1.0) > 0.05  # the methanol matters: the check can fail

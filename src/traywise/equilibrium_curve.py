@@ -11,7 +11,7 @@ References
 Treybal, Mass-Transfer Operations, 3rd ed. 1980, ch. 8 (equilibrium curve in mole ratios).
 """
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 import numpy as np
 
@@ -51,6 +51,10 @@ class MixtureEquilibrium:
     (infinity where y* reaches 1). ``k_value`` is K at X = 0, infinite dilution [-];
     ``temperature`` [K] and ``pressure`` [Pa] where the curve holds; ``solvent`` (c,) the
     solute-free solvent's mole fractions in model order [-].
+
+    Values at single X are remembered: the stage stepping solves Y*(X) = Y stage by stage within
+    the same bracket, asking for its ends again and again (more than half of its calls in a
+    UNIFAC-anchored case), and each costs a full property evaluation.
     """
 
     model: object
@@ -59,17 +63,26 @@ class MixtureEquilibrium:
     temperature: float
     pressure: float
     k_value: float
+    _remembered: dict = field(default_factory=dict, init=False, repr=False)
 
     def __call__(self, liquid_ratio):
         ratio = np.asarray(liquid_ratio, dtype=float)
+        if ratio.ndim == 0:
+            key = float(ratio)
+            if key not in self._remembered:
+                self._remembered[key] = float(self._evaluate(ratio)[0])
+            return self._remembered[key]
+        return self._evaluate(ratio).reshape(ratio.shape)
+
+    def _evaluate(self, ratio):
+        """Y*(X) at the mole ratios ``ratio`` [mol/mol], flattened."""
         x = (ratio / (1.0 + ratio)).reshape(-1)
         liquid = (1.0 - x)[:, None] * self.solvent
         liquid[:, self.index] += x
         n = x.size
         y = self.model.evaluate(np.full(n, self.temperature), np.full(n, self.pressure), liquid).k[:, self.index] * x
         with np.errstate(divide="ignore"):
-            gas = np.where(y < 1.0, y / (1.0 - y), np.inf)
-        return float(gas[0]) if ratio.ndim == 0 else gas.reshape(ratio.shape)
+            return np.where(y < 1.0, y / (1.0 - y), np.inf)
 
 
 def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fractions=None):

@@ -1,11 +1,12 @@
 """The components of a case: library components, inline definitions and overrides of library
-properties, read from ``components = [...]`` and the ``[component."name"]`` tables."""
+properties, read from ``components = [...]`` and the ``[component."name"]`` tables, with their
+equilibrium tables and the ``[liquid_model]``, assembled into the case's property model."""
 
 import dataclasses
 import math
 
-from ..errors import ComponentDataError
-from ..properties.component import EQUILIBRIUM_KINDS, Quantity
+from ..errors import CaseError, ComponentDataError
+from ..properties.component import MODEL_KINDS, Quantity
 from ..properties.constants import P_STANDARD, T_REFERENCE
 from ..properties.inline import (
     USER,
@@ -17,7 +18,9 @@ from ..properties.inline import (
 )
 from ..properties.library import find_component, library
 from ..properties.model import PropertyModel
-from .reader import Section, suggestion
+from .equilibrium_tables import TABLE_KEYS, default_table_solvent, read_equilibrium_table
+from .liquid_model import read_liquid_model
+from .reader import Section, suggestion, where
 from .units import UnitProblem, quantity
 
 COMPONENT_KEYS = (
@@ -34,6 +37,7 @@ COMPONENT_KEYS = (
     "normal_boiling_point",
     "heat_of_vaporisation",
     "melting_point",
+    "equilibrium_table",
 )
 # Molar concentration of liquid water at 25 degC and 101.325 kPa [mol/m3]: density 997.05 kg/m3
 # from the IAPWS-95 equation of state (W. Wagner, A. Pruss, J. Phys. Chem. Ref. Data 31 (2002)
@@ -51,6 +55,11 @@ NEEDS = {
     ),
     "nonvolatile": (("liquid_cp", "liquid_heat_capacity"),),
     "insoluble": (),
+    "activity": (
+        ("henry_in_water", "henry_constant and enthalpy_of_solution"),
+        ("vapour_pressure", "vapour_pressure (at vapour_pressure_temperature) or normal_boiling_point"),
+    ),
+    "table": (),
 }
 
 
@@ -60,7 +69,8 @@ class CaseComponents:
 
     ``concentration_henry``: names whose Henry's constant was given per concentration (converted
     with the molar concentration of water); ``library_henry``: names using the library's
-    Henry's constant in water. Both matter when the solvent is not water.
+    Henry's constant in water. Both matter when the solvent is not water. ``liquid_model``: the
+    echo of the ``[liquid_model]`` table (SI), or None without one.
     """
 
     components: tuple
@@ -69,6 +79,7 @@ class CaseComponents:
     concentration_henry: tuple
     library_henry: tuple
     warnings: tuple
+    liquid_model: dict | None = None
 
     def find(self, text):
         """Index of the case component named by ``text`` (name, alias, formula, CAS), or None."""
@@ -91,7 +102,7 @@ def read_components(top):
         if name not in names:
             tables.fail(name, f"'{name}' is not listed in components = {names}; add it there or correct the name"
                         f"{suggestion(name, names)}")
-    components, echo, concentration, library_henry, warnings = [], [], [], [], []
+    components, echo, concentration, library_henry, warnings, table_sections = [], [], [], [], [], {}
     for i, name in enumerate(names):
         section = tables.table(name, COMPONENT_KEYS) if name in tables.data else None
         base = _library_component(name)
@@ -106,16 +117,28 @@ def read_components(top):
                 top.fail(f"components[{i}]", f"'{name}' is the same component as components[{j}] ('{names[j]}')")
         components.append(component)
         echo.append(reader.echo(component))
+        if reader.table_section is not None:
+            table_sections[i] = reader.table_section
         warnings.extend(reader.warnings)
         if reader.concentration_form:
             concentration.append(component.name)
-        if component.equilibrium == "henry" and base is not None and component.henry_in_water is base.henry_in_water:
+        if component.equilibrium in ("henry", "activity") and base is not None and (
+                component.henry_in_water is base.henry_in_water):
             library_henry.append(component.name)
     if len(components) < 2:
         top.fail("components", f"found {names}; a case needs at least a solvent and one gas component")
-    model = PropertyModel(components)
+    equilibrium_tables = {}
+    solvent = default_table_solvent(top, components)
+    for i, section in table_sections.items():
+        equilibrium_tables[components[i].name], echo[i]["given_in_case"]["equilibrium_table"] = read_equilibrium_table(
+            section, i, components, solvent)
+    liquid = read_liquid_model(top, components)
+    try:
+        model = PropertyModel(components, activity=None if liquid is None else liquid.activity, tables=equilibrium_tables)
+    except CaseError as error:  # the readers check what it refuses; kept so that no input ends in a traceback
+        raise CaseError(where(top.file, "liquid_model" if liquid else "component"), str(error)) from None
     return CaseComponents(tuple(components), model, tuple(echo), tuple(concentration), tuple(library_henry),
-                          tuple(warnings))
+                          tuple(warnings), None if liquid is None else liquid.echo)
 
 
 def _library_component(name):
@@ -138,6 +161,7 @@ class _ComponentReader:
         self.given = {}  # echo of the values the table gave, SI
         self.warnings = []
         self.concentration_form = False
+        self.table_section = None  # the equilibrium_table Section of a 'table' component
 
     def has(self, key):
         return key in self.section
@@ -157,13 +181,25 @@ class _ComponentReader:
         if s.data:
             component = dataclasses.replace(component, sources={**component.sources, USER: USER_SOURCE})
         self._check_model(component)
+        self._table(component.equilibrium)
         return component
+
+    def _table(self, equilibrium):
+        """Keep the equilibrium_table Section of a 'table' component (read once every component is known)."""
+        if self.has("equilibrium_table"):
+            if equilibrium != "table":
+                self.fail("equilibrium_table", f"given, but equilibrium is '{equilibrium}'; write "
+                          "equilibrium = \"table\" to use it")
+            self.table_section = self.section.table("equilibrium_table", TABLE_KEYS)
+        elif equilibrium == "table":
+            self.fail("equilibrium_table", f"missing; equilibrium = 'table' needs a "
+                      f"[{self.section.path}.equilibrium_table] with the tabulated partial pressures")
 
     # -- inline definitions -------------------------------------------------------------------
     def _inline(self):
         s = self.section
         molar_mass = self._molar_mass(required=True)
-        equilibrium = s.text("equilibrium", choices=EQUILIBRIUM_KINDS)
+        equilibrium = s.text("equilibrium", choices=MODEL_KINDS)
         self.given["equilibrium"] = equilibrium
         gas_cp = self._heat_capacity("gas_heat_capacity", molar_mass, required=True)
         component = inline_component(
@@ -182,7 +218,7 @@ class _ComponentReader:
         if molar_mass is not None:
             component = dataclasses.replace(component, molar_mass=Quantity(molar_mass, USER))
         if self.has("equilibrium"):
-            equilibrium = self.section.text("equilibrium", choices=EQUILIBRIUM_KINDS)
+            equilibrium = self.section.text("equilibrium", choices=MODEL_KINDS)
             self.given["equilibrium"] = equilibrium
             component = dataclasses.replace(component, equilibrium=equilibrium)
         gas_cp = self._heat_capacity("gas_heat_capacity", component.molar_mass.value)

@@ -25,6 +25,7 @@ TOP_KEYS = (
     "notes",
     "components",
     "component",
+    "liquid_model",
     "solvent",
     "key_component",
     "solutes",
@@ -37,7 +38,7 @@ TOP_KEYS = (
 )
 REPORT_KEYS = ("plots", "xy_solute")
 LIQUID_KINDS = ("raoult", "nonvolatile")  # equilibrium models of components that can be the solvent
-SOLUBLE_KINDS = ("henry", "raoult")  # models with a finite, non-zero K: candidates for the key
+SOLUBLE_KINDS = ("henry", "raoult", "activity", "table")  # models with a finite, non-zero K: candidates for the key
 
 
 @dataclass(frozen=True, eq=False)
@@ -157,6 +158,8 @@ class _CaseBuilder:
             ),
             "report": {"plots": plots, "xy_solute": names[xy_solute]},
         }
+        if components.liquid_model is not None:
+            echo["liquid_model"] = components.liquid_model
         if design is not None:
             echo["design"] = design.echo()
         return Case(
@@ -215,7 +218,7 @@ class _CaseBuilder:
         candidates = [i for i in sorted(gas.present()) if i != solvent and model.equilibrium[i] in SOLUBLE_KINDS]
         if not candidates:
             top.fail("key_component", "missing, and the gas feed carries no solute (a component other than the "
-                     "solvent with equilibrium 'henry' or 'raoult') to take as the key")
+                     f"solvent with equilibrium one of {SOLUBLE_KINDS}) to take as the key")
         return min(candidates, key=lambda i: k[i])
 
     def _solutes(self, key, solvent):

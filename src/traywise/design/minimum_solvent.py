@@ -26,9 +26,10 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
+from ..equilibrium_curve import mole_ratio_equilibrium
 from ..errors import CaseError
 from ..mesh.newton import SolverSettings
-from ..shortcut import minimum_liquid_to_gas_ratio, mole_ratio_equilibrium
+from ..stepping import minimum_liquid_to_gas_ratio
 from .adjust import solvent_for_target
 from .targets import component_index
 from .variables import with_stages
@@ -204,7 +205,9 @@ def _longer(column, n_stages):
 
 
 def _inert_basis_minimum(column, model, target, temperature):
-    """(L'/V')min, the same as a total solvent feed [mol/s], and the T [K] and P [Pa] used."""
+    """(L'/V')min, the same as a total solvent feed [mol/s], and the T [K] and P [Pa] used.
+    The equilibrium curve takes K in the solvent fed (key left out), as the inert-basis design
+    of the comparison does, for composition-dependent models."""
     i = component_index(model, target.key)
     gas, solvent = column.gas.component_flows, column.solvent.component_flows
     inert_gas, solvent_free = gas.sum() - gas[i], solvent.sum() - solvent[i]
@@ -216,7 +219,7 @@ def _inert_basis_minimum(column, model, target, temperature):
         gas_out = y_out / (1.0 - y_out)
     t = column.solvent.temperature if temperature is None else float(temperature)
     p = float(np.mean(column.pressures))
-    curve = mole_ratio_equilibrium(model, target.key, temperature=t, pressure=p)
+    curve = mole_ratio_equilibrium(model, target.key, temperature=t, pressure=p, solvent_mole_fractions=solvent)
     ratio = minimum_liquid_to_gas_ratio(curve, gas_ratio_in=gas_in, gas_ratio_out=gas_out, liquid_ratio_in=liquid_in)
     return ratio, ratio * inert_gas * solvent.sum() / solvent_free, t, p
 

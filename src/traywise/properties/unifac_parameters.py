@@ -59,8 +59,8 @@ def _assignment(component, key):
     if not found:
         raise CaseError(
             component.name,
-            f"no published UNIFAC group assignment for CAS '{component.cas}'; give its groups, "
-            "e.g. groups={'acetone': {1: 1, 18: 1}} (subgroup number: count)",
+            f"no published UNIFAC group assignment for CAS '{component.cas or '(none)'}'; give its subgroups "
+            "(subgroup number: count, e.g. acetone is {1: 1, 18: 1})",
         )
     return found
 
@@ -73,7 +73,8 @@ def unifac(components, *, version="dortmund", groups=None):
     components : sequence of Component
     version : str            'dortmund' (default) or 'original', see the module docstring
     groups : dict, optional  Component name -> {subgroup number: count}, replacing the
-                             published assignment (needed for components without a CAS number)
+                             published assignment (needed for components without a CAS number);
+                             the model's ``source`` then says so
 
     Returns
     -------
@@ -83,9 +84,13 @@ def unifac(components, *, version="dortmund", groups=None):
         raise CaseError("unifac.version", f"'{version}' unknown; use one of {UNIFAC_VERSIONS}")
     subgroups, interaction_table, key, exponent = _tables(version)
     groups = dict(groups or {})
+    given = [c.name for c in components if c.name in groups]
     counts = [groups.pop(c.name) if c.name in groups else _assignment(c, key) for c in components]
     if groups:
         raise CaseError("unifac.groups", f"{', '.join(groups)} not among {', '.join(c.name for c in components)}")
+    source = _SOURCES[version]
+    if given:
+        source += f"; subgroups of {', '.join(given)} given by the user, not a published assignment"
     used = sorted({k for found in counts for k in found})
     unknown = [k for k in used if k not in subgroups]
     if unknown:
@@ -113,5 +118,5 @@ def unifac(components, *, version="dortmund", groups=None):
         interaction,
         volume_exponent=exponent,
         version=version,
-        source=_SOURCES[version],
+        source=source,
     )

@@ -28,7 +28,7 @@ RESULTS_KEYS = {
     "components[].name": "component name",
     "components[].formula": "chemical formula",
     "components[].cas": "CAS registry number",
-    "components[].equilibrium_model": "'henry', 'raoult', 'nonvolatile' or 'insoluble'",
+    "components[].equilibrium_model": "'henry', 'raoult', 'nonvolatile', 'insoluble', 'activity' (anchored to the Henry's constant, activity model for the concentration dependence) or 'table' (user equilibrium table)",
     "components[].molar_mass_kg_per_mol": "molar mass [kg/mol]",
     "column": "the column solved",
     "column.theoretical_stages": "stages N of the stage model [-]",
@@ -164,7 +164,7 @@ RESULTS_KEYS = {
     "design.trays[].trays_by_murphree_efficiency": "fewest trays with that E_MV meeting the target, solved rigorously [-]",
     "design.trays[].stripping_factor": "K V / L of the key solute, mean over the theoretical stages [-]",
     "design.trays[].oconnell_group": "K M_L mu_L / rho_L of O'Connell's correlation [cP ft3/lbmol], or null",
-    "property_sources": "per component name: property -> full citation of the data used",
+    "property_sources": "per component name: property -> full citation of the data used, the liquid's activity model and equilibrium tables included",
     "warnings": "warnings from the case and the solution (list of text)",
     "files": "the files of the results folder",
     "safety_cautions": "the usual cautions; local codes and licensed practice take precedence",
@@ -247,7 +247,8 @@ def results_record(case, solution, comparison_json, files, *, design=None, desig
         },
         "isothermal_comparison": comparison_json,
         "design": design,
-        "property_sources": {c.name: property_sources(c, kind) for c, kind in zip(case.model.components, case.model.equilibrium)},
+        "property_sources": {c.name: property_sources(c, kind, **_liquid_data(case.model, c.name))
+                             for c, kind in zip(case.model.components, case.model.equilibrium)},
         "warnings": [*case.warnings, *solution.warnings, *design_warnings],
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
@@ -262,17 +263,41 @@ def actual_trays(n_stages, overall_efficiency):
     return math.ceil(round(n_stages / overall_efficiency, 9))
 
 
-def property_sources(component, equilibrium_model):
-    """Property -> full citation of the data a component contributes under its equilibrium model."""
+def property_sources(component, equilibrium_model, *, activity=None, table=None):
+    """Property -> full citation of the data a component contributes under its equilibrium
+    model; ``activity`` is the liquid's activity model (Unifac or Nrtl) when the component is
+    one of its members, ``table`` its EquilibriumTable under the model 'table'."""
     used = {"molar mass": component.molar_mass, "ideal-gas heat capacity": component.ideal_gas_cp}
-    if equilibrium_model == "henry":
+    if equilibrium_model in ("henry", "activity"):
         used["Henry's constant in water"] = component.henry_in_water
     if equilibrium_model in ("raoult", "nonvolatile"):
         used["liquid heat capacity"] = component.liquid_cp
-    if equilibrium_model == "raoult":
+    if equilibrium_model in ("raoult", "activity"):
         used["vapour pressure"] = component.vapour_pressure
+    if equilibrium_model == "raoult":
         used["heat of vaporisation"] = component.heat_of_vaporisation
-    return {label: component.cite(data.source) for label, data in used.items() if data is not None}
+    sources = {label: component.cite(data.source) for label, data in used.items() if data is not None}
+    if activity is not None:
+        label = "activity coefficients"
+        if equilibrium_model == "activity":
+            label += " (corrected to the Henry's constant at infinite dilution in water)"
+        sources[label] = activity_citation(activity)
+    if table is not None:
+        sources[f"equilibrium table in {table.solvent}"] = table.source
+    return sources
+
+
+def activity_citation(activity):
+    """The citation of an activity model: UNIFAC's publications, or NRTL's with the user's source."""
+    if activity.version == "nrtl":
+        return f"NRTL: H. Renon, J. M. Prausnitz, AIChE J. 14 (1968) 135; parameters: {activity.source}"
+    return activity.source
+
+
+def _liquid_data(model, name):
+    """The activity model (when ``name`` is a member) and equilibrium table of one component."""
+    activity = model.activity if model.activity is not None and name in model.activity.names else None
+    return {"activity": activity, "table": model.tables.get(name)}
 
 
 def _per_name(names, values):
