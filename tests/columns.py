@@ -49,3 +49,31 @@ def water_column(model, n_stages, *, gas, solvent_flow, t_gas=313.15, t_solvent=
         pressure,
         **options,
     )
+
+
+def dense_jacobian(lower, diagonal, upper):
+    """The block-tridiagonal Jacobian (blocks (N, n, n)) as one dense matrix."""
+    n_stages, n, _ = diagonal.shape
+    dense = np.zeros((n_stages * n, n_stages * n))
+    for j in range(n_stages):
+        dense[j * n : (j + 1) * n, j * n : (j + 1) * n] = diagonal[j]
+        if j > 0:
+            dense[j * n : (j + 1) * n, (j - 1) * n : j * n] = lower[j]
+        if j < n_stages - 1:
+            dense[j * n : (j + 1) * n, (j + 1) * n : (j + 2) * n] = upper[j]
+    return dense
+
+
+def jacobian_error(equations, x):
+    """Largest difference, row-scaled, between the analytic Jacobian of ``equations`` at x and
+    central differences of its residuals (step 1e-6 relative)."""
+    analytic = dense_jacobian(*equations.jacobian(x, equations.residual(x)[1]))
+    numeric = np.empty_like(analytic)
+    for k in range(x.size):
+        h = 1e-6 * max(abs(x[k]), 1e-3)
+        up, down = x.copy(), x.copy()
+        up[k] += h
+        down[k] -= h
+        numeric[:, k] = (equations.residual(up)[0] - equations.residual(down)[0]) / (2 * h)
+    scale = np.abs(numeric).max(axis=1, keepdims=True) + 1e-300
+    return float(np.max(np.abs(analytic - numeric) / scale))
