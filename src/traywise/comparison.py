@@ -126,7 +126,9 @@ def _solute(solution, model, i, stages, common):
     gas_out = solution.gas_out
     rigorous_y = float(gas_out[i] / gas_out.sum())
     try:
-        rating = inert_basis_design(model, name, n_stages=stages, **common)
+        # stepped from the bottom: Y*(X) is evaluated directly, never inverted (one property
+        # evaluation a stage); for a whole number of stages both ends give the same outlet
+        rating = inert_basis_design(model, name, n_stages=stages, start="bottom", **common)
     except (PinchError, ConvergenceError):  # pinched, or no outlet found for a barely absorbed gas
         return SoluteComparison(name, rigorous_y, None, float(solution.fraction_absorbed[i]), None)
     y_out = rating.gas_ratio_out / (1.0 + rating.gas_ratio_out)  # key over key + inert at the top

@@ -42,6 +42,9 @@ class ConstantKEquilibrium:
         return float(gas) if gas.ndim == 0 else gas
 
 
+ESTIMATE_POINTS = 4097  # liquid compositions tabulated for MixtureEquilibrium.liquid_ratio_estimate
+
+
 @dataclass(frozen=True, eq=False)
 class MixtureEquilibrium:
     """Equilibrium of the key solute in mole ratios with K evaluated along the curve.
@@ -73,6 +76,19 @@ class MixtureEquilibrium:
                 self._remembered[key] = float(self._evaluate(ratio)[0])
             return self._remembered[key]
         return self._evaluate(ratio).reshape(ratio.shape)
+
+    def liquid_ratio_estimate(self, gas_ratio):
+        """X with Y*(X) close to ``gas_ratio`` (relative error about 1e-6), by interpolation in
+        a table of the curve over every liquid composition, built on first use: a start for an
+        exact root finder, which then needs a few evaluations instead of dozens."""
+        if "table" not in self._remembered:
+            x = np.linspace(0.0, 1.0, ESTIMATE_POINTS)[:-1]  # mole fraction of the key
+            gas = self._evaluate(x / (1.0 - x))
+            with np.errstate(invalid="ignore"):  # Y* is infinite where y* reaches 1
+                rising = np.concatenate([[True], np.diff(gas) > 0.0]) & np.isfinite(gas)
+            self._remembered["table"] = (gas[rising], (x / (1.0 - x))[rising])
+        gas, liquid = self._remembered["table"]
+        return float(np.interp(gas_ratio, gas, liquid))
 
     def _evaluate(self, ratio):
         """Y*(X) at the mole ratios ``ratio`` [mol/mol], flattened."""

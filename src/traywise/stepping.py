@@ -21,6 +21,7 @@ from .errors import CaseError, ConvergenceError, PinchError
 MAX_STAGES = 1000  # a staircase still short of its terminal after this many stages is taken as pinched
 PINCH_SAMPLES = 1001  # points on which the operating line is checked against the equilibrium curve
 _RTOL = 4.0 * np.finfo(float).eps
+ESTIMATE_BRACKET = 1e-4  # relative half-width of the bracket around an equilibrium curve's inverse estimate
 
 
 @dataclass(frozen=True)
@@ -319,7 +320,8 @@ def _staircase(equilibrium, ratio, gas_in, gas_out, liquid_in, liquid_out, start
 def _liquid_in_equilibrium(equilibrium, gas_ratio, low, high=None):
     """X with Y*(X) = gas_ratio, above ``low`` (where Y* < gas_ratio), by Brent's method.
 
-    Solved on y = Y / (1 + Y), which stays finite where Y* is infinite. Without ``high`` the
+    Solved on y = Y / (1 + Y), which stays finite where Y* is infinite. A curve that offers
+    ``liquid_ratio_estimate`` is first tried in a narrow bracket around it. Without ``high`` the
     bracket is widened upward until Y* reaches gas_ratio.
     """
     target = gas_ratio / (1.0 + gas_ratio)
@@ -328,6 +330,12 @@ def _liquid_in_equilibrium(equilibrium, gas_ratio, low, high=None):
         gas = _curve(equilibrium, x)
         return (1.0 if math.isinf(gas) else gas / (1.0 + gas)) - target
 
+    estimate = getattr(equilibrium, "liquid_ratio_estimate", None)
+    if estimate is not None:  # a narrow bracket around the curve's own estimate, when it brackets
+        guess = estimate(gas_ratio)
+        near = (max(low, guess * (1.0 - ESTIMATE_BRACKET)), guess * (1.0 + ESTIMATE_BRACKET))
+        if (high is None or near[1] <= high) and near[0] < near[1] and residual(near[0]) < 0.0 < residual(near[1]):
+            return brentq(residual, *near, xtol=1e-300, rtol=_RTOL, maxiter=500)
     if high is None:
         high = low + 1.0
         while residual(high) < 0.0:
