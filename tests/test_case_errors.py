@@ -266,6 +266,12 @@ ODD_VALUES = ("nan", "inf", '""', "0", "-1", "true", "[]", "{}", '"abc"', '"1e40
 @pytest.mark.parametrize("base", [VALID, INLINE], ids=["library", "inline"])
 def test_no_value_anywhere_ends_in_a_traceback(base):
     """Every value of the valid cases replaced by each odd value: a valid case or a CaseError."""
+    sweep_odd_values(base)
+
+
+def sweep_odd_values(base):
+    """Every value line of the case text ``base`` replaced, one at a time, by each of
+    ODD_VALUES: the result parses, or it raises a CaseError naming the file; nothing else."""
     lines = base.splitlines()
     for i, line in enumerate(lines):
         match = re.match(r'^([\w".]+\s*=\s*)(.*)$', line)

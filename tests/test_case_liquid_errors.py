@@ -4,12 +4,10 @@ naming the file and the key path, what was found and what would be valid; never 
 Every variant is one of the valid cases below with one hand-made change (invented numbers).
 """
 
-import re
-import warnings
 
 import pytest
 
-from test_case_errors import FILE, ODD_VALUES, _check, variant
+from test_case_errors import FILE, _check, sweep_odd_values, variant
 from traywise.case import parse_case
 from traywise.errors import CaseError
 
@@ -215,16 +213,4 @@ def test_a_single_isotherm_outside_water_needs_its_enthalpy():
 @pytest.mark.parametrize("base", [TABLE, ACTIVITY, NRTL], ids=["table", "unifac", "nrtl"])
 def test_no_value_anywhere_ends_in_a_traceback(base):
     """Every value of the valid cases replaced by each odd value: a valid case or a CaseError."""
-    lines = base.splitlines()
-    for i, line in enumerate(lines):
-        match = re.match(r'^([\w".]+\s*=\s*)(.*)$', line)
-        if not match:
-            continue
-        for odd in ODD_VALUES:
-            text = "\n".join([*lines[:i], match.group(1) + odd, *lines[i + 1 :]])
-            with warnings.catch_warnings():
-                warnings.simplefilter("error")  # no NaN or overflow slipping into the property model either
-                try:
-                    parse_case(text, FILE)
-                except CaseError as error:
-                    assert str(error).startswith(f"{FILE}"), str(error)
+    sweep_odd_values(base)

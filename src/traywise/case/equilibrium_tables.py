@@ -45,7 +45,7 @@ def read_equilibrium_table(section, index, components, default_solvent):
     for (t_low, *_), (t_high, _, _, item) in zip(isotherms, isotherms[1:]):
         if t_high - t_low < 1e-9:
             item.fail("temperature", f"{t_low:.2f} K is the temperature of another isotherm; give each temperature once")
-    source = _source(section)
+    source = section.source("the data", "plant measurements, handbook table, or 'invented for a demo'")
     enthalpy = _enthalpy(section, solute, components[solvent], isotherms)
     if enthalpy is not None and "enthalpy_of_solution" not in section:
         citation = solute.cite(solute.henry_in_water.source)
@@ -149,15 +149,6 @@ def _rising(item, key, kinds, example):
             item.fail(f"{key}[{k}]", f"found {values[k]!r} after {values[k - 1]!r}; the values must rise along the list")
     return numbers
 
-
-def _source(section):
-    if "source" not in section:
-        section.raw("source", expected="a text saying where the data come from (plant measurements, handbook table, "
-                    "or 'invented for a demo')")
-    text = section.text("source")
-    if not text.strip():
-        section.fail("source", "is empty; say where the data come from")
-    return text
 
 
 def _enthalpy(section, solute, solvent, isotherms):

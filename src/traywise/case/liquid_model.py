@@ -149,22 +149,13 @@ def _groups(section, components, members):
 
 def _nrtl(section, components, members, echo):
     names = [components[i].name for i in members]
-    source = _source(section)
+    source = section.source("the NRTL parameters", "publication, or the plant data and fit behind them")
     b = _pair_matrix(section, "b", components, members, required=True, kinds=("temperature_difference", "molar_energy"))
     a = _pair_matrix(section, "a", components, members, required=False, kinds="fraction")
     alpha = _alpha(section, components, members)
     echo.update(a=_matrix_echo(a, names), b_K=_matrix_echo(b, names), alpha=_matrix_echo(alpha, names), source=source)
     return Nrtl(names, a, b, alpha, source=source)
 
-
-def _source(section):
-    if "source" not in section:
-        section.raw("source", expected="a text saying where the NRTL parameters come from (publication, or the plant "
-                    "data and fit behind them)")
-    text = section.text("source")
-    if not text.strip():
-        section.fail("source", "is empty; say where the NRTL parameters come from")
-    return text
 
 
 def _pair_matrix(section, key, components, members, *, required, kinds):

@@ -79,6 +79,15 @@ class Section:
             self.fail(key, f"found '{value}'{suggestion(value, choices)}; expected {expected}")
         return value
 
+    def source(self, what, examples):
+        """The required, non-empty ``source`` text saying where ``what`` come from."""
+        if "source" not in self.data:
+            self.raw("source", expected=f"a text saying where {what} come from ({examples})")
+        text = self.text("source")
+        if not text.strip():
+            self.fail("source", f"is empty; say where {what} come from")
+        return text
+
     def boolean(self, key, default=MISSING):
         if key not in self.data:
             return self.raw(key, default, expected="true or false")
