@@ -11,7 +11,7 @@ import pytest
 
 from columns import dilute_column, jacobian_error, water_column
 from traywise.column import Column, Feed
-from traywise.kremser import kremser_fraction_absorbed
+from traywise.inert_basis.kremser import kremser_fraction_absorbed
 from traywise.mesh.equations import StageEquations
 from traywise.mesh.newton import solve_column
 from traywise.mesh.start import initial_estimate

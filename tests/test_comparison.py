@@ -4,9 +4,9 @@ import numpy as np
 import pytest
 
 from columns import dilute_column, ideal_dilute_model, library_model, water_column
-from traywise.comparison import compare
+from traywise.inert_basis.comparison import compare
 from traywise.mesh.newton import solve_column
-from traywise.shortcut import mole_ratio_equilibrium, step_stages
+from traywise.inert_basis.design import mole_ratio_equilibrium, step_stages
 
 
 def _stepped_between_terminals(solution, model, key_index, temperature):

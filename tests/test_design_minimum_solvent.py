@@ -101,12 +101,12 @@ def test_inert_basis_minimum_takes_k_in_the_solvent_fed():
     acetone's K in that water-methanol liquid, as the comparison's inert-basis design does, not
     in pure water (numbers invented)."""
     from columns import water_column
-    from traywise.equilibrium_curve import mole_ratio_equilibrium
+    from traywise.inert_basis.equilibrium_curve import mole_ratio_equilibrium
     from traywise.properties.library import find_component
     from traywise.properties.model import PropertyModel
     from traywise.properties.unifac_parameters import unifac
-    from traywise.shortcut import inert_basis_design
-    from traywise.stepping import minimum_liquid_to_gas_ratio
+    from traywise.inert_basis.design import inert_basis_design
+    from traywise.inert_basis.stepping import minimum_liquid_to_gas_ratio
 
     components = [find_component(n) for n in ("water", "acetone", "methanol", "nitrogen")]
     model = PropertyModel(components, equilibrium=["raoult", "activity", "activity", "insoluble"],

@@ -19,7 +19,7 @@ from traywise.design import (
     stages_for_target,
 )
 from traywise.errors import CaseError, PinchError
-from traywise.kremser import kremser_absorption_factor, kremser_stages
+from traywise.inert_basis.kremser import kremser_absorption_factor, kremser_stages
 from traywise.mesh.newton import solve_column
 
 SOLUTE = "test solute"

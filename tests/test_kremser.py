@@ -14,7 +14,7 @@ from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
 from traywise.errors import CaseError
-from traywise.kremser import (
+from traywise.inert_basis.kremser import (
     approach_to_equilibrium,
     kremser_absorption_factor,
     kremser_fraction_absorbed,

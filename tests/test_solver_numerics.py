@@ -5,7 +5,7 @@ import pytest
 
 from columns import dense_jacobian, dilute_column, ideal_dilute_model, jacobian_error, library_model, water_column
 from traywise.errors import ConvergenceError
-from traywise.kremser import kremser_fraction_absorbed
+from traywise.inert_basis.kremser import kremser_fraction_absorbed
 from traywise.mesh.balances import build_solution
 from traywise.mesh.equations import StageEquations
 from traywise.mesh.newton import solve_column

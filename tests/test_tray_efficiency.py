@@ -21,7 +21,7 @@ from traywise.design.efficiency import (
     water_molar_density,
     water_viscosity,
 )
-from traywise.kremser import kremser_fraction_absorbed
+from traywise.inert_basis.kremser import kremser_fraction_absorbed
 from traywise.mesh.newton import solve_column
 from traywise.properties.inline import inline_component
 from traywise.properties.model import PropertyModel

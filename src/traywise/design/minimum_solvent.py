@@ -26,10 +26,10 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from ..equilibrium_curve import mole_ratio_equilibrium
+from ..inert_basis.equilibrium_curve import mole_ratio_equilibrium
 from ..errors import CaseError
 from ..mesh.newton import SolverSettings
-from ..stepping import minimum_liquid_to_gas_ratio
+from ..inert_basis.stepping import minimum_liquid_to_gas_ratio
 from .adjust import solvent_for_target
 from .targets import component_index
 from .variables import with_stages

@@ -1,6 +1,6 @@
 """The isothermal inert-basis comparison, rendered for the console, report.md and results.json.
 
-The comparison is computed one layer down, by ``traywise.comparison.compare``; this module
+The comparison is computed one layer down, by ``traywise.inert_basis.comparison.compare``; this module
 runs it for a case and renders the ``Comparison`` record it returns (fields key, temperature,
 pressure, rigorous_stages, isothermal_stages (None when the classic method pinches),
 isothermal_design (an ``InertBasisDesign``, or None), solutes (per-solute outlets both ways),
@@ -12,7 +12,7 @@ from .tables import celsius, kilopascal, number, percent
 
 def isothermal_comparison(case, solution, key=None):
     """The comparison record of a solved case for ``key`` (default: the case's key solute)."""
-    from ..comparison import compare
+    from ..inert_basis.comparison import compare
 
     names = case.model.names
     return compare(

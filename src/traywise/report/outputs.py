@@ -26,7 +26,7 @@ def write_outputs(target, case, solution, comparison, *, plots=True, design=None
     target : path-like       Results folder (created, or replaced when it is an older one)
     case : the loaded case
     solution : ColumnSolution
-    comparison : traywise.comparison.Comparison
+    comparison : traywise.inert_basis.comparison.Comparison
     plots : bool             Draw the PNG figures
     design : DesignOutcome, optional   The design whose column ``solution`` solves
     """

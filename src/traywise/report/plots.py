@@ -30,7 +30,7 @@ def write_plots(folder, solution, comparison, design):
     ----------
     folder : pathlib.Path
     solution : ColumnSolution
-    comparison : traywise.comparison.Comparison   (its temperature is marked on the profile)
+    comparison : traywise.inert_basis.comparison.Comparison   (its temperature is marked on the profile)
     design : InertBasisDesign or None   Drawn on the x-y diagram; without one (the classic
         method pinches) the diagram is not drawn and the report says so.
     """

@@ -15,7 +15,7 @@ from dataclasses import dataclass
 import numpy as np
 from scipy.optimize import brentq, minimize_scalar
 
-from .errors import CaseError, ConvergenceError, PinchError
+from ..errors import CaseError, ConvergenceError, PinchError
 
 
 MAX_STAGES = 1000  # a staircase still short of its terminal after this many stages is taken as pinched

@@ -15,7 +15,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from .errors import CaseError
+from ..errors import CaseError
 
 
 @dataclass(frozen=True)

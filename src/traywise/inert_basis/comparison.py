@@ -1,6 +1,6 @@
 """The rigorous solution beside the isothermal inert-basis design of the same column.
 
-The classic method (``traywise.shortcut``) is run at the solvent inlet temperature and the
+The classic method (``traywise.inert_basis.design``) is run at the solvent inlet temperature and the
 mean column pressure, with every component but one key solute inert. Two questions are
 answered: how many theoretical stages would the classic method have asked for to reach the
 removal the rigorous solution reaches, and what outlet would it have predicted with the stages
@@ -13,8 +13,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from .errors import ConvergenceError, PinchError
-from .shortcut import inert_basis_design
+from ..errors import ConvergenceError, PinchError
+from .design import inert_basis_design
 
 STAGE_TOLERANCE = (0.10, 0.5)  # relative, absolute [stages]
 OUTLET_TOLERANCE = 0.25  # relative

@@ -13,11 +13,11 @@ from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
 from traywise.errors import CaseError
-from traywise.kremser import kremser_fraction_absorbed, kremser_gas_outlet, kremser_stages
+from traywise.inert_basis.kremser import kremser_fraction_absorbed, kremser_gas_outlet, kremser_stages
 from traywise.properties.constants import P_STANDARD
 from traywise.properties.inline import inline_component
 from traywise.properties.model import PropertyModel
-from traywise.shortcut import (
+from traywise.inert_basis.design import (
     inert_basis_design,
     minimum_liquid_to_gas_ratio,
     mole_ratio_equilibrium,

@@ -31,7 +31,7 @@ import numpy as np
 
 from .equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium, mole_ratio_equilibrium
 from .equilibrium_curve import component_index as _component_index
-from .errors import CaseError
+from ..errors import CaseError
 from .stepping import StageStepping, minimum_liquid_to_gas_ratio, outlet_for_stages, step_stages
 
 

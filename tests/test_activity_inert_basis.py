@@ -8,13 +8,13 @@ Mass-Transfer Operations, 3rd ed. 1980, ch. 8 (equilibrium curve and stepping in
 import numpy as np
 import pytest
 
-from traywise.equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium
-from traywise.kremser import kremser_stages
+from traywise.inert_basis.equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium
+from traywise.inert_basis.kremser import kremser_stages
 from traywise.properties.equilibrium_table import EquilibriumTable
 from traywise.properties.library import find_component
 from traywise.properties.model import PropertyModel
 from traywise.properties.unifac_parameters import unifac
-from traywise.shortcut import inert_basis_design, mole_ratio_equilibrium
+from traywise.inert_basis.design import inert_basis_design, mole_ratio_equilibrium
 
 WATER, ACETONE, NITROGEN = (find_component(n) for n in ("water", "acetone", "nitrogen"))
 T, P = 298.15, 1.2e5  # K, Pa

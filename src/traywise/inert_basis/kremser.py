@@ -27,7 +27,7 @@ R. E. Treybal, Mass-Transfer Operations, 3rd ed., McGraw-Hill (1980), ch. 5 and 
 import numpy as np
 from scipy.optimize import brentq
 
-from .errors import CaseError
+from ..errors import CaseError
 
 _LARGEST_LN_A = 700.0  # ln A searched up to here (A about 1e304), the float range
 
