@@ -34,11 +34,16 @@ class _Command(click.Command):
     """A command that turns traywise's deliberate errors into one line and an exit status."""
 
     def invoke(self, ctx):
-        from .errors import CaseError, ConvergenceError, PropertyRangeError, TargetNotReached
+        from .errors import (CaseError, ComponentDataError, ConvergenceError, InputError, PinchError,
+                             PropertyRangeError, TargetNotReached)
 
         try:
             return super().invoke(ctx)
-        except (CaseError, PropertyRangeError) as error:
+        except InputError as error:
+            from .case.quantities import case_error
+
+            _fail(ctx, str(case_error(error, ctx.params.get("case_file"))), EXIT_INPUT)
+        except (CaseError, ComponentDataError, PinchError, PropertyRangeError) as error:
             _fail(ctx, str(error), EXIT_INPUT)
         except ConvergenceError as error:
             _fail(ctx, str(error), EXIT_CONVERGENCE)

@@ -12,11 +12,12 @@ from pathlib import Path
 import numpy as np
 
 from ..column import Column, Feed, SideDraw
-from ..errors import CaseError
+from ..errors import CaseError, InputError
 from .column import read_column
 from .components import read_components
 from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
+from .quantities import case_error
 from .reader import Section, where
 from .sweep import SWEEP_KEYS, check_sweep_table
 
@@ -285,8 +286,8 @@ class _CaseBuilder:
                 mode=c.mode,
                 temperature=c.temperature,
             )
-        except ValueError as exc:  # guarded above; kept so that no input ever ends in a traceback
-            raise CaseError(where(self.top.file, "column"), str(exc)) from None
+        except InputError as exc:  # guarded above; kept so that no input ever ends in a traceback
+            raise case_error(exc, self.top.file, "column") from None
 
     def _pressure_warnings(self, gas, liquid, column):
         pressures = column.pressures

@@ -7,7 +7,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import CaseError, InputError
 from .reader import Section, suggestion
 from .units import UnitProblem, to_si
 
@@ -188,7 +188,7 @@ class _Reader:
         for name in value:
             try:
                 output_spec(name, self.case.model)
-            except CaseError as problem:
+            except InputError as problem:
                 self.fail("outputs", problem.message)
         return tuple(value)
 

@@ -25,15 +25,13 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError, ConvergenceError, TargetNotReached
+from ..errors import ConvergenceError, PinchError, TargetNotReached
 from ..mesh.newton import SolverSettings
 from .adjust import cooler_duty_for_limit, solvent_for_target, stages_for_target
 from .minimum_solvent import minimum_solvent
 from .targets import SoluteTarget, TemperatureLimit
 from .trays import tray_design
 
-# Where the design loops say a target is out of reach (CaseError.where, see adjust.py, trays.py)
-UNREACHABLE = ("target", "pinch", "limit", "max_stages")
 MINIMUM_SOLVENT_STAGES = 40  # first stage count standing for infinitely many (minimum_solvent's default)
 
 
@@ -147,15 +145,14 @@ def _fixed_in_place(column):
 
 @contextmanager
 def _step(name):
-    """Name the step in the errors of the design loops; unreachable targets become
-    ``TargetNotReached``."""
+    """Name the step in the errors of the design loops; a pinch becomes ``TargetNotReached``."""
     try:
         yield
     except ConvergenceError as failure:
         raise ConvergenceError(
             f"{name}: {failure.reason}", iterations=failure.iterations, residual=failure.residual, stage=failure.stage
         ) from failure
-    except CaseError as failure:
-        if failure.where not in UNREACHABLE:
-            raise
+    except PinchError as failure:
         raise TargetNotReached(f"{name}: {failure.message}") from failure
+    except TargetNotReached as failure:
+        raise TargetNotReached(f"{name}: {failure}") from failure
