@@ -30,7 +30,7 @@ from ..inert_basis.equilibrium_curve import mole_ratio_equilibrium
 from ..errors import InputError
 from ..mesh.newton import SolverSettings
 from ..inert_basis.stepping import minimum_liquid_to_gas_ratio
-from .adjust import solvent_for_target
+from .solve_for import solvent_for_target
 from .targets import component_index
 from .variables import with_stages
 

@@ -18,7 +18,7 @@ import numpy as np
 
 from ..errors import InputError, TargetNotReached
 from ..mesh.newton import SolverSettings
-from .adjust import MAX_STAGES, stages_for_target
+from .solve_for import MAX_STAGES, stages_for_target
 from .efficiency import (
     OCONNELL_FIT_PEAK,
     WATER_VISCOSITY_RANGE,
