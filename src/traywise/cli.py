@@ -102,7 +102,7 @@ def _load(ctx, case_file, quiet, verbose, *, target=None):
     if target is not None:
         from .report.folder import check_replaceable
 
-        check_replaceable(target)
+        check_replaceable(target, protect=(case_file,))
     from .case import load_case
 
     return load_case(case_file)
