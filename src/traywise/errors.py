@@ -10,6 +10,7 @@ the core errors and knows nothing of case files:
   PinchError          the inert-basis operating line cannot reach a target (touches the curve)
   TargetNotReached    a design target the chosen input cannot meet
   ConvergenceError    the stage equations did not converge (carries the diagnostics)
+  UnphysicalSolution  they converged to a state that cannot exist (a ConvergenceError)
 
 The case layer raises ``CaseError`` (file and key path) and turns a core ``InputError`` into
 one through its single table of core quantities and case keys (``case/quantities.py``). The
@@ -80,6 +81,16 @@ class TargetNotReached(TraywiseError, RuntimeError):
     """A design target that changing the chosen input cannot meet (the removal needs more than
     the largest solvent flow or stage count searched, a pinch, a temperature limit one cooler
     cannot hold); the message says what was reached instead and what to change."""
+
+
+class UnphysicalSolution(ConvergenceError):
+    """The stage equations converged, but to a state that cannot exist (a liquid below its
+    freezing point, temperatures far outside the property data's valid range); refused like a
+    non-convergence (exit 3), never reported as a result."""
+
+    def __init__(self, reason, *, iterations, residual, stage=None):
+        super().__init__(reason, iterations=iterations, residual=residual, stage=stage)
+        self.args = (f"{reason} (found after {iterations} iterations)",)
 
 
 class CaseError(TraywiseError, ValueError):
