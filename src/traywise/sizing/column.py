@@ -20,6 +20,7 @@ class ColumnSizing:
     internals : TrayInternals or PackedInternals
     diameter : [m]; the design diameter, or the given one when ``rated``
     rated : True when the diameter was given (rating), False when designed
+    design_diameter : the diameter the worst stage needs at the design fraction of flood [m]
     design_stage : 1-based stage that needs the largest diameter at the design fraction of flood
     hydraulics : TrayHydraulics or PackedHydraulics (per stage)
     trays : actual trays (trays) or None
@@ -34,6 +35,7 @@ class ColumnSizing:
     internals: object
     diameter: float
     rated: bool
+    design_diameter: float
     design_stage: int
     hydraulics: object
     trays: int | None
@@ -90,6 +92,6 @@ def size_column(solution, components, internals, *, key_component, diameter=None
                      f"{100 * internals.fraction_of_flood:.0f} % of flood (stage {stage})",)
     return ColumnSizing(
         kind=kind, internals=internals, diameter=float(designed if diameter is None else diameter),
-        rated=diameter is not None, design_stage=stage, hydraulics=hydraulics, trays=trays, bed_height=bed,
+        rated=diameter is not None, design_diameter=float(designed), design_stage=stage, hydraulics=hydraulics, trays=trays, bed_height=bed,
         beds=beds, column_height=float(height), pressure_drop=pressure_drop, properties=properties, warnings=warnings,
     )
