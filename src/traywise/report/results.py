@@ -113,6 +113,7 @@ RESULTS_KEYS = {
     "isothermal_comparison.hottest_stage": "1-based",
     "isothermal_comparison.isothermal_assumption_held": "the plain verdict (true or false)",
     "isothermal_comparison.verdict": "one sentence saying why",
+    "isothermal_comparison.reason": "why the isothermal method gives no stage count for the rigorous removal (a pinch, or why it cannot be applied: the key absorbed completely or stripped, an equilibrium curve that never reaches the gas inlet), or null when it gives one",
     "isothermal_comparison.inert_basis_design": "the isothermal design for the rigorous removal of the key solute (K-value, L'/V', its minimum, terminal mole ratios, stages), or null when it pinches",
     "design": "the design of a case with a [design] table (cases/README.md); null without one",
     "design.adjusted": "the input adjusted: 'solvent_flow', 'stages' or 'cooler_duty'",
