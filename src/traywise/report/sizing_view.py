@@ -8,6 +8,8 @@ import csv
 
 import numpy as np
 
+LENGTHS = ("tray_spacing", "hole_diameter", "weir_height", "top_space", "bottom_space", "hetp", "max_bed_height",
+           "redistributor_space")  # internals given in m
 HYDRAULICS_FILE = "hydraulics.csv"
 HYDRAULICS_PLOT = "hydraulics.png"
 SIZING_KEYS = {
@@ -48,7 +50,7 @@ def sizing_json(sizing):
     """The ``sizing`` section of results.json for a ColumnSizing (JSON-ready, SI)."""
     h, p = sizing.hydraulics, sizing.properties
     trays = sizing.kind == "trays"
-    internals = {key: value for key, value in sizing.internals.__dict__.items()}
+    internals = {(f"{key}_m" if key in LENGTHS else key): value for key, value in sizing.internals.__dict__.items()}
     if not trays:
         data = sizing.internals.data
         internals.update(type=data.type, material=data.material, nominal_size_m=data.nominal_size,
@@ -117,7 +119,7 @@ def sizing_lines(record):
         return []
     if s["kind"] == "trays":
         internals = s["internals"]
-        what = (f"{s['trays']} {internals['tray_type']} trays at {internals['tray_spacing'] * 1e3:.0f} mm spacing, "
+        what = (f"{s['trays']} {internals['tray_type']} trays at {internals['tray_spacing_m'] * 1e3:.0f} mm spacing, "
                 f"downcomers {100 * s['downcomer_area_fraction']:.0f} % of the area, weir {s['weir_length_m']:.2f} m")
     else:
         what = f"{s['internals']['packing']}, bed {s['bed_height_m']:.2f} m in {s['beds']} bed(s)"
@@ -143,7 +145,9 @@ def sizing_markdown(record):
             ("design diameter (worst stage)", f"{s['design_diameter_m']:.3f} m, stage {s['design_stage']}"),
             ("highest fraction of flood", f"{100 * s['worst_fraction_of_flood']:.1f} % on stage {s['worst_stage']}"),
             ("column height, tangent to tangent", f"{s['column_height_m']:.2f} m"),
-            ("pressure drop", f"{s['pressure_drop_Pa'] / 1e3:.3g} kPa")]
+            ("pressure drop", f"{s['pressure_drop_Pa'] / 1e3:.3g} kPa"),
+            ("pressure drop the stage model assumed", f"{_assumed_drop(record) / 1e3:.3g} kPa (the stage pressures are not "
+                                                      "changed by the sizing)")]
     rows += [(key.replace("_", " "), _shown(value)) for key, value in s["internals"].items() if value is not None]
     if s["kind"] == "trays":
         rows += [("trays", s["trays"]), ("downcomer area / column area", f"{s['downcomer_area_fraction']:.3f}"),
@@ -160,12 +164,29 @@ def sizing_markdown(record):
     return blocks
 
 
+def _assumed_drop(record):
+    """Pressure difference between the bottom and the top stage that the stage pressures assume [Pa]."""
+    column = record["column"]
+    return column["pressure_drop_Pa_per_stage"] * (column["theoretical_stages"] - 1)
+
+
 def _shown(value):
     if isinstance(value, float):
         return f"{value:.4g}"
     if isinstance(value, (list, tuple)):
         return ", ".join(_shown(v) for v in value)
     return str(value)
+
+
+def write_sizing_files(folder, sizing, *, plots=True):
+    """Write hydraulics.csv (and hydraulics.png with ``plots``) into ``folder``; their names."""
+    if sizing is None:
+        return []
+    write_hydraulics_csv(folder / HYDRAULICS_FILE, sizing)
+    if not plots:
+        return [HYDRAULICS_FILE]
+    write_hydraulics_plot(folder / HYDRAULICS_PLOT, sizing)
+    return [HYDRAULICS_FILE, HYDRAULICS_PLOT]
 
 
 def write_hydraulics_csv(path, sizing):
