@@ -8,7 +8,7 @@ sizing then says which component lacks which property.
 
 import functools
 import tomllib
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from pathlib import Path
 
 import numpy as np
@@ -56,6 +56,7 @@ class TransportData:
     diffusion_volume: float | None = None
     boiling_molar_volume: float | None = None
     sources: tuple = ()
+    citations: dict = field(default_factory=dict, compare=False)  # scalar table key -> citation
 
     @property
     def has_liquid_data(self):
@@ -74,7 +75,7 @@ def transport_data(component):
 def _read(path, name):
     data = tomllib.loads(Path(path).read_text(encoding="utf-8"))
     sources = data.get("sources", {})
-    found, used = {}, []
+    found, used, scalar_citations = {}, [], {}
 
     def citation(key, table):
         source = table.get("source")
@@ -97,6 +98,6 @@ def _read(path, name):
             continue
         if table.get("unit") != unit:
             raise ComponentDataError(f"{path}: {key}.unit", f"must be '{unit}', found {table.get('unit')!r}")
-        citation(key, table)
+        scalar_citations[key] = citation(key, table)
         found[key] = float(table["value"])
-    return TransportData(name, **found, sources=tuple(dict.fromkeys(used)))
+    return TransportData(name, **found, sources=tuple(dict.fromkeys(used)), citations=scalar_citations)
