@@ -12,7 +12,7 @@ from traywise.case.quantities import CASE_KEYS, case_error
 from traywise.errors import CaseError, InputError
 
 PACKAGE = Path(traywise.__file__).parent
-CORE = ("properties", "mesh", "inert_basis", "design", "column.py")
+CORE = ("properties", "mesh", "inert_basis", "design", "sizing", "column.py")
 BOUNDARY_ERRORS = {"CaseError"}
 
 
