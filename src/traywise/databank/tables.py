@@ -25,11 +25,12 @@ from thermo import EnthalpyVaporization, HeatCapacityGas, HeatCapacityLiquid, Va
 
 from ..properties.component import HeatCapacity
 from ..properties.constants import GAS_CONSTANT, T_REFERENCE, ZERO_CELSIUS
+from ..properties.component import WATER_CAS
 from ..properties.correlations import dippr101
 from . import citations
 from .fits import fit_stable_polynomial
 
-WATER = "7732-18-5"
+WATER = WATER_CAS
 HENRY_RANGE = (273.15, 353.15)  # K; judgement, see HENRY_RANGE_NOTE
 HENRY_RANGE_NOTE = (
     "t_min/t_max are a judgement (common practice), not stated by the source: Sander's fits are "

@@ -21,7 +21,6 @@ import numpy as np
 
 from ..errors import CaseError, TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
-from .targets import component_index
 from .variables import UNITS, with_value
 
 CHUNK_SIZE = 10  # most points per chunk in parallel sweeps: small enough for progress, large enough to warm-start
@@ -158,7 +157,7 @@ def output_spec(name, model):
     kind, _, key = name.partition(":")
     if kind in _COMPONENT_OUTPUTS:
         try:
-            index = component_index(model, key)
+            index = model.component_index(key)
         except CaseError:
             raise CaseError(
                 "outputs", f"'{name}' needs a component of the model after ':'; expected one of {', '.join(model.names)}"
