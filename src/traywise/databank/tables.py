@@ -23,9 +23,8 @@ from chemicals import MW, Tm, Tm_methods
 from CoolProp import CoolProp as coolprop
 from thermo import EnthalpyVaporization, HeatCapacityGas, HeatCapacityLiquid, VaporPressure
 
-from ..properties.component import HeatCapacity
-from ..properties.constants import GAS_CONSTANT, T_REFERENCE, ZERO_CELSIUS
-from ..properties.component import WATER_CAS
+from ..properties.component import WATER_CAS, HeatCapacity
+from ..properties.constants import T_REFERENCE, ZERO_CELSIUS
 from ..properties.correlations import dippr101
 from . import citations
 from .fits import fit_stable_polynomial
