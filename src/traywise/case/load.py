@@ -19,6 +19,7 @@ from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
 from .reader import Section, where
 from .sweep import SWEEP_KEYS, check_sweep_table
+from .uncertainty import read_uncertainty
 
 TOP_KEYS = (
     "title",
@@ -35,6 +36,7 @@ TOP_KEYS = (
     "report",
     "design",
     "sweep",
+    "uncertainty",
 )
 REPORT_KEYS = ("plots", "xy_solute")
 LIQUID_KINDS = ("raoult", "nonvolatile")  # equilibrium models of components that can be the solvent
@@ -61,6 +63,7 @@ class Case:
     design : DesignInput or None    The ``[design]`` table (case/design.py)
     sweep_table : dict or None      The ``[sweep]`` table as written, checked (case/sweep.py)
     source : str                    The case's name in error messages (usually the file name)
+    uncertainty : UncertaintyRequest or None   The ``[uncertainty]`` table (case/uncertainty.py)
     """
 
     path: Path | None
@@ -80,6 +83,7 @@ class Case:
     design: object = None
     sweep_table: dict | None = None
     source: str = "<case>"
+    uncertainty: object = None
 
 
 def load_case(path):
@@ -180,6 +184,7 @@ class _CaseBuilder:
             design=design,
             sweep_table=None if sweep is None else sweep.data,
             source=top.file,
+            uncertainty=read_uncertainty(top, components),
         )
 
     # -- roles of the components ----------------------------------------------------------------

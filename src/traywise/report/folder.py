@@ -2,8 +2,8 @@
 
 A run that fails part-way leaves no folder that looks complete, and an older complete folder is
 replaced only after the new one is complete. An existing folder is replaced only when it is
-empty or was written by traywise (it holds a results.json or, for a sweep, a sweep.json naming
-traywise), so that ``--out`` pointed at the wrong place cannot delete someone's files.
+empty or was written by traywise (it holds a results.json or, for a sweep or an uncertainty run, a
+sweep.json or uncertainty.json naming traywise), so that ``--out`` pointed at the wrong place cannot delete someone's files.
 """
 
 import json
@@ -14,7 +14,7 @@ from pathlib import Path
 
 from ..errors import CaseError
 
-MARKERS = ("results.json", "sweep.json")  # files naming traywise as the writer of a results folder
+MARKERS = ("results.json", "sweep.json", "uncertainty.json")  # files naming traywise as the writer of a results folder
 
 
 def write_results_folder(target, write_files):
