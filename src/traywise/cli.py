@@ -289,6 +289,11 @@ def uncertainty(ctx, case_file, samples, seed, processes, engine, scheduler, out
     import os
     from pathlib import Path
 
+    if engine == "dask":
+        try:
+            import distributed  # noqa: F401  (the optional extra)
+        except ImportError:
+            _fail(ctx, 'the dask engine needs dask.distributed: pip install "traywise[distributed]"', EXIT_INPUT)
     workers = processes or os.cpu_count() or 1
     if workers > 1:
         os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")  # as for sweep: one BLAS thread per worker

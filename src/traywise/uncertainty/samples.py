@@ -29,6 +29,7 @@ from ..errors import TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
 from .perturb import perturbed_model
 
+MAX_CHUNK = 25  # samples per chunk at most: progress stays live, and a chunk's overhead stays small
 PARENT_POLL = 0.5  # [s] how often a worker checks that the process that started it still runs
 
 
@@ -135,7 +136,7 @@ def run_local(job, factors, *, processes=1, progress=None):
             if progress:
                 progress(len(results), total)
         return results
-    pieces = chunks(total, processes * max(1, min(16, total // (processes * 5))))
+    pieces = chunks(total, max(processes * 4, math.ceil(total / MAX_CHUNK)))
     results = []
     with ProcessPoolExecutor(max_workers=processes, initializer=_start_worker, initargs=(job, os.getpid())) as pool:
         for chunk_results in pool.map(_solve_rows, [factors[r.start:r.stop] for r in pieces]):
