@@ -12,7 +12,7 @@ import math
 
 from .. import __version__
 from .cautions import SAFETY_CAUTIONS, safety_one_line
-from .folder import write_results_folder
+from .folder import MARKER, write_results_folder
 
 DISPLAY = {  # SI unit -> (display unit, scale, offset)
     "K": ("degC", 1.0, -273.15),
@@ -63,7 +63,7 @@ def _finite(value):
 
 def write_uncertainty(target, case, result, *, plots=True):
     """Write the results folder ``target``; return the record."""
-    files = ["uncertainty.json", "samples.csv", "uncertainty.md"]
+    files = ["uncertainty.json", "samples.csv", "uncertainty.md", MARKER]
     if plots:
         files += ["uncertainty_histograms.png", "uncertainty_tornado.png"]
     record = uncertainty_record(case, result, files)
@@ -80,7 +80,7 @@ def write_uncertainty(target, case, result, *, plots=True):
             write_tornado(folder / "uncertainty_tornado.png", case.title, result)
         (folder / "uncertainty.json").write_text(json.dumps(record, indent=2, allow_nan=False) + "\n", encoding="utf-8")
 
-    write_results_folder(target, write_files)
+    write_results_folder(target, write_files, protect=() if case.path is None else (case.path,))
     return record
 
 
