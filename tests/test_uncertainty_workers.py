@@ -51,7 +51,7 @@ def test_workers_end_when_their_parent_is_killed():
     finally:
         os.kill(parent.pid, signal.SIGKILL)
         parent.wait()
-    deadline = time.monotonic() + 20.0  # the watch polls every 0.5 s; 20 s allows for a loaded machine
+    deadline = time.monotonic() + 20.0  # the kernel signals them at once (PR_SET_PDEATHSIG); 20 s allows for a loaded machine
     while time.monotonic() < deadline and any(Path(f"/proc/{w}").exists() for w in workers):
         time.sleep(0.2)
     alive = [w for w in workers if Path(f"/proc/{w}").exists()]

@@ -18,19 +18,17 @@ Outputs (name, unit), per case:
 
 import math
 import os
-import threading
-import time
 from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, replace
 
 import numpy as np
 
+from ..design.sweep import _end_with_parent as end_with_parent  # the sweep's worker initialiser, shared
 from ..errors import TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
 from .perturb import perturbed_model
 
 MAX_CHUNK = 25  # samples per chunk at most: progress stays live, and a chunk's overhead stays small
-PARENT_POLL = 0.5  # [s] how often a worker checks that the process that started it still runs
 
 
 @dataclass(frozen=True)
@@ -150,35 +148,12 @@ _WORKER_JOB = None
 
 
 def _start_worker(job, parent):
-    """Worker initialiser: keep the job, and end this worker when its parent ends."""
+    """Worker initialiser: keep the job, and end this worker when its parent ends (on Linux by
+    prctl PR_SET_PDEATHSIG, elsewhere by polling, as the sweep's workers do)."""
     global _WORKER_JOB
     _WORKER_JOB = job
-    watch_parent(parent)
+    end_with_parent(parent)
 
 
 def _solve_rows(rows):
     return solve_chunk(_WORKER_JOB, rows)
-
-
-def watch_parent(parent):
-    """End this process (exit status 1) soon after the process ``parent`` (a pid) has ended or
-    this process's own parent has changed (re-parented when the parent died)."""
-    own_parent = os.getppid()
-
-    def watch():
-        while True:
-            time.sleep(PARENT_POLL)
-            if os.getppid() != own_parent or not _alive(parent):
-                os._exit(1)
-
-    threading.Thread(target=watch, name="traywise-parent-watch", daemon=True).start()
-
-
-def _alive(pid):
-    try:
-        os.kill(pid, 0)
-    except ProcessLookupError:
-        return False
-    except PermissionError:
-        return True
-    return True
