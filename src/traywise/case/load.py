@@ -17,6 +17,7 @@ from .column import read_column
 from .components import read_components
 from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
+from .internals import read_internals
 from .reader import Section, where
 from .sweep import SWEEP_KEYS, check_sweep_table
 from .uncertainty import read_uncertainty
@@ -36,6 +37,7 @@ TOP_KEYS = (
     "report",
     "design",
     "sweep",
+    "internals",
     "uncertainty",
 )
 REPORT_KEYS = ("plots", "xy_solute")
@@ -62,6 +64,7 @@ class Case:
     echo : dict                     Every input in SI, units in the key names (for results.json)
     design : DesignInput or None    The ``[design]`` table (case/design.py)
     sweep_table : dict or None      The ``[sweep]`` table as written, checked (case/sweep.py)
+    internals : InternalsInput or None   The ``[internals]`` table (case/internals.py): what to size
     source : str                    The case's name in error messages (usually the file name)
     uncertainty : UncertaintyRequest or None   The ``[uncertainty]`` table (case/uncertainty.py)
     """
@@ -83,6 +86,7 @@ class Case:
     design: object = None
     sweep_table: dict | None = None
     source: str = "<case>"
+    internals: object = None
     uncertainty: object = None
 
 
@@ -147,6 +151,7 @@ class _CaseBuilder:
         design = read_design(top, model=model, column_input=column_input, key=key, gas_flows=flows["gas_feed"],
                              solvent=solvent)
         sweep = top.table("sweep", SWEEP_KEYS)
+        internals = read_internals(top)
         names = model.names
         echo = {
             "title": title,
@@ -166,6 +171,8 @@ class _CaseBuilder:
             echo["liquid_model"] = components.liquid_model
         if design is not None:
             echo["design"] = design.echo()
+        if internals is not None:
+            echo["internals"] = internals.echo
         return Case(
             path=self.path,
             title=title,
@@ -184,6 +191,7 @@ class _CaseBuilder:
             design=design,
             sweep_table=None if sweep is None else sweep.data,
             source=top.file,
+            internals=internals,
             uncertainty=read_uncertainty(top, components),
         )
 
