@@ -74,8 +74,8 @@ def sample_job(column, model, inputs, *, key, design=None, start=None, settings=
 
 
 def _adjusted(design):
-    """The input a design request adjusts."""
-    return getattr(design, "solve_for", None) or design.adjust
+    """The input a design request solves for."""
+    return design.solve_for
 
 
 def solve_sample(job, factors):
