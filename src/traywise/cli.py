@@ -120,14 +120,11 @@ def _case_argument(command):
 def _load(ctx, case_file, quiet, verbose, *, target=None):
     """The case, after checking the arguments and the results folder ``target``, so that a
     mistake costs no solve."""
-    from pathlib import Path
-
-    from .errors import CaseError
+    from .case.load import check_case_path
 
     if quiet and verbose:
         raise click.UsageError("--quiet and --verbose exclude each other", ctx)
-    if not Path(case_file).is_file():
-        raise CaseError(case_file, "no such case file; give the path of a .toml case (write one with `traywise new FILE`)")
+    check_case_path(case_file)
     if target is not None:
         from .report.folder import check_replaceable
 

@@ -7,6 +7,7 @@ import numpy as np
 
 from ..column import MODES, PHASES
 from .feeds import STREAM_KEYS, read_stream
+from .limits import check_range
 
 COLUMN_KEYS = (
     "stages",
@@ -75,25 +76,32 @@ class ColumnInput:
 def read_column(top, components):
     """Read the required ``[column]`` table of the top-level Section into a ColumnInput."""
     section = top.table("column", COLUMN_KEYS, required=True)
-    n = section.integer("stages", minimum=1)
+    n = check_range(section, "stages", "stages", section.integer("stages", minimum=1))
     murphree = _per_stage(section, "murphree_efficiency", n, 1.0, _efficiency)
     overall = section.fraction("overall_efficiency", None)
     top_pressure = section.quantity("top_pressure", "pressure")
     if not top_pressure > 0.0:
         section.fail("top_pressure", f"found {section.data['top_pressure']!r}; expected a positive absolute pressure")
+    check_range(section, "top_pressure", "pressure", top_pressure)
     drop = section.quantity("pressure_drop_per_stage", "pressure_difference", 0.0)
     if drop < 0.0:
         section.fail("pressure_drop_per_stage", f"found {section.data['pressure_drop_per_stage']!r}; the pressure "
                      "rises going down the column: expected a drop >= 0")
+    check_range(section, "pressure_drop_per_stage", "pressure_difference", drop)
+    check_range(section, "pressure_drop_per_stage", "pressure", top_pressure + (n - 1) * drop,
+                found=f"{section.data.get('pressure_drop_per_stage')} giving {top_pressure + (n - 1) * drop:.6g} Pa "
+                      f"on stage {n}")
     heat_loss = section.quantity("heat_loss", "power", 0.0)
     if heat_loss < 0.0:
         section.fail("heat_loss", f"found {section.data['heat_loss']!r}; expected a heat loss >= 0 (heat leaving the column)")
+    check_range(section, "heat_loss", "power", heat_loss)
     coolers = []
     for cooler in section.tables("cooler", COOLER_KEYS):
         stage = _stage(cooler, n)
         duty = cooler.quantity("duty", "power")
         if duty < 0.0:
             cooler.fail("duty", f"found {cooler.data['duty']!r}; a cooler removes heat: expected a duty >= 0")
+        check_range(cooler, "duty", "power", duty)
         coolers.append((stage, duty))
     heat_removed = np.full(n, heat_loss / n)
     for stage, duty in coolers:
@@ -129,7 +137,7 @@ def _efficiency(section, key, value):
 
 
 def _temperature(section, key, value):
-    return section.convert(key, value, "temperature")[0]
+    return check_range(section, key, "temperature", section.convert(key, value, "temperature")[0], found=value)
 
 
 def _per_stage(section, key, n, default, read):

@@ -5,6 +5,7 @@ tray efficiency). Read into a ``DesignInput`` whose fields are those the design 
 
 from dataclasses import dataclass
 
+from .limits import check_range
 from .units import composition_basis_of, split_number
 
 DESIGN_KEYS = (
@@ -85,7 +86,7 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
     if len(limits) > 1:
         section.fail(limits[1], f"give one temperature limit, not both {' and '.join(limits)}")
     limit_place = LIMITS[limits[0]] if limits else None
-    limit_value = section.quantity(limits[0], "temperature") if limits else None
+    limit_value = check_range(section, limits[0], "temperature", section.quantity(limits[0], "temperature")) if limits else None
     cooler_stage = _cooler_stage(section, solve_for, column_input)
     minimum = section.boolean("minimum_solvent", False)
     oconnell = section.boolean("oconnell_efficiency", False)

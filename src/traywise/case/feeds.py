@@ -9,6 +9,7 @@ import numpy as np
 
 from ..errors import ComponentDataError
 from ..properties.library import find_component
+from .limits import check_range
 from .reader import Section
 from .units import UnitProblem, composition_basis_of
 
@@ -74,6 +75,15 @@ class StreamInput:
         per_mole = part @ molar_mass if self.flow_kind == "mass_flow" else part.sum()
         return self.flow / per_mole * z
 
+    def check_total(self, flows):
+        """Refuse a stream whose total molar flow (from ``flows`` (c,) [mol/s]) is outside the
+        range traywise takes (``limits.RANGES['flow']``)."""
+        total = float(np.sum(flows))
+        if self.flow is not None:
+            check_range(self.section, "flow", "flow", total, found=f"{self.section.data['flow']} = {total:.6g} mol/s")
+        else:
+            check_range(self.section, "composition", "flow", total, found=f"component flows summing to {total:.6g} mol/s")
+
     def _from_mole_ratios(self, ratios, solute):
         """Mole ratios (solutes: moles per mole of the solute-free part; other components: their
         fraction of that part, summing to 1) -> unnormalised mole amounts."""
@@ -101,10 +111,12 @@ def read_stream(section, components, *, default_component=None):
     ``components`` is the CaseComponents; ``default_component`` (index) makes the composition
     optional: without one the stream is that component alone (the pure solvent).
     """
-    temperature = section.quantity("temperature", "temperature")
+    temperature = check_range(section, "temperature", "temperature", section.quantity("temperature", "temperature"))
     pressure = section.quantity("pressure", "pressure", None)
     if pressure is not None and pressure <= 0.0:
         section.fail("pressure", f"found {section.data['pressure']!r}; expected a positive absolute pressure")
+    if pressure is not None:
+        check_range(section, "pressure", "pressure", pressure)
     if "composition" in section or default_component is None:
         table, basis, amounts, balance, written = _composition(section, components)
     else:
@@ -123,6 +135,7 @@ def read_stream(section, components, *, default_component=None):
         flow, flow_kind = section.convert("flow", section.data["flow"], ("molar_flow", "mass_flow"))
         if not flow > 0.0:
             section.fail("flow", f"found {section.data['flow']!r}; expected a flow > 0")
+        check_range(section, "flow", "flow" if flow_kind == "molar_flow" else "mass_flow", flow)
     return StreamInput(section, flow, flow_kind, flow_basis, basis, amounts, balance, temperature, pressure, table, written)
 
 
@@ -154,6 +167,8 @@ def _composition(section, components):
             table.fail(key, f"found {value!r}; expected a value >= 0")
         if kind == "mass_flow":
             amount /= components.model.molar_mass[i]
+        if kind != "fraction":
+            check_range(table, key, "flow", amount, lower=False)
         amounts[i], kinds[i] = amount, "flow" if kind != "fraction" else "fraction"
         try:
             bases[i] = composition_basis_of(value) if isinstance(value, str) and kind == "fraction" else None

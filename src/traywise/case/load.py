@@ -42,6 +42,7 @@ TOP_KEYS = (
     "uncertainty",
 )
 REPORT_KEYS = ("plots", "xy_solute")
+LONGEST_INTEGER = 4301  # digits: Python refuses to turn a longer text into an int (sys.get_int_max_str_digits)
 LIQUID_KINDS = ("raoult", "nonvolatile")  # equilibrium models of components that can be the solvent
 SOLUBLE_KINDS = ("henry", "raoult", "activity", "table")  # models with a finite, non-zero K: candidates for the key
 
@@ -92,8 +93,10 @@ class Case:
 
 
 def load_case(path):
-    """Read and check the case file at ``path``; CaseError names the file and key on any problem."""
+    """Read and check the case file at ``path``; CaseError names the file and key on any problem.
+    A UTF-8 byte-order mark at the start is accepted (some editors write one)."""
     path = Path(path)
+    check_case_path(path)
     try:
         text = path.read_text(encoding="utf-8")
     except FileNotFoundError:
@@ -103,13 +106,34 @@ def load_case(path):
     return parse_case(text, str(path), path=path)
 
 
+def check_case_path(path):
+    """Refuse, before anything is read, a case path that is missing, a folder, or not a regular
+    file (a pipe or a device such as /dev/null, which would be read empty or wait forever)."""
+    path = Path(path)
+    if path.is_file():
+        return
+    if not path.exists():
+        problem = "no such case file; give the path of a .toml case (write one with `traywise new FILE`)"
+    elif path.is_dir():
+        problem = "is a folder, not a case file; give the path of a .toml case"
+    else:
+        problem = "is not a regular file (a pipe, socket or device); give the path of a .toml case file"
+    raise CaseError(str(path), problem)
+
+
 def parse_case(text, where_from="<case>", *, path=None):
     """Parse case-file text; ``where_from`` names it in error messages (usually the file name)."""
+    text = text.removeprefix("\ufeff")  # a byte-order mark
     try:
         data = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         line = re.search(r"at line (\d+)", str(exc))
         raise CaseError(where(where_from, f"line {line.group(1)}" if line else ""), f"not valid TOML: {exc}") from None
+    except ValueError:  # an integer too long for Python to convert (more than 4300 digits)
+        long = re.search(r"\d{%d,}" % LONGEST_INTEGER, text)
+        line = f"line {text.count(chr(10), 0, long.start()) + 1}" if long else ""
+        raise CaseError(where(where_from, line), f"a number with {len(long.group()) if long else 'too many'} digits; "
+                        "write numbers as in the case format (stages up to 1000, values with units)") from None
     case = _CaseBuilder(Section(data, "", where_from, TOP_KEYS), path).build()
     check_sweep_table(case)
     return case
@@ -137,12 +161,16 @@ class _CaseBuilder:
         solute_mask = np.isin(np.arange(model.n_components), solutes)
         flows = {name: stream.component_flows(model.molar_mass, solute_mask) for name, stream in
                  (("gas_feed", gas), ("solvent_feed", liquid))}
+        gas.check_total(flows["gas_feed"])
+        liquid.check_total(flows["solvent_feed"])
         if not flows["solvent_feed"][solvent] > 0.0:
             liquid.section.fail("composition", f"carries no {model.names[solvent]} (the solvent)")
         if not flows["gas_feed"][key] > 0.0:
             top.fail("key_component", f"'{model.names[key]}' is not in the gas feed")
         self._check_solvent_feed(liquid, solvent, column_input.top_pressure)
         side_flows = [stream.component_flows(model.molar_mass, solute_mask) for _, _, stream in column_input.side_feeds]
+        for (_, _, stream), side_flow in zip(column_input.side_feeds, side_flows):
+            stream.check_total(side_flow)
         column = self._column(column_input, gas, liquid, flows, side_flows)
         self._pressure_warnings(gas, liquid, column)
         self._other_warnings(solvent, column_input, column)

@@ -8,10 +8,14 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..errors import CaseError, InputError
+from .limits import check_range
 from .reader import Section, suggestion
 from .units import UnitProblem, to_si
 
 SWEEP_KEYS = ("input", "from", "to", "points", "log", "outputs", "cooler_stage")
+# case word -> name of its range in limits.RANGES
+RANGE_OF = {"solvent_flow": "flow", "stages": "stages", "gas_temperature": "temperature",
+            "solvent_temperature": "temperature", "top_pressure": "pressure", "cooler_duty": "power"}
 # case word -> (name in traywise.design.variables, kinds of the range values, SI unit)
 VARIABLES = {
     "solvent_flow": ("solvent_flow", ("molar_flow", "mass_flow"), "mol/s"),
@@ -164,7 +168,7 @@ class _Reader:
         value = self.raw("points")
         if isinstance(value, bool) or not isinstance(value, int) or value < 2:
             self.fail("points", f"found {value!r}; expected a whole number >= 2")
-        return value
+        return check_range(self, "points", "points", value, found=value)
 
     def _log(self):
         if not self.present("log"):
@@ -212,7 +216,7 @@ class _Reader:
             number = _whole_number(value)
             if number is None or number < 1:
                 self.fail(key, f"found {value!r}; expected a whole number of stages >= 1, e.g. 4")
-            return float(number)
+            return float(check_range(self, key, "stages", number, found=value))
         kinds = VARIABLES[variable][1]
         if not isinstance(value, str):
             self.fail(key, f"found {value!r}; expected a text with its unit, e.g. {EXAMPLES[variable]}")
@@ -227,6 +231,7 @@ class _Reader:
             self.fail(key, f"found '{value}'; a cooler removes heat: expected a duty >= 0")
         if variable != "cooler_duty" and not si > 0.0:
             self.fail(key, f"found '{value}'; expected a value > 0")
+        check_range(self, key, RANGE_OF[variable], si, found=f"{value} = {si:.6g} mol/s" if kind == "mass_flow" else value)
         column = self.case.column
         if variable == "solvent_temperature":
             self._check_solvent_liquid(key, value, si, column.top_pressure)
@@ -269,5 +274,5 @@ def _whole_number(value):
     if isinstance(value, int):
         return value
     if isinstance(value, str) and value.strip().isdigit():
-        return int(value.strip())
+        return int(value.strip()) if len(value.strip()) <= 18 else 10**18  # no int() of thousands of digits
     return None
