@@ -13,6 +13,7 @@ import math
 import numpy as np
 
 from .. import __version__
+from ..column import actual_trays
 from .cautions import SAFETY_CAUTIONS
 
 RESULTS_KEYS = {
@@ -267,14 +268,6 @@ def results_record(run, files):
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
-
-
-def actual_trays(n_stages, overall_efficiency):
-    """ceil(N / E), or None without an overall efficiency; rounded to 9 digits first so that
-    rounding noise on a whole N / E does not add a tray."""
-    if overall_efficiency is None:
-        return None
-    return math.ceil(round(n_stages / overall_efficiency, 9))
 
 
 def property_sources(component, equilibrium_model, *, activity=None, table=None):
