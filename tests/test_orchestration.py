@@ -19,7 +19,7 @@ from traywise.run import CaseRun, RunSettings, run_case
 from traywise.starter import starter_case
 
 PACKAGE = Path(traywise.__file__).resolve().parent
-COMPUTING = ("traywise.mesh", "traywise.inert_basis", "traywise.design", "traywise.column")
+COMPUTING = ("traywise.mesh", "traywise.inert_basis", "traywise.design")  # solver, inert basis, design loops
 ORCHESTRATION = ("run_case", "complete_run", "sweep_case")  # the CLI's entry into the computations
 
 

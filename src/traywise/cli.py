@@ -112,8 +112,9 @@ def _load(ctx, case_file, quiet, verbose, *, target=None):
     if not Path(case_file).is_file():
         raise CaseError(case_file, "no such case file; give the path of a .toml case (write one with `traywise new FILE`)")
     if target is not None:
-        from .report.folder import check_replaceable
+        from .report.folder import check_replaceable, clear_stale_temporaries, followed
 
+        clear_stale_temporaries(followed(target))  # a killed run's older folder back first, then judged
         check_replaceable(target, protect=(case_file,))
     from .case import load_case
 
