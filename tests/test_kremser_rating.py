@@ -7,7 +7,7 @@ from pathlib import Path
 
 import pytest
 from click.testing import CliRunner
-from columns import dilute_column, ideal_dilute_model
+from support.columns import dilute_column, ideal_dilute_model
 
 from traywise.cli import main
 from traywise.inert_basis.kremser_rating import kremser_rating

@@ -48,6 +48,8 @@ class CaseRun:
     comparison : Comparison or None    The isothermal inert-basis comparison (its ``reason``
                                        says why it gives no stage count, when it gives none)
     kremser : KremserRating or None    Kremser's rating of the same column
+    sizing : ColumnSizing or None      The column sized from the solution, when the case has
+                                       an ``[internals]`` table
     xy_design : InertBasisDesign or None   Drawn on the x-y diagram (the classic design of
                                            ``case.xy_solute``)
     notes : tuple of str          Why a side result is missing; library warnings in our words
@@ -60,6 +62,7 @@ class CaseRun:
     kremser: object = None
     xy_design: object = None
     notes: tuple = ()
+    sizing: object = None
 
     @property
     def warnings(self):
@@ -100,7 +103,9 @@ def run_case(case, settings=RunSettings()):
 
 
 def complete_run(case, solution, *, design=None, settings=RunSettings()):
-    """The ``CaseRun`` of a converged ``solution`` of ``case``: the side results added to it."""
+    """The ``CaseRun`` of a converged ``solution`` of ``case``: the sizing (when the case has an
+    ``[internals]`` table; its input errors are the case's, ``CaseError``) and the side results."""
+    sizing = _size(case, solution)
     notes = []
     comparison = kremser = xy = None
     with warnings.catch_warnings(record=True) as caught:
@@ -118,7 +123,7 @@ def complete_run(case, solution, *, design=None, settings=RunSettings()):
                               lambda: _comparison(case, solution, case.xy_solute))
                 xy = None if other is None else other.isothermal_design
     notes.extend(note for note in library_warnings(caught) if note not in notes)
-    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes))
+    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing)
 
 
 def sweep_case(case, request, *, processes=1, progress=None, settings=RunSettings()):
@@ -152,6 +157,23 @@ def _side(what, notes, compute):
     except Exception as error:  # noqa: BLE001 -- deliberately broad: the rigorous result must stand
         notes.append(f"{what} could not be computed ({type(error).__name__}: {error}); the rigorous results stand")
         return None
+
+
+def _size(case, solution):
+    """The column sized from the solution when the case has an [internals] table, else None;
+    the sizing's input errors are reported against the case file's [internals] keys."""
+    internals = getattr(case, "internals", None)
+    if internals is None:
+        return None
+    from .errors import CaseError
+    from .sizing.column import size_column
+    from .sizing.errors import SizingInputError
+
+    try:
+        return size_column(solution, case.model.components, internals.internals, key_component=case.key_component,
+                           diameter=internals.diameter, overall_efficiency=case.overall_efficiency)
+    except SizingInputError as error:
+        raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
 
 
 def _comparison(case, solution, key):

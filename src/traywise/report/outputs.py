@@ -9,6 +9,7 @@ import json
 from .folder import MARKER, write_results_folder
 from .markdown import markdown_report
 from .results import results_record
+from .sizing_view import write_sizing_files
 from .stages import component_labels, write_stages_csv
 
 RESULTS_FILE = "results.json"
@@ -35,6 +36,7 @@ def write_outputs(target, run, *, plots=True):
             from .plots import write_plots
 
             figures = write_plots(folder, solution, run.comparison, run.xy_design)
+        figures += write_sizing_files(folder, run.sizing, plots=plots)
         record = results_record(run, [RESULTS_FILE, STAGES_FILE, REPORT_FILE, MARKER, *figures])
         (folder / REPORT_FILE).write_text(markdown_report(record), encoding="utf-8")
         (folder / RESULTS_FILE).write_text(results_json(record), encoding="utf-8")

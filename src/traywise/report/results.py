@@ -15,6 +15,7 @@ import numpy as np
 from .. import __version__
 from ..column import actual_trays
 from .cautions import SAFETY_CAUTIONS
+from .sizing_view import SIZING_KEYS
 
 RESULTS_KEYS = {
     "software": "name and version of the program that wrote the file",
@@ -178,6 +179,7 @@ RESULTS_KEYS = {
     "design.trays[].trays_by_murphree_efficiency": "fewest trays with that E_MV meeting the target, solved rigorously [-]",
     "design.trays[].stripping_factor": "K V / L of the key solute, mean over the theoretical stages [-]",
     "design.trays[].oconnell_group": "K M_L mu_L / rho_L of O'Connell's correlation [cP ft3/lbmol], or null",
+    **SIZING_KEYS,
     "property_sources": "per component name: property -> full citation of the data used, the liquid's activity model and equilibrium tables included",
     "warnings": "warnings from the case and the solution (list of text)",
     "files": "the files of the results folder",
@@ -197,8 +199,10 @@ def results_record(run, files):
     """
     from .comparison_view import comparison_json
     from .design_view import design_json
+    from .sizing_view import sizing_json
 
     case, solution = run.case, run.solution
+    sizing = None if run.sizing is None else sizing_json(run.sizing)
     names = list(solution.component_names)
     column = solution.column
     return {
@@ -262,9 +266,10 @@ def results_record(run, files):
         },
         "isothermal_comparison": comparison_json(run.comparison, run.kremser),
         "design": None if run.design is None else design_json(run.design),
+        "sizing": sizing,
         "property_sources": {c.name: property_sources(c, kind, **_liquid_data(case.model, c.name))
                              for c, kind in zip(case.model.components, case.model.equilibrium)},
-        "warnings": list(run.warnings),
+        "warnings": [*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))],
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
