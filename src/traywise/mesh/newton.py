@@ -60,10 +60,13 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
 
     The automatic estimates 'hot', then 'linear' (see start.py) follow the warm start. The
     first start iterates alone for ``settings.solo_iterations``; if it has not converged by
-    then, all starts iterate in turn and the first to converge wins. Neither estimate is best
-    everywhere: 'hot' suits pinched, heat-bulged columns, 'linear' columns whose absorption
-    front sits at the bottom, and each alone needs O(N) iterations on the other kind (measured
-    on 200 generated hard cases: median 8, max 67 iterations in all, no failure).
+    then, all starts iterate in turn and the first to converge wins (an estimate that cannot be
+    built is skipped). Neither estimate is best everywhere: 'hot' suits pinched, heat-bulged
+    columns, 'linear' columns whose absorption front sits at the bottom. On the 200 generated
+    hard cases of tests/benchmarks (Newton steps counted): 'hot' alone converges on all, in at
+    most 37; 'linear' alone fails on 4; taking turns after 12 solo steps needed median 7, max
+    63, after 20 solo steps median 7, max 55 (the setting kept: the race is the safety net,
+    and each turn it takes doubles the cost).
     """
     equations = StageEquations(column, model)
     linear = BandedSystem(
