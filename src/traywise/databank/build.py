@@ -21,7 +21,7 @@ from chemicals.identifiers import search_chemical
 
 from ..properties.constants import T_REFERENCE
 from ..properties.library import library_directory
-from . import tables
+from . import tables, transport
 from .toml_text import component_text
 
 DEFAULT_COMPONENTS = (
@@ -44,7 +44,7 @@ HEADER = (
     "SI units; every number has its unit beside it (K, Pa, J/mol, J/(mol K), kg/mol). Format: components/README.md.",
 )
 TABLE_ORDER = ("molar_mass", "melting_point", "ideal_gas_cp", "liquid_cp", "vapour_pressure",
-               "heat_of_vaporisation", "henry_in_water")
+               "heat_of_vaporisation", "henry_in_water") + transport.TABLE_ORDER
 
 
 def default_directory():
@@ -78,6 +78,7 @@ def build_component(text):
                      vapour_pressure=tables.vapour_pressure(cas), heat_of_vaporisation=tables.heat_of_vaporisation(cas))
     if cas != tables.WATER:
         found["henry_in_water"] = tables.henry_in_water(cas)
+    found.update(transport.transport_tables(cas, hill, liquid_at_25c))  # for sizing only
     equilibrium = _equilibrium(name, cas, found)
     found = {key: found[key] for key in TABLE_ORDER if found.get(key) is not None}
     aliases = ALIASES.get(cas, []) + ([hill] if hill != formula else [])

@@ -91,4 +91,23 @@ def _properties(component):
                 f"{float(record.solution_enthalpy(T_REFERENCE)) / 1000.0:.2f} kJ/mol "
                 f"(d ln H/d(1/T) = {float(record.solution_enthalpy(T_REFERENCE)) / GAS_CONSTANT:.1f} K)"]
         found.append(("henry_in_water", "Henry's constant in water", body, record.source))
+    return found + _transport(component)
+
+
+def _transport(component):
+    """The sizing tables (properties/transport.py): curves with their 25 degC value, and scalars."""
+    from ..properties.transport import CURVES, transport_data
+
+    data, found = transport_data(component), []
+    for key, unit in CURVES.items():
+        curve = getattr(data, key)
+        if curve is not None:
+            body = ["stable polynomial in s = (2T - t_max - t_min)/(t_max - t_min)", _valid(curve),
+                    f"at 298.15 K: {float(curve(T_REFERENCE)):.5g} {unit}"]
+            found.append((key, f"{key.replace('_', ' ')} (for sizing)", body, curve.source))
+    for key, heading, unit in (("diffusion_volume", "Fuller diffusion volume (for sizing)", ""),
+                               ("boiling_molar_volume", "molar volume at the normal boiling point (for sizing)", " m3/mol")):
+        value = getattr(data, key)
+        if value is not None:
+            found.append((key, heading, [f"{value:.5g}{unit}"], data.citations[key]))
     return found
