@@ -111,12 +111,12 @@ def _iterations(equations, linear, x, settings):
     norm, size = _norms(f, rows)
     dt = settings.initial_time_step
     polish, polished_from = settings.polish_steps, np.inf
-    for _ in range(settings.max_iterations + 1):
+    for steps in range(settings.max_iterations + 1):
         converged = norm < settings.tolerance
         if converged and (polish == 0 or norm > 0.1 * polished_from):
             yield x, props, norm, True
             return
-        if _ == settings.max_iterations:
+        if steps == settings.max_iterations:
             break
         if converged:  # quadratic finish: Newton steps while they still gain a decade
             polish, polished_from, dt = polish - 1, norm, np.inf
