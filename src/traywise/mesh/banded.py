@@ -14,10 +14,46 @@ again to Fortran order by the LAPACK wrapper: at 320 stages that costs as much a
 factorisation).
 """
 
+import functools
+
 import numpy as np
 
 from ..errors import ConvergenceError
 from .lapack import solve_banded_in_place
+
+
+@functools.lru_cache(maxsize=16)
+def _layout(n_stages, n, below, above, order):
+    """Where the block entries go in LAPACK band storage (2 below + above + 1, N n), flat in
+    Fortran order: ((positions, taken, mask) for the lower, diagonal and upper blocks, unheld,
+    permutation). positions index the storage, taken the (N, n, n) blocks flat, mask (n, n) the
+    block entries inside the band; unheld are the in-band positions no block holds (entries two
+    stages apart: zero, but the factorisation overwrites them); banded unknown k is original
+    unknown permutation[k]. Cached: columns of one shape share it (design loops, sweeps)."""
+    rows, size = 2 * below + above + 1, n_stages * n
+    inverse = np.empty(n, dtype=int)
+    inverse[list(order)] = np.arange(n)
+    a, b = np.meshgrid(inverse, inverse, indexing="ij")  # permuted row, column of entry (a, b)
+    within = np.arange(n * n).reshape(n, n)  # flat index of entry (a, b) inside a block
+
+    def entries(stages, shift):
+        offset = shift * n + b - a  # column minus row in the permuted matrix
+        mask = (offset <= above) & (offset >= -below)
+        row = stages[:, None] * n + a[mask]
+        col = (stages[:, None] + shift) * n + b[mask]
+        taken = (stages[:, None] * n * n + within[mask]).ravel()
+        return (col * rows + below + above + row - col).ravel(), taken, mask
+
+    stages = np.arange(n_stages)
+    blocks = (entries(stages[1:], -1), entries(stages, 0), entries(stages[:-1], 1))
+    col = np.arange(size)[:, None]
+    row = col + np.arange(-above, below + 1)[None, :]
+    inside = (row >= 0) & (row < size)
+    in_band = np.zeros(rows * size, dtype=bool)
+    in_band[(col * rows + below + above + row - col)[inside]] = True
+    in_band[np.concatenate([positions for positions, _, _ in blocks])] = False
+    permutation = (stages[:, None] * n + np.asarray(order)[None, :]).ravel()
+    return blocks, np.flatnonzero(in_band), permutation
 
 
 class BandedSystem:
@@ -35,42 +71,20 @@ class BandedSystem:
     """
 
     def __init__(self, n_stages, n, band, order, row_scale=None, unknown_scale=None):
-        below, above = band
+        below, above = (int(w) for w in band)
         self.below, self.above = below, above
         size = n_stages * n
         self.storage = np.zeros((2 * below + above + 1, size), order="F")
         self.rhs = np.empty(size)
         self.pivots = np.empty(size, dtype=np.int64)
         self._flat = self.storage.T.reshape(-1)  # a view: flat index = column * rows + row
-        inverse = np.empty(n, dtype=int)
-        inverse[list(order)] = np.arange(n)
-        a, b = np.meshgrid(inverse, inverse, indexing="ij")  # permuted row, column of entry (a, b)
-        rows = self.storage.shape[0]
+        blocks, self._unheld, self.permutation = _layout(n_stages, n, below, above, tuple(int(k) for k in order))
         row_scale = np.ones(n) if row_scale is None else np.asarray(row_scale, dtype=float)
         unknown_scale = np.ones(n) if unknown_scale is None else np.asarray(unknown_scale, dtype=float)
         scale = unknown_scale[None, :] / row_scale[:, None]
-
-        def entries(stages, shift):
-            offset = shift * n + b - a  # column minus row in the permuted matrix
-            mask = (offset <= above) & (offset >= -below)
-            row = stages[:, None] * n + a[mask]
-            col = (stages[:, None] + shift) * n + b[mask]
-            return (col * rows + below + above + row - col).ravel(), mask, scale[mask]
-
-        stages = np.arange(n_stages)
-        self._lower = entries(stages[1:], -1)
-        self._diagonal = entries(stages, 0)
-        self._upper = entries(stages[:-1], 1)
-        # in-band entries that no block holds (two stages apart) are zero; the factorisation
-        # overwrites them, so they are cleared before each fill
-        col = np.arange(size)[:, None]
-        row = col + np.arange(-above, below + 1)[None, :]
-        inside = (row >= 0) & (row < size)
-        in_band = np.zeros(self._flat.size, dtype=bool)
-        in_band[(col * rows + below + above + row - col)[inside]] = True
-        in_band[np.concatenate([self._lower[0], self._diagonal[0], self._upper[0]])] = False
-        self._unheld = np.flatnonzero(in_band)
-        self.permutation = (stages[:, None] * n + np.asarray(order)[None, :]).ravel()
+        self._blocks = tuple(
+            (positions, taken, np.tile(scale[mask], taken.size // max(int(mask.sum()), 1))) for positions, taken, mask in blocks
+        )
         self._row_scale = np.tile(row_scale, n_stages)
         self._unknown_scale = np.tile(unknown_scale, n_stages)
 
@@ -79,13 +93,8 @@ class BandedSystem:
         lower[j] couples stage j to j-1 (lower[0] unused), upper[j] stage j to j+1."""
         flat = self._flat
         flat[self._unheld] = 0.0
-        positions, mask, scale = self._diagonal
-        flat[positions] = (diagonal[:, mask] * scale).ravel()
-        if diagonal.shape[0] > 1:
-            positions, mask, scale = self._lower
-            flat[positions] = (lower[1:, mask] * scale).ravel()
-            positions, mask, scale = self._upper
-            flat[positions] = (upper[:-1, mask] * scale).ravel()
+        for block, (positions, taken, scale) in zip((lower, diagonal, upper), self._blocks):
+            flat[positions] = block.reshape(-1)[taken] * scale
         if diagonal_shift:
             self.storage[self.below + self.above] += diagonal_shift
         self.rhs[:] = (rhs / self._row_scale)[self.permutation]

@@ -105,7 +105,6 @@ def _iterations(equations, linear, x, settings):
     step (one factorisation each) and, without a step, once converged; raises ConvergenceError
     after ``settings.max_iterations`` steps. ``linear`` is the column's BandedSystem."""
     rows = equations.row_scale_vector
-    is_flow = np.tile(np.r_[np.ones(2 * equations.c, bool), False], equations.n_stages)
     blocks = equations.empty_jacobian()
     f, props = _residual(equations, x)
     norm, size = _norms(f, rows)
@@ -122,7 +121,7 @@ def _iterations(equations, linear, x, settings):
             polish, polished_from, dt = polish - 1, norm, np.inf
         shift = 0.0 if dt >= settings.newton_time_step else 1.0 / dt
         step = linear.solve(*equations.jacobian(x, props, out=blocks), -f, shift)
-        x_new = _limited(x, step, is_flow, settings)
+        x_new = _limited(x, step, equations.n, settings)
         f_new, props_new = _residual(equations, x_new)
         norm_new, size_new = _norms(f_new, rows)
         if not np.isfinite(size_new) or size_new > settings.max_growth * size:
@@ -151,12 +150,11 @@ def _norms(f, rows):
         return float(np.max(np.abs(scaled))), float(np.sqrt(np.mean(scaled**2)))
 
 
-def _limited(x, step, is_flow, settings):
+def _limited(x, step, n, settings):
     """x + step with each flow kept above max_flow_shrink of its old value and each
-    temperature step clipped to max_temperature_step."""
-    new = x + step
-    floor = settings.max_flow_shrink * x
-    new[is_flow] = np.maximum(new[is_flow], floor[is_flow])
-    t_step = np.clip(step[~is_flow], -settings.max_temperature_step, settings.max_temperature_step)
-    new[~is_flow] = x[~is_flow] + t_step
-    return new
+    temperature step clipped to max_temperature_step (n unknowns per stage, temperature last)."""
+    old, new = x.reshape(-1, n), (x + step).reshape(-1, n)
+    np.maximum(new[:, :-1], settings.max_flow_shrink * old[:, :-1], out=new[:, :-1])
+    limit = settings.max_temperature_step
+    new[:, -1] = old[:, -1] + np.clip(step.reshape(-1, n)[:, -1], -limit, limit)
+    return new.reshape(-1)
