@@ -11,8 +11,8 @@ a bed section of its own HETP (given, or from Onda's coefficients, ``onda.py``).
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.optimize import brentq
 
+from ..numerics import brent_root
 from .errors import SizingInputError
 from .onda import hetp_from_transfer_units, onda_gas_coefficient, onda_liquid_coefficient, onda_wetted_area
 from .packing_data import find_packing
@@ -157,7 +157,7 @@ def design_diameter(properties, internals):
                 raise SizingInputError("diameter", f"stage {j + 1} would need a packed column above 100 m across")
         while excess(low) < 0.0:
             low /= 1.5
-        diameters[j] = brentq(excess, low, high, xtol=1e-13, rtol=1e-13)
+        diameters[j] = brent_root(excess, low, high, xtol=1e-13, rtol=1e-13)
     worst = int(np.argmax(diameters))
     return float(diameters[worst]), worst + 1
 

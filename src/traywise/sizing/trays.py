@@ -13,8 +13,8 @@ below 80-85 % of flood, the range where that chart gives little entrainment (com
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.optimize import brentq
 
+from ..numerics import brent_root
 from .errors import SizingInputError
 from .fair import (
     FLOW_PARAMETER_RANGE,
@@ -141,7 +141,7 @@ def design_diameter(properties, internals):
 def weir_length(diameter, downcomer_fraction):
     """Chord of a segmental downcomer taking ``downcomer_fraction`` of the column area [m]:
     segment area fraction (theta - sin theta)/(2 pi), chord D sin(theta/2)."""
-    theta = brentq(lambda a: (a - np.sin(a)) / (2.0 * np.pi) - downcomer_fraction, 1e-6, np.pi, xtol=1e-14)
+    theta = brent_root(lambda a: (a - np.sin(a)) / (2.0 * np.pi) - downcomer_fraction, 1e-6, np.pi, xtol=1e-14)
     return float(diameter * np.sin(theta / 2.0))
 
 
