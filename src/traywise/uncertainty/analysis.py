@@ -81,7 +81,8 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     correlations : sequence of (i, j, rho)
     design : design request, optional            Re-solved to its target in every sample
     n_samples : int; seed : int
-    processes : int                              Local worker processes (engine 'local')
+    processes : int                              Worker processes (engine 'local', or the local
+                                                 dask cluster started without a scheduler)
     engine : 'local' or 'dask'; scheduler : str, optional   Address of a dask scheduler; None
                                                  starts a local cluster on 127.0.0.1
     progress : callable, optional                progress(done, total)
@@ -110,7 +111,7 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     else:
         from .distributed import run_dask
 
-        results = run_dask(job, factors, scheduler=scheduler, progress=progress)
+        results = run_dask(job, factors, scheduler=scheduler, progress=progress, workers=processes)
     seconds = time.perf_counter() - began
     data = np.array([r[0] for r in results], dtype=float).reshape(n_samples, len(job.outputs))
     converged = np.array([r[1] for r in results], dtype=bool)
