@@ -122,6 +122,9 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     lead = design_output or f"outlet_ppmv:{model.names[key]}"
     column_of = [name for name, _ in job.outputs].index(lead)
     sentence = confidence_sentence(data[:, column_of], converged, design_output=design_output, key=model.names[key])
+    tables = [name for name, kind in zip(model.names, model.equilibrium) if kind == "table"]
+    if tables:
+        sentence = f"{sentence[:-1]}; the equilibrium table of {' and '.join(tables)} is not sampled."
     return UncertaintyResult(inputs, tuple(correlations), seed, n_samples, engine, scores, factors, job.outputs,
                              np.array(nominal, dtype=float), data, converged, tuple(r[2] for r in results),
                              summaries, design_output, model.names[key], sentence, seconds)
