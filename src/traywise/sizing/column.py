@@ -5,7 +5,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from .errors import SizingInputError
-from .packed import PackedInternals, packed_column_height, rate_packing
+from .packed import PackedInternals, design_and_rate, packed_column_height, rate_packing
 from .packed import design_diameter as packed_design_diameter
 from .stage_properties import MIXING_RULES, stage_properties
 from .trays import TrayInternals, rate_trays, tray_column_height
@@ -79,8 +79,11 @@ def size_column(solution, components, internals, *, key_component, diameter=None
         pressure_drop = float(hydraulics.pressure_drop.sum() * trays / n_stages)
         height, bed, beds, kind = tray_column_height(trays, internals), None, None, "trays"
     elif isinstance(internals, PackedInternals):
-        designed, stage = packed_design_diameter(properties, internals)
-        hydraulics = rate_packing(properties, internals, designed if diameter is None else diameter)
+        if diameter is None:
+            designed, stage, hydraulics = design_and_rate(properties, internals)
+        else:
+            designed, stage = packed_design_diameter(properties, internals)
+            hydraulics = rate_packing(properties, internals, diameter)
         trays, bed = None, hydraulics.bed_height
         height, beds = packed_column_height(bed, internals)
         pressure_drop, kind = float(hydraulics.pressure_drop.sum()), "packing"
