@@ -20,6 +20,7 @@ from .correlations import (
     stable_polynomial_antiderivative,
 )
 
+WATER_CAS = "7732-18-5"
 EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a component's own default model
 # Models a property model can also give a component: they need more than the component's data
 # (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
@@ -77,7 +78,7 @@ class VapourPressure:
         """(ln(Psat/Pa), dln(Psat)/dT [1/K]) at temperature [K]."""
         if self.form == "iapws_if97":
             return iapws_if97_saturation_pressure(temperature)
-        return dippr101(temperature, *self.coefficients)
+        return dippr101(temperature, *self.coefficients)[:2]
 
 
 @dataclass(frozen=True)
@@ -132,6 +133,12 @@ class Component:
     sources: dict = field(default_factory=dict, compare=False)
     notes: dict = field(default_factory=dict, compare=False)
     origin: str = "library"
+
+    @property
+    def is_water(self):
+        """True for water (CAS number 7732-18-5, or an inline component without a CAS number
+        named 'water'), the solvent several models single out."""
+        return self.cas == WATER_CAS or (not self.cas and self.matches("water"))
 
     def matches(self, text):
         """True when text names this component (name, alias, formula or CAS number; any case)."""

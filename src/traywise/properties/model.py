@@ -34,7 +34,7 @@ import numpy as np
 from ..errors import CaseError
 from .component import MODEL_KINDS
 from .constants import GAS_CONSTANT, T_REFERENCE
-from .correlations import stable_polynomial_antiderivative
+from .correlations import ln_henry_terms, solution_enthalpy_from_slope, stable_polynomial_antiderivative
 from .equilibrium_table import TINY
 from .liquid import AnchoredLiquid
 
@@ -113,27 +113,6 @@ class _StackedPolynomials:
         return value - self.integral_at_reference, cp
 
 
-def _henry_basis(temperature, terms):
-    """Basis of ``ln_henry`` and ``henry_solution_enthalpy`` for the coefficients ``terms``
-    (indices into a..f): array (4, n, len(terms)) whose product with the coefficients gives
-    ln H, d ln H/dT [1/K], dH_sol/R [K] and d(dH_sol/R)/dT [-] (same formulas, as a matrix)."""
-    t = temperature
-    inverse = 1.0 / t
-    columns = {
-        0: (1.0, 0.0, 0.0, 0.0),
-        1: (inverse, -inverse * inverse, 1.0, 0.0),
-        2: (np.log(t), inverse, -t, -1.0),
-        3: (t, 1.0, -t * t, -2.0 * t),
-        4: (inverse * inverse, -2.0 * inverse**3, 2.0 * inverse, -2.0 * inverse * inverse),
-        5: (t * t, 2.0 * t, -2.0 * t**3, -6.0 * t * t),
-    }
-    basis = np.empty((4, t.size, len(terms)))
-    for j, term in enumerate(terms):
-        for row, value in enumerate(columns[term]):
-            basis[row, :, j] = value
-    return basis
-
-
 class PropertyModel:
     """K-values and enthalpies for one set of components, built once per case.
 
@@ -208,6 +187,13 @@ class PropertyModel:
         if missing:
             raise CaseError(component.name, f"equilibrium model '{kind}' needs {', '.join(missing)}, which it lacks")
 
+    def component_index(self, key):
+        """Position of the component named ``key`` (name, alias, formula or CAS number)."""
+        for i, component in enumerate(self.components):
+            if component.matches(key):
+                return i
+        raise CaseError("key", f"'{key}' is not a component of the model; expected one of {', '.join(self.names)}")
+
     def _position(self, name, where):
         if name not in self.names:
             raise CaseError(where, f"'{name}' is not a component of the model; expected one of {', '.join(self.names)}")
@@ -228,7 +214,7 @@ class PropertyModel:
         outside = [self.names[i] for i in self.index["activity"] if i not in members]
         if outside:
             raise CaseError("activity", f"{', '.join(outside)} use model 'activity' but are not in the activity model")
-        water = [p for p, i in enumerate(members) if self.components[i].cas == "7732-18-5" or self.components[i].matches("water")]
+        water = [p for p, i in enumerate(members) if self.components[i].is_water]
         anchored = [(p, self.components[i].henry_in_water, self.components[i].vapour_pressure)
                     for p, i in enumerate(members) if self.equilibrium[i] == "activity"]
         liquid = AnchoredLiquid(activity, members, anchored, water[0] if water else None)
@@ -290,7 +276,8 @@ class PropertyModel:
         dh_liquid_dt = cp_vapour.copy()
         ln_p = np.log(p)[:, None]
         if idx["henry"].size:
-            ln_h, dln_h, dh_sol, ddh_sol = _henry_basis(t, self._henry_terms) @ self._henry
+            ln_h, dln_h, d2ln_h = ln_henry_terms(t, self._henry_terms).transpose(0, 2, 1) @ self._henry
+            dh_sol, ddh_sol = solution_enthalpy_from_slope(t[:, None], dln_h, d2ln_h)
             ln_k[:, idx["henry"]] = ln_h - ln_p
             dlnk_dt[:, idx["henry"]] = dln_h
             h_liquid[:, idx["henry"]] += GAS_CONSTANT * dh_sol
