@@ -7,7 +7,7 @@ from traywise.sizing.errors import SizingInputError
 from traywise.sizing.fair import fair_capacity_factor
 from traywise.sizing.trays import TrayInternals, design_diameter, rate_trays, weir_length
 
-from sizing_cases import demo_stage_properties
+from support.sizing_cases import demo_stage_properties
 
 
 @pytest.fixture
