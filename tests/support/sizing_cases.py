@@ -7,7 +7,7 @@ from traywise.case.load import load_case
 from traywise.mesh.newton import solve_column
 from traywise.sizing.stage_properties import stage_properties
 
-CASES = Path(__file__).resolve().parents[1] / "cases"
+CASES = Path(__file__).resolve().parents[2] / "cases"
 
 
 @functools.cache
