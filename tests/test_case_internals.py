@@ -57,3 +57,7 @@ def test_rating_a_too_small_diameter_warns_of_flooding(tmp_path):
     result = CliRunner().invoke(main, ["run", str(case), "--out", str(tmp_path / "out"), "--no-plots"])
     assert result.exit_code == 0, result.output
     assert re.search(r"sizing: stage [0-9, .]+: above 100 % of flood", result.output)
+
+
+def test_tray_spacing_chosen():
+    assert with_internals('tray_type = "sieve"\ntray_spacing = "chosen"\n').internals.internals.tray_spacing is None

@@ -72,3 +72,14 @@ def test_rating_at_the_design_diameter_returns_the_design_fraction(tray_stage_pr
 def test_bad_tray_input_names_the_quantity(key, value):
     with pytest.raises(SizingInputError, match=key):
         TrayInternals(**{key: value})
+
+
+def test_tray_spacing_chosen_from_the_diameter(tray_stage_properties):
+    from traywise.sizing.trays import choose_tray_spacing
+
+    chosen = choose_tray_spacing(tray_stage_properties, TrayInternals(tray_spacing=None))
+    assert chosen.tray_spacing == 0.45  # the demo scrubber is well below 1.5 m across
+    bigger = choose_tray_spacing(tray_stage_properties.scaled(gas=20.0, liquid=20.0), TrayInternals(tray_spacing=None))
+    assert bigger.tray_spacing == 0.6
+    assert design_diameter(tray_stage_properties, TrayInternals(tray_spacing=None))[0] == pytest.approx(
+        design_diameter(tray_stage_properties, TrayInternals(tray_spacing=0.45))[0])

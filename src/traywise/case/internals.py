@@ -49,7 +49,9 @@ def read_internals(top):
     for key in INTERNALS_KEYS:
         if key not in section:
             continue
-        if key in LENGTHS:
+        if key == "tray_spacing" and section.raw(key) == "chosen":
+            values[key] = None
+        elif key in LENGTHS:
             values[key] = section.quantity(key, "length")
         elif key in FRACTIONS:
             values[key] = section.fraction(key, open_high=False, high=10.0)

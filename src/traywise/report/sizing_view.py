@@ -93,6 +93,7 @@ def sizing_json(sizing):
 
 
 def _methods(sizing):
+    yield from sizing.notes
     if sizing.kind == "trays":
         yield ("flooding: Fair, Petro/Chem Eng. 33(10) (1961) 45, curve fit of Lygeros & Magoulas, Hydrocarbon "
                "Proc. 65(12) (1986) 43, with surface-tension, foaming and hole-area factors")

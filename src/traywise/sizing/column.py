@@ -8,7 +8,7 @@ from .errors import SizingInputError
 from .packed import PackedInternals, design_and_rate, packed_column_height, rate_packing
 from .packed import design_diameter as packed_design_diameter
 from .stage_properties import MIXING_RULES, stage_properties
-from .trays import TrayInternals, rate_trays, tray_column_height
+from .trays import TrayInternals, choose_tray_spacing, rate_trays, tray_column_height
 from .trays import design_diameter as tray_design_diameter
 
 
@@ -29,6 +29,7 @@ class ColumnSizing:
     pressure_drop : over all trays or the whole bed [Pa]
     properties : StageProperties the sizing used
     warnings : tuple of str
+    notes : tuple of str            choices made for the user (tray spacing)
     """
 
     kind: str
@@ -45,6 +46,7 @@ class ColumnSizing:
     pressure_drop: float
     properties: object
     warnings: tuple = ()
+    notes: tuple = ()
     mixing_rules: tuple = MIXING_RULES
 
     @property
@@ -70,8 +72,13 @@ def size_column(solution, components, internals, *, key_component, diameter=None
     overall_efficiency : float or None   trays = ceil(stages / efficiency) (trays only)
     """
     properties = stage_properties(solution, components, key_component)
-    n_stages = solution.n_stages
+    n_stages, notes = solution.n_stages, ()
     if isinstance(internals, TrayInternals):
+        chosen = internals.tray_spacing is None
+        internals = choose_tray_spacing(properties, internals, diameter)
+        if chosen:
+            notes += (f"tray spacing {internals.tray_spacing * 1e3:.0f} mm chosen for the diameter (450 mm below "
+                      "1.5 m across, else 600 mm; common practice)",)
         designed, stage = tray_design_diameter(properties, internals)
         hydraulics = rate_trays(properties, internals, designed if diameter is None else diameter)
         trays = n_stages if overall_efficiency is None else int(np.ceil(n_stages / overall_efficiency - 1e-9))
@@ -97,4 +104,5 @@ def size_column(solution, components, internals, *, key_component, diameter=None
         kind=kind, internals=internals, diameter=float(designed if diameter is None else diameter),
         rated=diameter is not None, design_diameter=float(designed), design_stage=stage, hydraulics=hydraulics, trays=trays, bed_height=bed,
         beds=beds, column_height=float(height), pressure_drop=pressure_drop, properties=properties, warnings=warnings,
+        notes=notes,
     )
