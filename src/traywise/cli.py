@@ -158,17 +158,26 @@ def _solve(ctx, case_file, quiet, verbose, *, target=None):
 
 
 def _size(case, solution):
-    """The column sized from the solution when the case has an [internals] table, else None;
-    the sizing's input errors are reported against the case file's [internals] keys."""
+    """(sizing, new solution or None): the column sized from the solution when the case has an
+    [internals] table, else (None, None); with ``pressure_drop_from_sizing`` the column solved again
+    at the stage pressures of its sized pressure drop. The sizing's input errors are reported
+    against the case file's [internals] keys."""
     if case.internals is None:
-        return None
+        return None, None
     from .errors import CaseError
     from .sizing.column import size_column
     from .sizing.errors import SizingInputError
 
+    given = case.internals
+    arguments = {"key_component": case.key_component, "diameter": given.diameter,
+                 "overall_efficiency": case.overall_efficiency}
     try:
-        return size_column(solution, case.model.components, case.internals.internals, key_component=case.key_component,
-                           diameter=case.internals.diameter, overall_efficiency=case.overall_efficiency)
+        if given.pressure_drop_from_sizing:
+            from .sizing.pressure_loop import size_with_stage_pressures
+
+            loop = size_with_stage_pressures(case.column, case.model, given.internals, start=solution, **arguments)
+            return loop.sizing, loop.solution
+        return size_column(solution, case.model.components, given.internals, **arguments), None
     except SizingInputError as error:
         raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
 
@@ -195,7 +204,11 @@ def run(ctx, case_file, out_dir, as_json, no_plots, quiet, verbose):
     from .report.outputs import results_json, write_outputs
     from .report.summary import summary_text
 
-    sizing = _size(case, solution)
+    sizing, resolved = _size(case, solution)
+    if resolved is not None:  # stage pressures from the sized pressure drop: a new solution
+        from .report.comparison_view import isothermal_comparison
+
+        solution, comparison = resolved, isothermal_comparison(case, resolved)
     record = write_outputs(target, case, solution, comparison, plots=case.plots and not no_plots, design=design,
                            sizing=sizing)
     if as_json:
