@@ -65,7 +65,7 @@ def test_rating_at_the_design_diameter_returns_the_design_fraction(tray_stage_pr
     rating = rate_trays(tray_stage_properties, internals, diameter)
     assert rating.fraction_of_flood.max() == pytest.approx(0.77, abs=1e-6)
     assert int(np.argmax(rating.fraction_of_flood)) + 1 == stage
-    assert np.all(rating.pressure_drop > 0.0)
+    assert np.all(rating.stage_pressure_drop > 0.0)
 
 
 @pytest.mark.parametrize("key, value", [("fraction_of_flood", 1.2), ("tray_spacing", 0.005), ("tray_type", "bubble cap")])

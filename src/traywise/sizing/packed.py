@@ -80,7 +80,7 @@ class PackedHydraulics:
     liquid_velocity: np.ndarray  # superficial [m/s]
     pressure_drop_per_height: np.ndarray  # [Pa/m]
     hetp: np.ndarray  # [m]
-    pressure_drop: np.ndarray  # over each stage's bed section [Pa]
+    stage_pressure_drop: np.ndarray  # over each stage's bed section [Pa]
     wetting_rate: np.ndarray  # [m3/(m s)]
     wetted_area: np.ndarray | None = None  # Onda [m2/m3]
     liquid_coefficient: np.ndarray | None = None  # Onda k_L [m/s]
@@ -243,7 +243,7 @@ def rate_packing(properties, internals, diameter, *, flooding=None):
     hydraulics = PackedHydraulics(
         internals=internals, diameter=float(diameter), fraction_of_flood=fraction, flooding_velocity=flood,
         gas_velocity=gas, liquid_velocity=liquid, pressure_drop_per_height=per_height, hetp=hetp,
-        pressure_drop=per_height * hetp, wetting_rate=wetting, wetted_area=wetted, liquid_coefficient=k_l,
+        stage_pressure_drop=per_height * hetp, wetting_rate=wetting, wetted_area=wetted, liquid_coefficient=k_l,
         gas_coefficient=k_g,
     )
     return _with_warnings(hydraulics)

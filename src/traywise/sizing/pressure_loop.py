@@ -38,7 +38,7 @@ def size_with_stage_pressures(column, model, internals, *, key_component, diamet
     for rounds in range(1, MAX_ROUNDS + 1):
         sizing = size_column(solution, model.components, internals, key_component=key_component, diameter=diameter,
                              overall_efficiency=overall_efficiency)
-        drop = sizing.pressure_drop / column.n_stages
+        drop = sizing.total_pressure_drop / column.n_stages
         if abs(drop - column.pressure_drop) <= tolerance * max(drop, 1.0):
             return PressureLoop(solution, sizing, rounds, column.pressure_drop)
         column = replace(column, pressure_drop=drop)

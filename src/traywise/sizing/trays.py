@@ -99,7 +99,7 @@ class TrayHydraulics:
     fraction_of_flood: np.ndarray
     flooding_velocity: np.ndarray  # net area [m/s]
     net_velocity: np.ndarray  # [m/s]
-    pressure_drop: np.ndarray  # per tray [Pa]
+    stage_pressure_drop: np.ndarray  # per tray [Pa]
     dry_head: np.ndarray  # [m liquid]
     liquid_head: np.ndarray  # clear liquid [m]
     weir_crest: np.ndarray  # [m]
@@ -194,7 +194,7 @@ def rate_trays(properties, internals, diameter):
     hydraulics = TrayHydraulics(
         internals=internals, diameter=float(diameter), downcomer_area_fraction=downcomer, weir_length=weir,
         fraction_of_flood=net_velocity / flood, flooding_velocity=flood, net_velocity=net_velocity,
-        pressure_drop=head * rho_l * GRAVITY, dry_head=dry, liquid_head=clear, weir_crest=crest,
+        stage_pressure_drop=head * rho_l * GRAVITY, dry_head=dry, liquid_head=clear, weir_crest=crest,
         weir_loading=loading, downcomer_backup=backup, downcomer_residence=residence, weep_froude=froude,
     )
     return _with_warnings(hydraulics, properties)

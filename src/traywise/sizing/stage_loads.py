@@ -40,7 +40,7 @@ MIXING_RULES = (
 
 
 @dataclass(frozen=True)
-class StageProperties:
+class StageLoads:
     """Arrays (N,), stage 1 at the top, SI.
 
     gas_mass_flow, liquid_mass_flow [kg/s]; gas_molar_flow, liquid_molar_flow [mol/s];
@@ -91,8 +91,8 @@ class StageProperties:
         return self.liquid_mass_flow / self.gas_mass_flow * np.sqrt(self.gas_density / self.liquid_density)
 
 
-def stage_properties(solution, components, key_component):
-    """StageProperties of a converged ``ColumnSolution``; ``components`` in the solution's order."""
+def stage_loads(solution, components, key_component):
+    """StageLoads of a converged ``ColumnSolution``; ``components`` in the solution's order."""
     from chemicals import Wilke_prefactored, Wilke_prefactors
 
     names = list(solution.component_names)
@@ -151,7 +151,7 @@ def stage_properties(solution, components, key_component):
     association = share @ (factors * molar_mass[liquid])
     liquid_diffusivity = wilke_chang_liquid_diffusivity(t, liquid_viscosity, association, boiling_volume)
 
-    return StageProperties(
+    return StageLoads(
         temperature=t, pressure=p,
         gas_molar_flow=solution.vapour_flow, liquid_molar_flow=solution.liquid_flow,
         gas_mass_flow=solution.vapour_flow * gas_molar_mass, liquid_mass_flow=solution.liquid_flow * liquid_molar_mass,
