@@ -105,7 +105,9 @@ def run_case(case, settings=RunSettings()):
 def complete_run(case, solution, *, design=None, settings=RunSettings()):
     """The ``CaseRun`` of a converged ``solution`` of ``case``: the sizing (when the case has an
     ``[internals]`` table; its input errors are the case's, ``CaseError``) and the side results."""
-    sizing = _size(case, solution)
+    sizing, resized = _size(case, solution)
+    if resized is not None:  # stage pressures from the sized pressure drop: a new solution
+        solution = resized
     notes = []
     comparison = kremser = xy = None
     with warnings.catch_warnings(record=True) as caught:
@@ -160,18 +162,26 @@ def _side(what, notes, compute):
 
 
 def _size(case, solution):
-    """The column sized from the solution when the case has an [internals] table, else None;
-    the sizing's input errors are reported against the case file's [internals] keys."""
-    internals = getattr(case, "internals", None)
-    if internals is None:
-        return None
+    """(sizing, new solution or None): the column sized from the solution when the case has an
+    [internals] table, else (None, None); with ``pressure_drop_from_sizing`` the column solved again
+    at the stage pressures of its sized pressure drop. The sizing's input errors are reported
+    against the case file's [internals] keys."""
+    given = getattr(case, "internals", None)
+    if given is None:
+        return None, None
     from .errors import CaseError
     from .sizing.column import size_column
     from .sizing.errors import SizingInputError
 
+    arguments = {"key_component": case.key_component, "diameter": given.diameter,
+                 "overall_efficiency": case.overall_efficiency}
     try:
-        return size_column(solution, case.model.components, internals.internals, key_component=case.key_component,
-                           diameter=internals.diameter, overall_efficiency=case.overall_efficiency)
+        if given.pressure_drop_from_sizing:
+            from .sizing.pressure_loop import size_with_stage_pressures
+
+            loop = size_with_stage_pressures(case.column, case.model, given.internals, start=solution, **arguments)
+            return loop.sizing, loop.solution
+        return size_column(solution, case.model.components, given.internals, **arguments), None
     except SizingInputError as error:
         raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
 
