@@ -17,6 +17,7 @@ from .column import read_column
 from .components import read_components
 from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
+from .gas_model import read_gas_model
 from .reader import Section, where
 from .sweep import SWEEP_KEYS, check_sweep_table
 
@@ -26,6 +27,7 @@ TOP_KEYS = (
     "components",
     "component",
     "liquid_model",
+    "gas_model",
     "solvent",
     "key_component",
     "solutes",
@@ -135,6 +137,8 @@ class _CaseBuilder:
         self._check_solvent_feed(liquid, solvent, column_input.top_pressure)
         side_flows = [stream.component_flows(model.molar_mass, solute_mask) for _, _, stream in column_input.side_feeds]
         column = self._column(column_input, gas, liquid, flows, side_flows)
+        gas_model, gas_warnings = read_gas_model(top, model, flows["gas_feed"], column.pressures, gas.temperature)
+        self.warnings.extend(gas_warnings)
         self._pressure_warnings(gas, liquid, column)
         self._other_warnings(solvent, column_input, column)
         report = top.table("report", REPORT_KEYS) or Section({}, "report", top.file)
@@ -160,6 +164,7 @@ class _CaseBuilder:
         }
         if components.liquid_model is not None:
             echo["liquid_model"] = components.liquid_model
+        echo["gas_model"] = gas_model
         if design is not None:
             echo["design"] = design.echo()
         return Case(

@@ -13,6 +13,7 @@ from .constants import GAS_CONSTANT, T_REFERENCE
 from .correlations import (
     dippr101,
     henry_solution_enthalpy,
+    iapws_henry,
     iapws_if97_saturation_pressure,
     ln_henry,
     offset_scale,
@@ -80,23 +81,37 @@ class VapourPressure:
         return dippr101(temperature, *self.coefficients)
 
 
+HENRY_FORMS = ("ln_h", "iapws_2004")
+
+
 @dataclass(frozen=True)
 class HenryConstant:
-    """Henry's-law constant in water, volatility form H = p_i/x_i [Pa]:
-    ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2 (coefficients a..f)."""
+    """Henry's-law constant in water, volatility form H = p_i/x_i [Pa], in one of two forms:
+
+    'ln_h'        ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2 (coefficients a..f);
+    'iapws_2004'  the IAPWS guideline's ln(H/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau)
+                  (coefficients A, B, C; ``correlations.iapws_henry``).
+    """
 
     coefficients: tuple
     t_min: float
     t_max: float
     source: str
+    form: str = "ln_h"
+
+    def terms(self, temperature):
+        """(ln(H/Pa), dln(H)/dT [1/K], dH_sol/R [K], d(dH_sol/R)/dT [-]) at temperature [K]."""
+        if self.form == "iapws_2004":
+            return iapws_henry(temperature, *self.coefficients)
+        return (*ln_henry(temperature, *self.coefficients), *henry_solution_enthalpy(temperature, *self.coefficients))
 
     def ln_constant(self, temperature):
         """(ln(H/Pa), dln(H)/dT [1/K])."""
-        return ln_henry(temperature, *self.coefficients)
+        return self.terms(temperature)[:2]
 
     def solution_enthalpy(self, temperature):
         """Enthalpy of solution implied by the temperature dependence (van 't Hoff) [J/mol]."""
-        return GAS_CONSTANT * henry_solution_enthalpy(temperature, *self.coefficients)[0]
+        return GAS_CONSTANT * self.terms(temperature)[2]
 
 
 @dataclass(frozen=True)
@@ -129,6 +144,10 @@ class Component:
     heat_of_vaporisation: Quantity | None = None  # J/mol at its temperature
     henry_in_water: HenryConstant | None = None
     melting_point: Quantity | None = None  # K
+    critical_temperature: Quantity | None = None  # K
+    critical_pressure: Quantity | None = None  # Pa
+    acentric_factor: Quantity | None = None  # -
+    partial_molar_volume: Quantity | None = None  # m3/mol at infinite dilution in water, at its temperature
     sources: dict = field(default_factory=dict, compare=False)
     notes: dict = field(default_factory=dict, compare=False)
     origin: str = "library"

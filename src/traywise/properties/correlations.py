@@ -155,3 +155,97 @@ def iapws_if97_saturation_pressure(temperature):
     ln_p = 4.0 * np.log(2.0 * c / denominator) + np.log(1.0e6)
     dln_p_dt = 4.0 * (dc / c - d_denominator / denominator) * dtheta_dt
     return ln_p, dln_p_dt
+
+
+# Saturation pressure of water, auxiliary equation of Wagner and Pruss: (a_i, exponent_i).
+# Source: W. Wagner, A. Pruss, J. Phys. Chem. Ref. Data 22 (1993) 783-787, eq. 1 (IAPWS Revised
+# Supplementary Release on Saturation Properties of Ordinary Water Substance, 1992).
+WAGNER_PRUSS_SATURATION = (
+    (-7.85951783, 1.0), (1.84408259, 1.5), (-11.7866497, 3.0),
+    (22.6807411, 3.5), (-15.9618719, 4.0), (1.80122502, 7.5),
+)
+WATER_CRITICAL_TEMPERATURE = 647.096  # K, IAPWS R6-95(2018)
+WATER_CRITICAL_PRESSURE = 22.064e6  # Pa, IAPWS R6-95(2018)
+
+
+def wagner_pruss_saturation_pressure(temperature):
+    """Saturation pressure of water, ln(p/pc) = (Tc/T) sum a_i tau**e_i, with two derivatives.
+
+    The equation the IAPWS Henry's-constant guideline uses for the solvent's vapour pressure p1*.
+
+    Returns (ln_p [-] with p in Pa, dln_p_dt [1/K], d2ln_p_dt2 [1/K**2]).
+
+    References
+    ----------
+    W. Wagner, A. Pruss, J. Phys. Chem. Ref. Data 22 (1993) 783, eq. 1.
+    """
+    t = np.asarray(temperature, dtype=float)
+    tc = WATER_CRITICAL_TEMPERATURE
+    tau = 1.0 - t / tc
+    s = ds = d2s = 0.0  # sum and its derivatives with respect to tau
+    for a, e in WAGNER_PRUSS_SATURATION:
+        s = s + a * tau**e
+        ds = ds + a * e * tau ** (e - 1.0)
+        d2s = d2s + (a * e * (e - 1.0) * tau ** (e - 2.0) if e != 1.0 else 0.0)
+    # ln(p/pc) = u s with u = tc/T; d/dT = -(1/tc) d/dtau for s; du/dT = -u/T
+    u = tc / t
+    ln_p = np.log(WATER_CRITICAL_PRESSURE) + u * s
+    dln_p = -u * s / t - u * ds / tc
+    d2ln_p = 2.0 * u * s / t**2 + 2.0 * u * ds / (t * tc) + u * d2s / tc**2
+    return ln_p, dln_p, d2ln_p
+
+
+# Above this temperature [K] (the equation ends at water's critical point, 647.096 K) the Henry's
+# constant continues with constant enthalpy of solution, so a solver probing hot trial profiles
+# gets finite values; any use above the component's t_max is warned anyway.
+IAPWS_HENRY_CAP = 640.0
+
+
+def iapws_henry(temperature, a, b, c):
+    """Henry's constant of a gas in water from the IAPWS guideline, with derivatives.
+
+    ln(kH/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau), Tr = T/Tc1, tau = 1 - Tr,
+    p1* the saturation pressure of water (Wagner and Pruss), kH = lim f_i/x_i (volatility form).
+
+    Parameters
+    ----------
+    temperature : array_like   Liquid temperature [K]; above IAPWS_HENRY_CAP continued with the
+        enthalpy of solution there (the equation itself ends at the critical point of water)
+    a, b, c : float or array   The guideline's A, B, C [-]
+
+    Returns
+    -------
+    (ln_h, dln_h_dt, dh_sol_r, ddh_sol_r_dt) : ndarrays   ln(kH/Pa) [-], its temperature
+        derivative [1/K], the enthalpy of solution per gas constant dH_sol/R = d ln kH/d(1/T) [K]
+        and its temperature derivative [-] (van 't Hoff, as ``henry_solution_enthalpy``).
+
+    References
+    ----------
+    R. Fernandez-Prini, J. L. Alvarez, A. H. Harvey, J. Phys. Chem. Ref. Data 32 (2003) 903-916,
+    eq. 15; IAPWS G7-04, Guideline on the Henry's constant and vapor-liquid distribution constant
+    for gases in H2O and D2O at high temperatures (2004).
+    """
+    t_given = np.asarray(temperature, dtype=float)
+    t = np.minimum(t_given, IAPWS_HENRY_CAP)
+    tc = WATER_CRITICAL_TEMPERATURE
+    tr = t / tc
+    tau = 1.0 - tr
+    e_tau = np.exp(tau)
+    f = a / tr + b * tau**0.355 / tr + c * tr**-0.41 * e_tau
+    df = (-a / tr**2 + b * (-0.355 * tau**-0.645 / tr - tau**0.355 / tr**2)
+          + c * e_tau * (-0.41 * tr**-1.41 - tr**-0.41))
+    d2f = (2.0 * a / tr**3
+           + b * (-0.355 * 0.645 * tau**-1.645 / tr + 0.71 * tau**-0.645 / tr**2 + 2.0 * tau**0.355 / tr**3)
+           + c * e_tau * (0.41 * 1.41 * tr**-2.41 + 0.82 * tr**-1.41 + tr**-0.41))
+    ln_p, dln_p, d2ln_p = wagner_pruss_saturation_pressure(t)
+    ln_h = ln_p + f
+    dln_h = dln_p + df / tc
+    d2ln_h = d2ln_p + d2f / tc**2
+    dh_sol_r = -t * t * dln_h
+    ddh_sol_r = -2.0 * t * dln_h - t * t * d2ln_h
+    above = t_given > IAPWS_HENRY_CAP  # van 't Hoff continuation with the slope at the cap
+    if np.any(above):
+        ln_h = np.where(above, ln_h + dh_sol_r * (1.0 / t_given - 1.0 / t), ln_h)
+        dln_h = np.where(above, -dh_sol_r / t_given**2, dln_h)
+        ddh_sol_r = np.where(above, 0.0, ddh_sol_r)
+    return ln_h, dln_h, dh_sol_r, ddh_sol_r

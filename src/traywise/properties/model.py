@@ -34,7 +34,7 @@ import numpy as np
 from ..errors import CaseError
 from .component import MODEL_KINDS
 from .constants import GAS_CONSTANT, T_REFERENCE
-from .correlations import stable_polynomial_antiderivative
+from .correlations import iapws_henry, stable_polynomial_antiderivative
 from .equilibrium_table import TINY
 from .liquid import AnchoredLiquid
 
@@ -159,7 +159,7 @@ class PropertyModel:
     the liquid, are understated.
     """
 
-    def __init__(self, components, equilibrium=None, *, activity=None, tables=None):
+    def __init__(self, components, equilibrium=None, *, activity=None, tables=None, gas_phase=None):
         self.components = tuple(components)
         kinds = tuple(equilibrium) if equilibrium is not None else tuple(c.equilibrium for c in components)
         if len(kinds) != len(self.components):
@@ -178,7 +178,11 @@ class PropertyModel:
         self._cp = _StackedPolynomials(
             [c.ideal_gas_cp for c in self.components] + [self.components[i].liquid_cp for i in liquid]
         )
-        henry = np.array([self.components[i].henry_in_water.coefficients for i in index["henry"]]).reshape(-1, 6).T
+        forms = np.array([self.components[i].henry_in_water.form for i in index["henry"]], dtype=object)
+        self._henry_polynomial = index["henry"][forms == "ln_h"]
+        self._henry_iapws = index["henry"][forms == "iapws_2004"]
+        self._iapws = np.array([self.components[i].henry_in_water.coefficients for i in self._henry_iapws]).reshape(-1, 3).T
+        henry = np.array([self.components[i].henry_in_water.coefficients for i in self._henry_polynomial]).reshape(-1, 6).T
         self._henry_terms = tuple(k for k in range(6) if k < 2 or np.any(henry[k]))  # a, b and any non-zero
         self._henry = henry[list(self._henry_terms)]
         self._liquid_offset = self._liquid_enthalpy_offsets(liquid)
@@ -191,6 +195,7 @@ class PropertyModel:
         self._activity_liquid = self._anchored_liquid(activity)
         self._table_models = self._prepared_tables()
         self.composition_dependent = self._activity_liquid is not None or bool(self._table_models)
+        self.gas_phase = gas_phase  # a gas_phase.GasPhase (real gas), or None for the ideal gas
 
     @staticmethod
     def _check(component, kind):
@@ -275,10 +280,12 @@ class PropertyModel:
         h, cp = self._cp.enthalpy(np.asarray(temperature, dtype=float))
         return h[:, : self.n_components], cp[:, : self.n_components]
 
-    def evaluate(self, temperature, pressure, liquid_mole_fractions=None):
+    def evaluate(self, temperature, pressure, liquid_mole_fractions=None, vapour_mole_fractions=None):
         """All stage properties for temperature (n,) [K], pressure (n,) [Pa] and, for the
         composition-dependent models, liquid mole fractions (n, c) [-] (default: the reference
-        liquid, see the class docstring; ignored by the ideal-solution models)."""
+        liquid, see the class docstring; ignored by the ideal-solution models). With a real gas
+        (``gas_phase``), vapour mole fractions (n, c) for its fugacity coefficients (default: its
+        reference composition)."""
         t = np.asarray(temperature, dtype=float).reshape(-1)
         p = np.broadcast_to(np.asarray(pressure, dtype=float).reshape(-1), t.shape)
         n, m, idx = t.size, self.n_components, self.index
@@ -289,12 +296,13 @@ class PropertyModel:
         h_liquid = h_vapour.copy()
         dh_liquid_dt = cp_vapour.copy()
         ln_p = np.log(p)[:, None]
-        if idx["henry"].size:
-            ln_h, dln_h, dh_sol, ddh_sol = _henry_basis(t, self._henry_terms) @ self._henry
-            ln_k[:, idx["henry"]] = ln_h - ln_p
-            dlnk_dt[:, idx["henry"]] = dln_h
-            h_liquid[:, idx["henry"]] += GAS_CONSTANT * dh_sol
-            dh_liquid_dt[:, idx["henry"]] += GAS_CONSTANT * ddh_sol
+        for henry, terms in ((self._henry_polynomial, self._polynomial_henry), (self._henry_iapws, self._iapws_henry)):
+            if henry.size:
+                ln_h, dln_h, dh_sol, ddh_sol = terms(t)
+                ln_k[:, henry] = ln_h - ln_p
+                dlnk_dt[:, henry] = dln_h
+                h_liquid[:, henry] += GAS_CONSTANT * dh_sol
+                dh_liquid_dt[:, henry] += GAS_CONSTANT * ddh_sol
         for j, i in enumerate(idx["raoult"]):
             ln_psat, dln_psat = self._vapour_pressures[j].ln_pressure(t)
             ln_k[:, i] = ln_psat - ln_p[:, 0]
@@ -314,10 +322,21 @@ class PropertyModel:
                 self._add_activity(props, t, ln_p, x)
             for i, (s, table) in self._table_models.items():
                 _add_table(props, t, ln_p, x, i, s, table)
+        if self.gas_phase is not None:
+            arrays = (ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt)
+            self.gas_phase.apply(t, p, arrays, vapour_mole_fractions)
         k = np.exp(ln_k)
         k[:, idx["nonvolatile"]] = 0.0
         k[:, idx["insoluble"]] = np.inf
         return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
+
+    def _polynomial_henry(self, t):
+        """ln H, d ln H/dT, dH_sol/R and its T-derivative of the 'ln_h' gases, each (n, g)."""
+        return _henry_basis(t, self._henry_terms) @ self._henry
+
+    def _iapws_henry(self, t):
+        """The same for the gases whose Henry's constant is the IAPWS guideline's, each (n, g)."""
+        return iapws_henry(t[:, None], *self._iapws)
 
     def _add_activity(self, props, t, ln_p, x):
         """Activity coefficients into ln K, excess enthalpies into h_liquid (in place)."""
@@ -366,6 +385,8 @@ class PropertyModel:
                 x = np.asarray(liquid_mole_fractions, dtype=float).reshape(-1, self.n_components)
                 ratios = x[:, i] / np.maximum(x[:, s], TINY)
             warnings.extend(table.range_warnings(self.names[i], temperatures, ratios))
+        if self.gas_phase is not None:
+            warnings.extend(self.gas_phase.range_warnings(temperatures))
         return warnings
 
 
