@@ -44,7 +44,7 @@ def test_a_fifty_point_sweep_writes_every_point(fifty):
     from matplotlib.image import imread
 
     folder, result = fifty
-    assert {p.name for p in folder.iterdir()} == {"sweep.csv", "sweep.png", "sweep.json", "sweep.md"}
+    assert {p.name for p in folder.iterdir()} == {"sweep.csv", "sweep.png", "sweep.json", "sweep.md", ".traywise-results"}
     rows = read_csv(folder)
     assert len(rows) == 50 and all(row["converged"] == "true" for row in rows)
     flows = [float(row["solvent_flow_mol_per_s"]) for row in rows]
@@ -131,6 +131,10 @@ def test_the_case_sweep_table_runs_without_options_and_replaces_its_own_folder(t
         result = invoke("sweep", DEMO, "--out", tmp_path / "demo", "--no-plots", "--quiet")
         assert result.exit_code == 0, result.output
     assert len(read_csv(tmp_path / "demo")) == 25  # sweep.points in the demo
+    (tmp_path / "demo" / "notes.txt").write_text("keep me")  # a file the user added: the folder is kept
+    result = invoke("sweep", DEMO, "--out", tmp_path / "demo", "--no-plots", "--quiet")
+    assert result.exit_code == 2 and "notes.txt" in result.stderr
+    assert (tmp_path / "demo" / "notes.txt").read_text() == "keep me" and len(read_csv(tmp_path / "demo")) == 25
 
 
 @pytest.mark.parametrize(

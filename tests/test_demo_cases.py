@@ -59,7 +59,7 @@ def demo_run(request, tmp_path_factory):
 def test_demo_runs_and_writes_every_output(demo_run):
     _, folder, result = demo_run
     assert "Results written to" in result.stdout
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md"} | FIGURES
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES
     assert not [p for p in folder.parent.iterdir() if p.name.startswith(".")]  # no temporary folder left
 
 
@@ -187,7 +187,7 @@ def test_entry_point_runs_a_demo_in_a_fresh_process(tmp_path):
                               capture_output=True, text=True, check=False)
     assert finished.returncode == 0, finished.stderr
     folder = tmp_path / "solvent-recovery-dryer-air-results"
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md"} | FIGURES
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES
     missing = subprocess.run(traywise_command() + ["run", "missing.toml"], cwd=tmp_path, env=env,
                              capture_output=True, text=True, check=False)
     assert missing.returncode == 2

@@ -20,7 +20,8 @@ from traywise.report.comparison_view import isothermal_comparison
 from traywise.report.folder import write_results_folder
 from traywise.report.markdown import markdown_report
 from traywise.report.outputs import write_outputs
-from traywise.report.results import RESULTS_KEYS, actual_trays
+from traywise.column import actual_trays
+from traywise.report.results import RESULTS_KEYS
 from traywise.report.summary import summary_text
 from traywise.report.tables import concentration, percent, text_table
 

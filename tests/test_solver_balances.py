@@ -5,7 +5,7 @@ import pytest
 
 from columns import library_model, water_column
 from traywise.column import Feed, SideDraw
-from traywise.errors import ConvergenceError
+from traywise.errors import ConvergenceError, UnphysicalSolution
 from traywise.mesh.newton import SolverSettings, solve_column
 
 AMMONIA_CASE = ("water", "ammonia", "nitrogen", "oxygen")
@@ -140,13 +140,13 @@ def test_non_convergence_raises_with_diagnostics():
     assert failure.value.residual > 1e-10
 
 
-def test_an_overcooled_column_is_flagged():
+def test_an_overcooled_column_is_refused():
     """A cooler that takes out more than the absorption releases drives the liquid below 0 degC:
-    the equations still solve, but the result must carry a warning, never pass as good."""
+    the equations still balance, but the state cannot exist and is refused, never passed as good."""
     model = library_model(*AMMONIA_CASE)
     gas = np.array([0.0, 0.05, 0.95 * 0.79, 0.95 * 0.21])
     duty = np.zeros(6)
     duty[3] = 6000.0  # W, several times the heat released
-    solution = solve_column(water_column(model, 6, gas=gas, solvent_flow=1.5, heat_removed=duty), model)
-    assert solution.temperature.min() < 273.15
-    assert any("would freeze" in warning for warning in solution.warnings)
+    with pytest.raises(UnphysicalSolution, match="frozen liquid") as refused:
+        solve_column(water_column(model, 6, gas=gas, solvent_flow=1.5, heat_removed=duty), model)
+    assert refused.value.stage is not None and refused.value.residual < 1e-10

@@ -34,6 +34,16 @@ class _Command(click.Command):
     """A command that turns traywise's deliberate errors into one line and an exit status."""
 
     def invoke(self, ctx):
+        import warnings
+
+        with warnings.catch_warnings(record=True) as caught:
+            warnings.simplefilter("default")  # each distinct warning once
+            result = self._invoke_translated(ctx)
+        for text in library_warnings(caught):
+            click.echo(f"traywise: warning: {text}", err=True)
+        return result
+
+    def _invoke_translated(self, ctx):
         from .errors import CaseError, ConvergenceError, PropertyRangeError, TargetNotReached
 
         try:
@@ -51,6 +61,18 @@ class _Command(click.Command):
 class _Group(click.Group):
     command_class = _Command
     group_class = type  # subgroups are _Group too
+
+
+def library_warnings(caught):
+    """Warnings a library raised during a command (a numpy RuntimeWarning, say), each once, as
+    sentences of ours naming where they arose; the results they accompany passed traywise's checks."""
+    texts = []
+    for record in caught:
+        text = (f"a library reported '{' '.join(str(record.message).split())}' ({record.category.__name__} in "
+                f"{record.filename}, line {record.lineno}); traywise's own checks passed, so the results stand")
+        if text not in texts:
+            texts.append(text)
+    return texts
 
 
 def _fail(ctx, message, status):
@@ -102,7 +124,7 @@ def _load(ctx, case_file, quiet, verbose, *, target=None):
     if target is not None:
         from .report.folder import check_replaceable
 
-        check_replaceable(target)
+        check_replaceable(target, protect=(case_file,))
     from .case import load_case
 
     return load_case(case_file)

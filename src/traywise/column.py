@@ -3,9 +3,11 @@
 Stages are numbered 1..N from the top. The solvent enters on stage 1 as liquid; the gas
 enters under stage N as vapour. SI units: mol/s, K, Pa, W. Validation of user input happens
 in ``traywise.case``; the checks here only guard the solver against impossible structures.
+Feeds and columns are immutable (their arrays are read-only copies) and compare by value.
 """
 
-from dataclasses import dataclass
+import math
+from dataclasses import dataclass, fields
 
 import numpy as np
 
@@ -13,8 +15,24 @@ PHASES = ("vapour", "liquid")
 MODES = ("adiabatic", "isothermal")
 
 
-@dataclass(frozen=True)
-class Feed:
+class _ByValue:
+    """Equality and hashing by field values, arrays compared element by element."""
+
+    def _key(self):
+        return tuple(
+            tuple(value.ravel().tolist()) + value.shape if isinstance(value, np.ndarray) else value
+            for value in (getattr(self, f.name) for f in fields(self))
+        )
+
+    def __eq__(self, other):
+        return type(other) is type(self) and self._key() == other._key()
+
+    def __hash__(self):
+        return hash(self._key())
+
+
+@dataclass(frozen=True, eq=False)
+class Feed(_ByValue):
     """A stream fed to ``stage`` (1-based) as ``phase``: component flows [mol/s] at
     ``temperature`` [K]. The gas feed enters stage N from below; the solvent feeds stage 1."""
 
@@ -22,6 +40,9 @@ class Feed:
     phase: str
     component_flows: np.ndarray
     temperature: float
+
+    def __post_init__(self):
+        object.__setattr__(self, "component_flows", _read_only(self.component_flows))
 
     @property
     def flow(self):
@@ -38,8 +59,8 @@ class SideDraw:
     fraction: float
 
 
-@dataclass(frozen=True)
-class Column:
+@dataclass(frozen=True, eq=False)
+class Column(_ByValue):
     """A tray absorber, ready to solve.
 
     Parameters
@@ -73,6 +94,8 @@ class Column:
         n = self.n_stages
         if n < 1:
             raise ValueError("a column needs at least one stage")
+        object.__setattr__(self, "extra_feeds", tuple(self.extra_feeds))
+        object.__setattr__(self, "side_draws", tuple(self.side_draws))
         object.__setattr__(self, "heat_removed", _per_stage(self.heat_removed, n, 0.0))
         object.__setattr__(self, "murphree", _per_stage(self.murphree, n, 1.0))
         if self.mode not in MODES:
@@ -117,9 +140,23 @@ class Column:
         return fractions
 
 
+def actual_trays(theoretical_stages, overall_efficiency):
+    """Whole trays for (fractional) theoretical stages at an overall efficiency E_o [-]:
+    ceil(N / E_o), with N / E_o rounded to 9 digits first so that rounding noise on a whole
+    number does not add a tray; None without an efficiency."""
+    if overall_efficiency is None:
+        return None
+    return math.ceil(round(theoretical_stages / overall_efficiency, 9))
+
+
 def _per_stage(value, n, default):
     if value is None:
-        return np.full(n, default, dtype=float)
-    array = np.broadcast_to(np.asarray(value, dtype=float), (n,)).copy()
+        return _read_only(np.full(n, default, dtype=float))
+    return _read_only(np.broadcast_to(np.asarray(value, dtype=float), (n,)))
+
+
+def _read_only(value):
+    """A read-only float copy of ``value``."""
+    array = np.array(value, dtype=float)
     array.setflags(write=False)
     return array

@@ -53,3 +53,13 @@ class TargetNotReached(TraywiseError, RuntimeError):
     """A design target that adjusting the chosen input cannot meet (the removal needs more than
     the largest solvent flow or stage count searched, a pinch, a temperature limit one cooler
     cannot hold); the message says what was reached instead and what to change."""
+
+
+class UnphysicalSolution(ConvergenceError):
+    """The stage equations converged, but to a state that cannot exist (a liquid below its
+    freezing point, temperatures far outside the property data's valid range); refused like a
+    non-convergence (exit 3), never reported as a result."""
+
+    def __init__(self, reason, *, iterations, residual, stage=None):
+        super().__init__(reason, iterations=iterations, residual=residual, stage=stage)
+        self.args = (f"{reason} (found after {iterations} iterations)",)

@@ -5,14 +5,19 @@ of solution up to 70 kJ/mol; Murphree efficiency 0.3 to 1; with and without inte
 3 bar; dry and humid gas. Solutes are library components whose Henry's constant at 298.15 K is
 kept and whose enthalpy of solution is replaced by a drawn value (dataclasses.replace), so the
 heat effects span the range; the solvent is library water, the carriers library nitrogen and
-oxygen. Solvent flows are drawn as absorption factors 0.7-3 on the most soluble solute.
+oxygen. Solvent flows are drawn as absorption factors 0.7-3 on the most soluble solute. An intercooler
+on the middle stage removes 10-50 % of the heat the same column releases without it (a duty
+drawn from the feed alone could exceed what is released and freeze the column, which the
+solver refuses).
 """
 
 import dataclasses
+from dataclasses import replace
 
 import numpy as np
 
 from traywise.column import Column, Feed
+from traywise.mesh.newton import solve_column
 from traywise.properties.inline import henry_from_reference
 from traywise.properties.library import find_component
 from traywise.properties.model import PropertyModel
@@ -55,9 +60,7 @@ def hard_case(seed):
     solvent_flow = float(np.clip(solvent_flow, 0.3 * gas_flow, 500.0 * gas_flow))
     efficiency = rng.uniform(0.3, 1.0)
     cooled = rng.random() < 0.4
-    heat_removed = np.zeros(n_stages)
-    if cooled:
-        heat_removed[n_stages // 2] = rng.uniform(0.1, 0.5) * total_solute * gas_flow * float(-heats.mean())
+    cooled_share = rng.uniform(0.1, 0.5) if cooled else 0.0  # drawn as before, so uncooled cases are unchanged
     solvent = np.zeros(len(components))
     solvent[0] = solvent_flow
     column = Column(
@@ -66,9 +69,12 @@ def hard_case(seed):
         Feed(n_stages, "vapour", gas_flow * y, t_gas),
         pressure,
         pressure_drop=rng.uniform(0.0, 800.0),
-        heat_removed=heat_removed,
         murphree=efficiency,
     )
+    if cooled:
+        heat_removed = np.zeros(n_stages)
+        heat_removed[n_stages // 2] = cooled_share * solve_column(column, model).heat.released
+        column = replace(column, heat_removed=heat_removed)
     description = (
         f"N={n_stages} solutes={'+'.join(names)} y={total_solute:.2f} dH={heats.min() / 1e3:.0f}kJ/mol "
         f"E={efficiency:.2f} P={pressure / 1e5:.2f}bar L/G={solvent_flow:.2f} "

@@ -13,13 +13,14 @@ from dataclasses import dataclass
 
 from scipy.optimize import brentq
 
-from ..errors import CaseError, ConvergenceError, PinchError
+from ..errors import CaseError, ConvergenceError, PinchError, TargetNotReached, UnphysicalSolution
 from ..mesh.newton import SolverSettings, solve_column
 from .variables import UNITS, with_cooler_duty, with_solvent_flow, with_stages
 
 MAX_SOLVENT_FACTOR = 2.0**14  # the solvent flow is searched within this factor of the given one
 MAX_STAGES = 200  # stage-count searches stop here
 MAX_DUTY_DOUBLINGS = 40
+DUTY_RESOLUTION = 1e-3  # relative; how closely the duty at which the liquid freezes is located
 X_TOLERANCE = 1e-12  # Brent's tolerance on the (log) variable, relative
 
 
@@ -76,7 +77,7 @@ class _Solver:
             solution = solve_column(column, self.model, settings=self.settings, start=start)
         except ConvergenceError as failure:
             self.iterations += failure.iterations
-            raise ConvergenceError(
+            raise type(failure)(
                 f"design loop at {label}: {failure.reason}",
                 iterations=failure.iterations,
                 residual=failure.residual,
@@ -236,7 +237,11 @@ def cooler_duty_for_limit(column, model, limit, *, stage, settings=SolverSetting
         heat_capacity = float(solve.last.liquid_out @ cp)  # W/K
         low, high = 0.0, max(heat_capacity, 1e-12) * excess
         for _ in range(MAX_DUTY_DOUBLINGS):
-            if shortfall(high) <= 0.0:
+            try:
+                if shortfall(high) <= 0.0:
+                    break
+            except UnphysicalSolution as refused:
+                high = _below_freezing(shortfall, low, high, limit, stage, solve, refused)
                 break
             low, high = high, 2.0 * high
         else:
@@ -249,6 +254,25 @@ def cooler_duty_for_limit(column, model, limit, *, stage, settings=SolverSetting
     designed = with_cooler_duty(column, duty, stage=stage)
     solution = solve(designed, f"{duty:.6g} W on stage {stage}")
     return _result(limit, "cooler_duty", duty, designed, solution, solve)
+
+
+def _below_freezing(shortfall, low, high, limit, stage, solve, refused):
+    """A duty in (low, high] that holds the limit with a physical column, where ``low`` is too
+    hot and ``high`` gives an impossible state (``refused``, e.g. a frozen liquid): bisected
+    until found; ``TargetNotReached`` when the column reaches an impossible state first."""
+    while high - low > DUTY_RESOLUTION * high:
+        middle = 0.5 * (low + high)
+        try:
+            if shortfall(middle) <= 0.0:
+                return middle
+            low = middle
+        except UnphysicalSolution as failure:
+            high, refused = middle, failure
+    raise TargetNotReached(
+        f"{limit.describe()} cannot be held by a cooler on stage {stage}: up to {low:.6g} W the column still gives "
+        f"{limit.describe(limit.reached(solve.last))}, and from {high:.6g} W on it has no physical state "
+        f"({refused.reason.removeprefix('design loop at ')}); cool another stage or the feeds"
+    )
 
 
 def _bracket(shortfall, step, reach):

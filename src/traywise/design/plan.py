@@ -152,7 +152,7 @@ def _step(name):
     try:
         yield
     except ConvergenceError as failure:
-        raise ConvergenceError(
+        raise type(failure)(
             f"{name}: {failure.reason}", iterations=failure.iterations, residual=failure.residual, stage=failure.stage
         ) from failure
     except CaseError as failure:

@@ -11,11 +11,11 @@ absorber correlation at the mean of the top and bottom temperatures of the theor
 1992, ch. 7).
 """
 
-import math
 from dataclasses import dataclass, replace
 
 import numpy as np
 
+from ..column import actual_trays as whole_trays
 from ..errors import CaseError
 from ..mesh.newton import SolverSettings
 from .adjust import MAX_STAGES, stages_for_target
@@ -67,12 +67,11 @@ class TrayDesign:
 def actual_trays(theoretical_stages, overall_efficiency):
     """Whole trays for fractional theoretical stages at an overall efficiency: ceil(N / E_o).
 
-    N / E_o is rounded to 9 digits first, so that rounding noise on an exact whole number does
-    not add a tray.
+    See ``traywise.column.actual_trays``; here the efficiency must be given.
     """
     if not 0.0 < overall_efficiency <= 1.0:
         raise CaseError("overall_efficiency", f"expected 0 < E_o <= 1, found {overall_efficiency!r}")
-    return math.ceil(round(theoretical_stages / overall_efficiency, 9))
+    return whole_trays(theoretical_stages, overall_efficiency)
 
 
 def tray_design(

@@ -7,13 +7,17 @@ removal the rigorous solution reaches, and what outlet would it have predicted w
 the column has. The verdict thresholds are our own judgement (common practice has no single
 number): the isothermal design 'held' when its stage count is within 10 % (or half a stage) of
 the rigorous one and its predicted outlet of the key solute within 25 % of the rigorous outlet.
+
+The comparison never fails a run: where the classic method cannot be applied to the column (the
+key absorbed completely, stripped from the solvent, or a curve Y*(X) that never reaches the
+gas inlet), that is its result, with the reason in ``Comparison.reason``.
 """
 
 from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import ConvergenceError, PinchError
+from ..errors import PinchError, TraywiseError
 from .design import inert_basis_design
 
 STAGE_TOLERANCE = (0.10, 0.5)  # relative, absolute [stages]
@@ -49,6 +53,8 @@ class Comparison:
     max_temperature_rise : hottest stage minus the isothermal temperature [K]
     hottest_stage : 1-based
     held : the plain verdict; verdict : one sentence saying why
+    reason : why the classic method gives no stage count for the rigorous removal (a pinch, or
+        why it cannot be applied), None when it gives one
     """
 
     key: str
@@ -62,6 +68,7 @@ class Comparison:
     hottest_stage: int
     held: bool
     verdict: str
+    reason: str | None = None
 
     @property
     def stage_difference(self):
@@ -102,18 +109,38 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
         pressure=pressure,
     )
     k = names.index(key)
-    try:
-        design = inert_basis_design(model, key, target_fraction_absorbed=float(solution.fraction_absorbed[k]), **common)
-        isothermal_stages = design.theoretical_stages
-    except PinchError:
-        design, isothermal_stages = None, None
+    design, isothermal_stages = None, None
+    reason = _not_applicable(key, float(solution.fraction_absorbed[k]))
+    if reason is None:
+        try:
+            design = inert_basis_design(model, key, target_fraction_absorbed=float(solution.fraction_absorbed[k]), **common)
+            isothermal_stages = design.theoretical_stages
+        except PinchError:
+            reason = f"the isothermal design cannot reach the rigorous removal of {key} at all (pinch)"
+        except TraywiseError as error:
+            reason = f"the isothermal inert-basis method cannot be applied to the removal of {key} ({error})"
     indices = [names.index(name) for name in solutes] if solutes is not None else _solute_indices(solution, solvent_index)
     solutes = tuple(_solute(solution, model, i, stages, common) for i in indices)
     rise = float(solution.temperature.max() - temperature)
-    held, verdict = _verdict(key, stages, isothermal_stages, solutes, rise)
+    held, verdict = _verdict(key, stages, isothermal_stages, solutes, rise, reason)
     return Comparison(
-        key, temperature, pressure, stages, isothermal_stages, design, solutes, rise, solution.hottest_stage, held, verdict
+        key, temperature, pressure, stages, isothermal_stages, design, solutes, rise, solution.hottest_stage, held, verdict,
+        reason,
     )
+
+
+def _not_applicable(key, fraction_absorbed):
+    """Why the classic design cannot be asked for the rigorous removal ``fraction_absorbed`` of
+    the key, or None when it can."""
+    if not np.isfinite(fraction_absorbed):
+        return f"the rigorous fraction absorbed of {key} is not defined"
+    if fraction_absorbed <= 0.0:
+        return (f"the rigorous column strips {key} from the solvent (fraction absorbed {fraction_absorbed:.4g}); "
+                "the inert-basis absorber design does not apply")
+    if fraction_absorbed >= 1.0:
+        return (f"the rigorous column absorbs all of the {key} (the fraction absorbed rounds to 1), which the stepped "
+                "design reaches only with infinitely many stages; no stage count to compare")
+    return None
 
 
 def _solute_indices(solution, solvent_index):
@@ -129,16 +156,16 @@ def _solute(solution, model, i, stages, common):
         # stepped from the bottom: Y*(X) is evaluated directly, never inverted (one property
         # evaluation a stage); for a whole number of stages both ends give the same outlet
         rating = inert_basis_design(model, name, n_stages=stages, start="bottom", **common)
-    except (PinchError, ConvergenceError):  # pinched, or no outlet found for a barely absorbed gas
+    except TraywiseError:  # pinched, no outlet found for a barely absorbed gas, or a curve that cannot be stepped
         return SoluteComparison(name, rigorous_y, None, float(solution.fraction_absorbed[i]), None)
     y_out = rating.gas_ratio_out / (1.0 + rating.gas_ratio_out)  # key over key + inert at the top
     return SoluteComparison(name, rigorous_y, y_out, float(solution.fraction_absorbed[i]), rating.fraction_absorbed)
 
 
-def _verdict(key, stages, isothermal_stages, solutes, rise):
+def _verdict(key, stages, isothermal_stages, solutes, rise, reason):
     caution = f"; the column runs up to {rise:.1f} K above the isothermal temperature" if rise > NOTABLE_RISE else ""
     if isothermal_stages is None:
-        return False, f"did not hold: the isothermal design cannot reach the rigorous removal of {key} at all (pinch){caution}"
+        return False, f"did not hold: {reason}{caution}"
     relative, absolute = STAGE_TOLERANCE
     stage_ok = abs(isothermal_stages - stages) <= max(absolute, relative * stages)
     key_solute = next((s for s in solutes if s.name == key), None)

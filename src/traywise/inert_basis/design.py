@@ -24,13 +24,13 @@ Treybal, Mass-Transfer Operations, 3rd ed., McGraw-Hill 1980, ch. 8 (operating l
 ratios for one component transferred, minimum liquid-gas ratio, tangent pinch).
 """
 
-import math
 from dataclasses import dataclass
 
 import numpy as np
 
 from .equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium, mole_ratio_equilibrium
 from .equilibrium_curve import component_index as _component_index
+from ..column import actual_trays
 from ..errors import CaseError
 from .stepping import StageStepping, minimum_liquid_to_gas_ratio, outlet_for_stages, step_stages
 
@@ -178,7 +178,7 @@ def inert_basis_design(
         theoretical_stages=stages,
         overall_efficiency=overall_efficiency,
         # rounded to 9 digits first so that rounding noise on a whole N / E does not add a tray
-        actual_trays=None if overall_efficiency is None else math.ceil(round(stages / overall_efficiency, 9)),
+        actual_trays=actual_trays(stages, overall_efficiency),
         stepping=stepping,
     )
 

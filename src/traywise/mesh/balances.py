@@ -3,12 +3,13 @@ where the heat went; builds the ``ColumnSolution`` or refuses with ``Convergence
 
 import numpy as np
 
-from ..errors import ConvergenceError
+from ..errors import ConvergenceError, UnphysicalSolution
 from .solution import ColumnSolution, Convergence, HeatBreakdown
 
 SUMMATION_TOLERANCE = 1e-6  # |sum K x - 1| allowed on any stage
 COMPONENT_CLOSURE = 1e-9  # relative, per component with a feed
 ENERGY_CLOSURE = 1e-7  # relative to the enthalpy throughput
+RANGE_MARGIN = 50.0  # K; a stage farther than this outside a correlation's valid range is refused
 METHOD = "Naphtali-Sandholm Newton with pseudo-transient continuation (Kelley & Keyes 1998)"
 
 
@@ -18,6 +19,7 @@ def build_solution(equations, x, iterations, norm, tolerance):
     v, l, t = (a.copy() for a in equations.split(x))
     props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True))
     _check_physical(equations, v, l, props, iterations, norm)
+    _check_state(model, l, t, iterations, norm)
     heat_removed = equations.heat_removed(v, l, props)
     component_closure, energy_closure = _closure(equations, v, l, props, heat_removed)
     if np.any(component_closure > COMPONENT_CLOSURE) or energy_closure > ENERGY_CLOSURE:
@@ -39,8 +41,7 @@ def build_solution(equations, x, iterations, norm, tolerance):
         heat_removed=heat_removed,
         heat=_heat_breakdown(equations, v, l, t, heat_removed),
         convergence=convergence,
-        warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]], l / l.sum(axis=1, keepdims=True)))
-        + _frozen(model, l, t),
+        warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]], l / l.sum(axis=1, keepdims=True))),
     )
 
 
@@ -125,19 +126,41 @@ def _heat_breakdown(equations, v, l, t, heat_removed):
     return HeatBreakdown(released, gas_heating, liquid_heating, evaporation, coolers, other)
 
 
-def _frozen(model, l, t):
-    """Warnings for stages colder than the melting point of a liquid-forming component that
-    makes up most of their liquid (an overcooled column: the liquid would freeze)."""
-    warnings = []
+def _check_state(model, l, t, iterations, norm):
+    """Refuse a converged state that cannot exist: a stage colder than the melting point of a
+    component that makes up most of its liquid (the liquid would freeze; the lowering of the
+    freezing point by dissolved solutes is not modelled), or stage temperatures more than
+    ``RANGE_MARGIN`` outside the valid range of a correlation the model evaluates (milder
+    excursions are extrapolated and warned about)."""
     x_l = l / l.sum(axis=1, keepdims=True)
     for i, component in enumerate(model.components):
         if component.melting_point is None:
             continue
         cold = np.flatnonzero((t < component.melting_point.value) & (x_l[:, i] > 0.5))
         if cold.size:
-            warnings.append(
-                f"stages {cold[0] + 1}-{cold[-1] + 1}: liquid at {t[cold].min() - 273.15:.1f} degC, below the melting "
-                f"point of {component.name} ({component.melting_point.value - 273.15:.1f} degC): it would freeze; "
-                "remove less heat"
+            raise UnphysicalSolution(
+                f"the stage equations lead only to a frozen liquid ({_stages(cold)} at down to "
+                f"{t[cold].min() - 273.15:.1f} degC, below the melting point of {component.name}, "
+                f"{component.melting_point.value - 273.15:.1f} degC): remove less heat or feed warmer streams",
+                iterations=iterations,
+                residual=norm,
+                stage=int(cold[np.argmin(t[cold])]) + 1,
             )
-    return tuple(warnings)
+    t_low, t_high = float(t.min()), float(t.max())
+    for name, label, t_min, t_max in model.correlation_ranges():
+        if t_low < t_min - RANGE_MARGIN or t_high > t_max + RANGE_MARGIN:
+            stage = int(np.argmin(t) if t_low < t_min - RANGE_MARGIN else np.argmax(t)) + 1
+            raise UnphysicalSolution(
+                f"the stage equations lead to {t[stage - 1] - 273.15:.1f} degC on stage {stage}, more than "
+                f"{RANGE_MARGIN:.0f} K outside the valid range of the {label} of {name} "
+                f"({t_min - 273.15:.1f} to {t_max - 273.15:.1f} degC): no result is given that far from the data",
+                iterations=iterations,
+                residual=norm,
+                stage=stage,
+            )
+
+
+def _stages(indices):
+    """'stage 3' or 'stages 3-7' for sorted 0-based stage indices."""
+    first, last = indices[0] + 1, indices[-1] + 1
+    return f"stage {first}" if first == last else f"stages {first}-{last}"

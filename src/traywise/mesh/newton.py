@@ -11,7 +11,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import ConvergenceError
+from ..errors import ConvergenceError, UnphysicalSolution
 from .balances import build_solution
 from .banded import solve_block_tridiagonal
 from .equations import StageEquations
@@ -82,11 +82,12 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
             turn += 1
         except ConvergenceError as failure:
             runs.remove(run)
-            last = failure
+            if not isinstance(last, UnphysicalSolution):  # a state refused says more than a non-convergence
+                last = failure
         if total >= settings.solo_iterations and starts:  # the other starts join (estimates built lazily)
             runs.extend(_iterations(equations, make(), settings) for make in starts)
             starts = []
-    raise ConvergenceError(last.reason, iterations=total, residual=last.residual, stage=last.stage)
+    raise type(last)(last.reason, iterations=total, residual=last.residual, stage=last.stage)
 
 
 def _iterations(equations, x, settings):

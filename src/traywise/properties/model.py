@@ -359,12 +359,9 @@ class PropertyModel:
         n = t.size
         props.dlnk_dx.reshape(n, -1)[:, self._member_pairs] += dphi_dx.reshape(n, -1)
 
-    def range_warnings(self, temperatures, liquid_mole_fractions=None):
-        """Plain-language warnings for correlations used outside their valid temperature range,
-        and for equilibrium tables used outside their temperatures or (given the liquid mole
-        fractions (n, c) of the stages) their loadings."""
-        t_low, t_high = float(np.min(temperatures)), float(np.max(temperatures))
-        warnings = []
+    def correlation_ranges(self):
+        """(component name, property label, t_min [K], t_max [K]) of every temperature
+        correlation the model evaluates."""
         for component, kind in zip(self.components, self.equilibrium):
             used = [("ideal-gas heat capacity", component.ideal_gas_cp)]
             if kind in ("henry", "activity"):
@@ -373,12 +370,19 @@ class PropertyModel:
                 used.append(("liquid heat capacity", component.liquid_cp))
             if kind in ("raoult", "activity"):
                 used.append(("vapour pressure", component.vapour_pressure))
-            for label, correlation in used:
-                if t_low < correlation.t_min - 1e-9 or t_high > correlation.t_max + 1e-9:
-                    warnings.append(
-                        f"{component.name}: {label} used from {t_low:.1f} K to {t_high:.1f} K, outside its "
-                        f"valid range {correlation.t_min:.1f}-{correlation.t_max:.1f} K (extrapolated)"
-                    )
+            yield from ((component.name, label, c.t_min, c.t_max) for label, c in used)
+
+    def range_warnings(self, temperatures, liquid_mole_fractions=None):
+        """Plain-language warnings for correlations used outside their valid temperature range,
+        and for equilibrium tables used outside their temperatures or (given the liquid mole
+        fractions (n, c) of the stages) their loadings."""
+        t_low, t_high = float(np.min(temperatures)), float(np.max(temperatures))
+        warnings = [
+            f"{name}: {label} used from {t_low:.1f} K to {t_high:.1f} K, outside its "
+            f"valid range {t_min:.1f}-{t_max:.1f} K (extrapolated)"
+            for name, label, t_min, t_max in self.correlation_ranges()
+            if t_low < t_min - 1e-9 or t_high > t_max + 1e-9
+        ]
         for i, (s, table) in self._table_models.items():
             ratios = None
             if liquid_mole_fractions is not None:

@@ -51,6 +51,7 @@ def comparison_json(record):
         "hottest_stage": int(record.hottest_stage),
         "isothermal_assumption_held": bool(record.held),
         "verdict": record.verdict,
+        "reason": record.reason,
         "inert_basis_design": None if design is None else {
             "k_value": _optional(design.k_value),
             "liquid_to_gas_ratio": float(design.liquid_to_gas_ratio),
@@ -72,7 +73,7 @@ def comparison_rows(comparison):
         (
             f"theoretical stages for the {comparison['key_component']} removal",
             number(comparison["theoretical_stages_rigorous"]),
-            "pinched (unreachable)" if stages is None else number(stages),
+            "none (see the verdict)" if stages is None else number(stages),
         ),
         (
             "maximum temperature rise [K]",

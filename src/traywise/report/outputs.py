@@ -8,7 +8,7 @@ import json
 
 from .comparison_view import comparison_json, xy_design
 from .design_view import design_json
-from .folder import write_results_folder
+from .folder import MARKER, write_results_folder
 from .markdown import markdown_report
 from .results import results_record
 from .stages import component_labels, write_stages_csv
@@ -40,7 +40,7 @@ def write_outputs(target, case, solution, comparison, *, plots=True, design=None
 
             figures = write_plots(folder, solution, comparison, xy_design(case, solution, comparison))
         record = results_record(
-            case, solution, comparison_json(comparison), [RESULTS_FILE, STAGES_FILE, REPORT_FILE, *figures],
+            case, solution, comparison_json(comparison), [RESULTS_FILE, STAGES_FILE, REPORT_FILE, MARKER, *figures],
             design=None if design is None else design_json(design),
             design_warnings=() if design is None else design.warnings,
         )
@@ -48,7 +48,7 @@ def write_outputs(target, case, solution, comparison, *, plots=True, design=None
         (folder / RESULTS_FILE).write_text(results_json(record), encoding="utf-8")
         written["record"] = record
 
-    write_results_folder(target, write_files)
+    write_results_folder(target, write_files, protect=() if case.path is None else (case.path,))
     return written["record"]
 
 

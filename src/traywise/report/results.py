@@ -13,6 +13,7 @@ import math
 import numpy as np
 
 from .. import __version__
+from ..column import actual_trays
 from .cautions import SAFETY_CAUTIONS
 
 RESULTS_KEYS = {
@@ -113,6 +114,7 @@ RESULTS_KEYS = {
     "isothermal_comparison.hottest_stage": "1-based",
     "isothermal_comparison.isothermal_assumption_held": "the plain verdict (true or false)",
     "isothermal_comparison.verdict": "one sentence saying why",
+    "isothermal_comparison.reason": "why the isothermal method gives no stage count for the rigorous removal (a pinch, or why it cannot be applied: the key absorbed completely or stripped, an equilibrium curve that never reaches the gas inlet), or null when it gives one",
     "isothermal_comparison.inert_basis_design": "the isothermal design for the rigorous removal of the key solute (K-value, L'/V', its minimum, terminal mole ratios, stages), or null when it pinches",
     "design": "the design of a case with a [design] table (cases/README.md); null without one",
     "design.adjusted": "the input adjusted: 'solvent_flow', 'stages' or 'cooler_duty'",
@@ -253,14 +255,6 @@ def results_record(case, solution, comparison_json, files, *, design=None, desig
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
-
-
-def actual_trays(n_stages, overall_efficiency):
-    """ceil(N / E), or None without an overall efficiency; rounded to 9 digits first so that
-    rounding noise on a whole N / E does not add a tray."""
-    if overall_efficiency is None:
-        return None
-    return math.ceil(round(n_stages / overall_efficiency, 9))
 
 
 def property_sources(component, equilibrium_model, *, activity=None, table=None):

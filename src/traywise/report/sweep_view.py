@@ -14,7 +14,7 @@ import math
 from .. import __version__
 from ..properties.constants import ZERO_CELSIUS
 from .cautions import SAFETY_CAUTIONS, safety_one_line
-from .folder import write_results_folder
+from .folder import MARKER, write_results_folder
 from .results import plain
 from .tables import SECONDS_PER_HOUR, markdown_table, percent, text_table
 
@@ -43,7 +43,7 @@ def write_sweep(target, case, request, table, *, plots=True):
     written = {}
 
     def write_files(folder):
-        files = [CSV_FILE, RECORD_FILE, REPORT_FILE]
+        files = [CSV_FILE, RECORD_FILE, REPORT_FILE, MARKER]
         headers, rows = csv_table(request, table)
         with open(folder / CSV_FILE, "w", newline="", encoding="utf-8") as stream:
             writer = csv.writer(stream)
@@ -60,7 +60,7 @@ def write_sweep(target, case, request, table, *, plots=True):
         (folder / RECORD_FILE).write_text(json.dumps(record, indent=2, allow_nan=False) + "\n", encoding="utf-8")
         written["record"] = record
 
-    write_results_folder(target, write_files)
+    write_results_folder(target, write_files, protect=() if case.path is None else (case.path,))
     return written["record"]
 
 

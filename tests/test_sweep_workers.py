@@ -1,0 +1,73 @@
+"""Worker processes of a parallel sweep end with the process that started them, however it
+ends: here by SIGKILL, which no handler in the parent can catch."""
+
+import os
+import signal
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+import pytest
+
+pytestmark = pytest.mark.skipif(not Path("/proc/self/stat").exists(), reason="reads process parents from /proc")
+
+SWEEP = """
+import numpy as np
+from traywise.column import Column, Feed
+from traywise.design.sweep import sweep
+from traywise.properties.library import find_component
+from traywise.properties.model import PropertyModel
+
+model = PropertyModel([find_component(n) for n in ("water", "ammonia", "nitrogen")])
+column = Column(40, Feed(1, "liquid", np.array([2.0, 0.0, 0.0]), 298.15),
+                Feed(40, "vapour", np.array([0.01, 0.15, 0.84]), 313.15), 1.5e5)
+print("started", flush=True)
+sweep(column, model, variable="solvent_flow", values=np.linspace(1.0, 5.0, 4000),
+      outputs=["max_temperature"], processes=2)
+"""
+
+
+def _children(pid):
+    found = []
+    for entry in Path("/proc").iterdir():
+        if entry.name.isdigit():
+            try:
+                fields = (entry / "stat").read_text().rsplit(")", 1)[1].split()
+            except OSError:
+                continue
+            if int(fields[1]) == pid and fields[0] != "Z":
+                found.append(int(entry.name))
+    return found
+
+
+def _alive(pid):
+    try:
+        state = Path(f"/proc/{pid}/stat").read_text().rsplit(")", 1)[1].split()[0]
+    except OSError:
+        return False
+    return state != "Z"
+
+
+def test_workers_end_when_the_parent_is_killed():
+    parent = subprocess.Popen([sys.executable, "-c", SWEEP], stdout=subprocess.PIPE, text=True)
+    workers = []
+    try:
+        assert parent.stdout.readline().strip() == "started"
+        deadline = time.monotonic() + 60.0
+        while len(workers) < 2 and time.monotonic() < deadline:
+            time.sleep(0.1)
+            workers = _children(parent.pid)
+        assert len(workers) == 2, "the sweep did not start its two workers"
+        parent.send_signal(signal.SIGKILL)
+        parent.wait(timeout=10)
+        deadline = time.monotonic() + 10.0
+        while any(_alive(w) for w in workers) and time.monotonic() < deadline:
+            time.sleep(0.1)
+        assert not any(_alive(w) for w in workers), "workers outlived their parent"
+    finally:
+        parent.kill()
+        parent.wait()
+        for worker in workers:
+            if _alive(worker):
+                os.kill(worker, signal.SIGKILL)
