@@ -35,6 +35,8 @@ DEMOS = {
 # What a designed demo may warn about: the design's own findings, which are what it shows.
 DESIGN_FINDINGS = ("pinch inside the column", "trays by ")
 FIGURES = {"temperature_profile.png", "composition_profiles.png", "xy_diagram.png", "heat_balance.png"}
+SIZED_FILES = {"hydraulics.csv", "hydraulics.png"}  # demos with an [internals] table
+SIZED_DEMOS = {"ammonia-recovery": "trays", "sour-gas-water-wash": "packing"}
 BALANCE_TOLERANCE = 1e-9  # relative, per component: the solver's own acceptance limit (mesh/balances.py)
 
 
@@ -59,7 +61,8 @@ def demo_run(request, tmp_path_factory):
 def test_demo_runs_and_writes_every_output(demo_run):
     _, folder, result = demo_run
     assert "Results written to" in result.stdout
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES
+    sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES | sized
     assert not [p for p in folder.parent.iterdir() if p.name.startswith(".")]  # no temporary folder left
 
 
@@ -187,8 +190,27 @@ def test_entry_point_runs_a_demo_in_a_fresh_process(tmp_path):
                               capture_output=True, text=True, check=False)
     assert finished.returncode == 0, finished.stderr
     folder = tmp_path / "solvent-recovery-dryer-air-results"
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES
+    sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES | sized
     missing = subprocess.run(traywise_command() + ["run", "missing.toml"], cwd=tmp_path, env=env,
                              capture_output=True, text=True, check=False)
     assert missing.returncode == 2
     assert len(missing.stderr.strip().splitlines()) == 1 and "Traceback" not in missing.stderr
+
+
+def test_demo_sizing_tray_and_packed_columns(demo_run):
+    """At least one tray column and one packed column among the demos are sized; a designed
+    column's worst stage sits at the design fraction of flood."""
+    path, folder, result = demo_run
+    sizing = strict_json(folder / "results.json")["sizing"]
+    if path.stem not in SIZED_DEMOS:
+        assert sizing is None
+        return
+    assert sizing["kind"] == SIZED_DEMOS[path.stem] and sizing["mode"] == "design"
+    assert sizing["worst_fraction_of_flood"] == pytest.approx(sizing["fraction_of_flood_design"], abs=1e-6)
+    assert sizing["worst_stage"] == sizing["design_stage"]
+    assert "Column diameter" in result.stdout
+    assert "## Equipment datasheet" in (folder / "report.md").read_text(encoding="utf-8")
+    with open(folder / "hydraulics.csv", newline="", encoding="utf-8") as stream:
+        rows = list(csv.DictReader(stream))
+    assert len(rows) == len(sizing["stages"]["fraction_of_flood"])

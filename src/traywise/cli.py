@@ -157,6 +157,22 @@ def _solve(ctx, case_file, quiet, verbose, *, target=None):
     return case, solution, comparison, design
 
 
+def _size(case, solution):
+    """The column sized from the solution when the case has an [internals] table, else None;
+    the sizing's input errors are reported against the case file's [internals] keys."""
+    if case.internals is None:
+        return None
+    from .errors import CaseError
+    from .sizing.column import size_column
+    from .sizing.errors import SizingInputError
+
+    try:
+        return size_column(solution, case.model.components, case.internals.internals, key_component=case.key_component,
+                           diameter=case.internals.diameter, overall_efficiency=case.overall_efficiency)
+    except SizingInputError as error:
+        raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
+
+
 def _echo_warnings(record):
     for warning in record["warnings"]:
         click.echo(f"traywise: warning: {warning}", err=True)
@@ -179,7 +195,9 @@ def run(ctx, case_file, out_dir, as_json, no_plots, quiet, verbose):
     from .report.outputs import results_json, write_outputs
     from .report.summary import summary_text
 
-    record = write_outputs(target, case, solution, comparison, plots=case.plots and not no_plots, design=design)
+    sizing = _size(case, solution)
+    record = write_outputs(target, case, solution, comparison, plots=case.plots and not no_plots, design=design,
+                           sizing=sizing)
     if as_json:
         click.echo(results_json(record), nl=False)
     elif not quiet:

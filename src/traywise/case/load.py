@@ -18,6 +18,7 @@ from .components import read_components
 from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
 from .gas_model import read_gas_model
+from .internals import read_internals
 from .reader import Section, where
 from .sweep import SWEEP_KEYS, check_sweep_table
 
@@ -37,6 +38,7 @@ TOP_KEYS = (
     "report",
     "design",
     "sweep",
+    "internals",
 )
 REPORT_KEYS = ("plots", "xy_solute")
 LIQUID_KINDS = ("raoult", "nonvolatile")  # equilibrium models of components that can be the solvent
@@ -62,6 +64,7 @@ class Case:
     echo : dict                     Every input in SI, units in the key names (for results.json)
     design : DesignInput or None    The ``[design]`` table (case/design.py)
     sweep_table : dict or None      The ``[sweep]`` table as written, checked (case/sweep.py)
+    internals : InternalsInput or None   The ``[internals]`` table (case/internals.py): what to size
     source : str                    The case's name in error messages (usually the file name)
     """
 
@@ -82,6 +85,7 @@ class Case:
     design: object = None
     sweep_table: dict | None = None
     source: str = "<case>"
+    internals: object = None
 
 
 def load_case(path):
@@ -147,6 +151,7 @@ class _CaseBuilder:
         design = read_design(top, model=model, column_input=column_input, key=key, gas_flows=flows["gas_feed"],
                              solvent=solvent)
         sweep = top.table("sweep", SWEEP_KEYS)
+        internals = read_internals(top)
         names = model.names
         echo = {
             "title": title,
@@ -167,6 +172,8 @@ class _CaseBuilder:
         echo["gas_model"] = gas_model
         if design is not None:
             echo["design"] = design.echo()
+        if internals is not None:
+            echo["internals"] = internals.echo
         return Case(
             path=self.path,
             title=title,
@@ -185,6 +192,7 @@ class _CaseBuilder:
             design=design,
             sweep_table=None if sweep is None else sweep.data,
             source=top.file,
+            internals=internals,
         )
 
     # -- roles of the components ----------------------------------------------------------------

@@ -69,6 +69,7 @@ KINDS = {
     "henry_volatility": ("pascal * meter ** 3 / mole", "Henry's constant as partial pressure over concentration", '"0.016 atm*L/mol"'),
     "henry_solubility": ("mole / meter ** 3 / pascal", "Henry's constant as concentration over partial pressure", '"59 M/atm"'),
     "fraction": ("dimensionless", "a plain number or fraction", '"0.7" or "70 %"'),
+    "length": ("meter", "a length", '"600 mm" or "0.6 m"'),
 }
 # What a value that fits none of the kinds asked for is, in words (first compatible entry wins).
 _FOUND = (

@@ -25,7 +25,7 @@ from chemicals.identifiers import search_chemical
 from ..properties.constants import T_REFERENCE
 from ..properties.library import library_directory
 from . import binary as binary_kij
-from . import tables
+from . import tables, transport
 from .critical import critical_tables
 from .partial_volumes import partial_volume_fields
 from .toml_text import component_text
@@ -53,7 +53,7 @@ HEADER = (
 )
 TABLE_ORDER = ("molar_mass", "melting_point", "critical_temperature", "critical_pressure", "acentric_factor",
                "ideal_gas_cp", "liquid_cp", "vapour_pressure", "heat_of_vaporisation", "henry_in_water",
-               "partial_molar_volume_in_water")
+               "partial_molar_volume_in_water") + transport.TABLE_ORDER
 
 
 def default_directory():
@@ -87,6 +87,7 @@ def build_component(text):
                      vapour_pressure=tables.vapour_pressure(cas), heat_of_vaporisation=tables.heat_of_vaporisation(cas))
     if cas != tables.WATER:
         found["henry_in_water"] = tables.henry_in_water(cas)
+    found.update(transport.transport_tables(cas, hill, liquid_at_25c))  # for sizing only
     equilibrium = _equilibrium(name, cas, found)
     found.update({key: tables.Table(*table) for key, table in critical_tables(cas).items()})
     volume = partial_volume_fields(cas) if found.get("henry_in_water") is not None else None

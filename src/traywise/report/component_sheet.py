@@ -106,4 +106,23 @@ def _properties(component):
         record = c.partial_molar_volume
         found.append(("partial_molar_volume_in_water", "partial molar volume at infinite dilution in water",
                       [f"{record.value * 1e6:.1f} cm3/mol at {record.temperature:.2f} K"], record.source))
+    return found + _transport(component)
+
+
+def _transport(component):
+    """The sizing tables (properties/transport.py): curves with their 25 degC value, and scalars."""
+    from ..properties.transport import CURVES, transport_data
+
+    data, found = transport_data(component), []
+    for key, unit in CURVES.items():
+        curve = getattr(data, key)
+        if curve is not None:
+            body = ["stable polynomial in s = (2T - t_max - t_min)/(t_max - t_min)", _valid(curve),
+                    f"at 298.15 K: {float(curve(T_REFERENCE)):.5g} {unit}"]
+            found.append((key, f"{key.replace('_', ' ')} (for sizing)", body, curve.source))
+    for key, heading, unit in (("diffusion_volume", "Fuller diffusion volume (for sizing)", ""),
+                               ("boiling_molar_volume", "molar volume at the normal boiling point (for sizing)", " m3/mol")):
+        value = getattr(data, key)
+        if value is not None:
+            found.append((key, heading, [f"{value:.5g}{unit}"], data.citations[key]))
     return found

@@ -21,6 +21,7 @@ from .sections import (
 )
 from .comparison_view import verdict_line
 from .design_view import design_lines, trays_table
+from .sizing_view import sizing_lines, sizing_markdown
 from .tables import markdown_table
 
 FIGURE_TITLES = {
@@ -43,8 +44,9 @@ def markdown_report(results):
         blocks += ["## Notes", case["notes"]]
     blocks += [
         "## Summary",
-        _bullets([*column_lines(results), key_line(results), temperature_line(results), verdict_line(results["isothermal_comparison"]) + "."]),
+        _bullets([*column_lines(results), *sizing_lines(results), key_line(results), temperature_line(results), verdict_line(results["isothermal_comparison"]) + "."]),
         *_design(results),
+        *sizing_markdown(results),
         "## Safety cautions",
         _bullets(SAFETY_CAUTIONS),
         "## Inputs (as read, in SI units)",

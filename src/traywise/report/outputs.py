@@ -11,6 +11,7 @@ from .design_view import design_json
 from .folder import MARKER, write_results_folder
 from .markdown import markdown_report
 from .results import results_record
+from .sizing_view import sizing_json, write_sizing_files
 from .stages import component_labels, write_stages_csv
 
 RESULTS_FILE = "results.json"
@@ -18,7 +19,7 @@ STAGES_FILE = "stages.csv"
 REPORT_FILE = "report.md"
 
 
-def write_outputs(target, case, solution, comparison, *, plots=True, design=None):
+def write_outputs(target, case, solution, comparison, *, plots=True, design=None, sizing=None):
     """Write the results folder ``target``; return the results record it holds.
 
     Parameters
@@ -29,6 +30,7 @@ def write_outputs(target, case, solution, comparison, *, plots=True, design=None
     comparison : traywise.inert_basis.comparison.Comparison
     plots : bool             Draw the PNG figures
     design : DesignOutcome, optional   The design whose column ``solution`` solves
+    sizing : ColumnSizing, optional    The column sized from ``solution`` (hydraulics.csv and plot)
     """
     written = {}
 
@@ -39,10 +41,12 @@ def write_outputs(target, case, solution, comparison, *, plots=True, design=None
             from .plots import write_plots
 
             figures = write_plots(folder, solution, comparison, xy_design(case, solution, comparison))
+        figures += write_sizing_files(folder, sizing, plots=plots)
         record = results_record(
             case, solution, comparison_json(comparison), [RESULTS_FILE, STAGES_FILE, REPORT_FILE, MARKER, *figures],
             design=None if design is None else design_json(design),
             design_warnings=() if design is None else design.warnings,
+            sizing=None if sizing is None else sizing_json(sizing),
         )
         (folder / REPORT_FILE).write_text(markdown_report(record), encoding="utf-8")
         (folder / RESULTS_FILE).write_text(results_json(record), encoding="utf-8")

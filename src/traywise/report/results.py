@@ -15,6 +15,7 @@ import numpy as np
 from .. import __version__
 from ..column import actual_trays
 from .cautions import SAFETY_CAUTIONS
+from .sizing_view import SIZING_KEYS
 
 RESULTS_KEYS = {
     "software": "name and version of the program that wrote the file",
@@ -166,6 +167,7 @@ RESULTS_KEYS = {
     "design.trays[].trays_by_murphree_efficiency": "fewest trays with that E_MV meeting the target, solved rigorously [-]",
     "design.trays[].stripping_factor": "K V / L of the key solute, mean over the theoretical stages [-]",
     "design.trays[].oconnell_group": "K M_L mu_L / rho_L of O'Connell's correlation [cP ft3/lbmol], or null",
+    **SIZING_KEYS,
     "property_sources": "per component name: property -> full citation of the data used, the liquid's activity model and equilibrium tables included",
     "warnings": "warnings from the case and the solution (list of text)",
     "files": "the files of the results folder",
@@ -173,7 +175,7 @@ RESULTS_KEYS = {
 }
 
 
-def results_record(case, solution, comparison_json, files, *, design=None, design_warnings=()):
+def results_record(case, solution, comparison_json, files, *, design=None, design_warnings=(), sizing=None):
     """The results record (a JSON-ready dict) of one solved case.
 
     Parameters
@@ -185,6 +187,7 @@ def results_record(case, solution, comparison_json, files, *, design=None, desig
     files : list of str              File names of the results folder
     design : dict, optional          From ``design_view.design_json``, when the case was designed
     design_warnings : sequence of str   The design's warnings, added to the record's
+    sizing : dict, optional          From ``sizing_view.sizing_json``, when the case has [internals]
     """
     names = list(solution.component_names)
     column = solution.column
@@ -249,9 +252,11 @@ def results_record(case, solution, comparison_json, files, *, design=None, desig
         },
         "isothermal_comparison": comparison_json,
         "design": design,
+        "sizing": sizing,
         "property_sources": {c.name: property_sources(c, kind, **_liquid_data(case.model, c.name))
                              for c, kind in zip(case.model.components, case.model.equilibrium)},
-        "warnings": [*case.warnings, *solution.warnings, *design_warnings],
+        "warnings": [*case.warnings, *solution.warnings, *design_warnings,
+                     *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))],
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }

@@ -7,6 +7,7 @@ property sources).
 
 from .cautions import SAFETY_ONE_LINE
 from .design_view import design_lines, trays_table
+from .sizing_view import sizing_lines
 from .sections import (
     column_lines,
     comparison_table,
@@ -28,6 +29,8 @@ def summary_text(results, *, verbose=False, folder=None):
     parts.append("\n".join([*column_lines(results), *convergence_lines(results)]))
     if results["design"] is not None:
         parts.append(design_text(results))
+    if results.get("sizing") is not None:
+        parts.append("\n".join(sizing_lines(results)))
     parts.append(text_table(*stream_table(results)))
     parts.append(text_table(*component_table(results)))
     parts.append("\n".join([key_line(results), temperature_line(results)]))

@@ -1,0 +1,67 @@
+"""The ``[internals]`` table: trays or packing to size (or rate) the column for (cases/README.md).
+
+Read into the sizing layer's own objects (``traywise.sizing.trays.TrayInternals`` or
+``traywise.sizing.packed.PackedInternals``) plus an optional given diameter; the sizing's range
+checks are reported against the case-file key they concern.
+"""
+
+from dataclasses import dataclass
+
+TRAY_KEYS = ("tray_type", "tray_spacing", "weir_height", "hole_area_fraction", "hole_diameter", "foaming_factor",
+             "orifice_coefficient", "aeration_factor", "downcomer_area_fraction")
+PACKING_KEYS = ("packing", "hetp", "pressure_drop_method", "max_bed_height", "redistributor_space")
+COMMON_KEYS = ("fraction_of_flood", "diameter", "top_space", "bottom_space")
+INTERNALS_KEYS = TRAY_KEYS + PACKING_KEYS + COMMON_KEYS
+LENGTHS = ("tray_spacing", "weir_height", "hole_diameter", "hetp", "max_bed_height", "redistributor_space",
+           "top_space", "bottom_space", "diameter")
+FRACTIONS = ("hole_area_fraction", "foaming_factor", "orifice_coefficient", "aeration_factor",
+             "downcomer_area_fraction", "fraction_of_flood")
+
+
+@dataclass(frozen=True)
+class InternalsInput:
+    """internals : TrayInternals or PackedInternals; diameter : given diameter [m] (rating) or None;
+    echo : the table in SI, units in the key names (for results.json)."""
+
+    internals: object
+    diameter: float | None
+    echo: dict
+
+
+def read_internals(top):
+    """The ``[internals]`` table of the top-level Section as an InternalsInput, or None when absent."""
+    section = top.table("internals", INTERNALS_KEYS)
+    if section is None:
+        return None
+    from ..sizing.errors import SizingInputError
+    from ..sizing.packed import PackedInternals
+    from ..sizing.trays import TrayInternals
+
+    trays, packed = "tray_type" in section, "packing" in section
+    if trays == packed:
+        section.fail(None, "give either tray_type (\"sieve\" or \"valve\") or packing (a name in the packing data file), not "
+                     + ("both" if trays else "neither"))
+    wrong = [key for key in (PACKING_KEYS if trays else TRAY_KEYS) if key in section]
+    if wrong:
+        section.fail(wrong[0], f"is a {'packing' if trays else 'tray'} key; this table describes "
+                     f"{'trays' if trays else 'packing'}")
+    values = {}
+    for key in INTERNALS_KEYS:
+        if key not in section:
+            continue
+        if key in LENGTHS:
+            values[key] = section.quantity(key, "length")
+        elif key in FRACTIONS:
+            values[key] = section.fraction(key, open_high=False, high=10.0)
+        else:
+            values[key] = section.text(key)
+    diameter = values.pop("diameter", None)
+    if diameter is not None and not 0.05 <= diameter <= 20.0:
+        section.fail("diameter", f"found {diameter:g} m; expected 0.05-20 m")
+    try:
+        internals = TrayInternals(**values) if trays else PackedInternals(**values)
+    except SizingInputError as error:
+        section.fail(error.quantity if error.quantity in INTERNALS_KEYS else None, error.message)
+    echo = {(f"{key}_m" if key in LENGTHS else key): value for key, value in values.items()}
+    echo["diameter_m"] = diameter
+    return InternalsInput(internals, diameter, echo)

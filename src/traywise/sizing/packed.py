@@ -1,0 +1,230 @@
+"""Packed columns (random and structured): diameter for a fraction of flood, bed height from the
+stages by HETP, and per-stage hydraulics (rating at a diameter).
+
+Flooding: Stichlmair, Bravo & Fair, through ``fluids.packed_tower.Stichlmair_flood`` (the gas
+velocity at flood at each stage's liquid rate). The fraction of flood is the gas velocity over
+that flooding velocity at the same liquid velocity. Pressure drop: Stichlmair's irrigated bed
+(``Stichlmair_wet``) or Robbins (``fluids.packed_tower.Robbins``). Each theoretical stage gets
+a bed section of its own HETP (given, or from Onda's coefficients, ``onda.py``).
+"""
+
+from dataclasses import dataclass, field
+
+import numpy as np
+from scipy.optimize import brentq
+
+from .errors import SizingInputError
+from .onda import hetp_from_transfer_units, onda_gas_coefficient, onda_liquid_coefficient, onda_wetted_area
+from .packing_data import find_packing
+
+PRESSURE_DROP_METHODS = ("stichlmair", "robbins")
+# Minimum wetting rate, liquid volume flow per perimeter of packing surface [m3/(m s)]: 0.08 m3/(m h)
+# for packings below 75 mm (Morris & Jackson, Absorption Towers, Butterworths (1953); recalled from memory).
+MINIMUM_WETTING_RATE = 0.08 / 3600.0
+MAX_BED_HEIGHT = 6.0  # m between liquid redistributors (common practice for random packings)
+FLOODED = 1e6  # fraction-of-flood excess used where the flooding model has no solution (deep in flood)
+PRESSURE_DROP_HIGH = 1200.0  # Pa/m; above about 1.2 kPa/m packings run near flood (common practice)
+
+
+@dataclass(frozen=True)
+class PackedInternals:
+    """Packing choices, SI. Defaults are common practice.
+
+    packing : name in the packing data file (``packings.toml``)
+    fraction_of_flood : design approach to flood [-], 0 < f < 1
+    hetp : [m] or None (Onda's coefficients; random packings only)
+    pressure_drop_method : 'stichlmair' or 'robbins'
+    max_bed_height : [m] between redistributors
+    redistributor_space, top_space, bottom_space : allowances [m]
+    """
+
+    packing: str
+    fraction_of_flood: float = 0.7
+    hetp: float | None = None
+    pressure_drop_method: str = "stichlmair"
+    max_bed_height: float = MAX_BED_HEIGHT
+    redistributor_space: float = 1.0
+    top_space: float = 1.5
+    bottom_space: float = 2.0
+
+    def __post_init__(self):
+        packing = find_packing(self.packing)
+        if not 0.0 < self.fraction_of_flood < 1.0:
+            raise SizingInputError("fraction_of_flood", f"must lie between 0 and 1 (0.7 is common for packings), found {self.fraction_of_flood:g}")
+        if self.hetp is not None and not 0.05 <= self.hetp <= 5.0:
+            raise SizingInputError("hetp", f"must lie between 0.05 and 5 m, found {self.hetp:g}")
+        if self.hetp is None and packing.type == "structured":
+            raise SizingInputError("hetp", f"'{self.packing}' is a structured packing: Onda's correlation does not apply; give the HETP")
+        if self.pressure_drop_method not in PRESSURE_DROP_METHODS:
+            raise SizingInputError("pressure_drop_method", f"must be one of {PRESSURE_DROP_METHODS}, found {self.pressure_drop_method!r}")
+        if self.pressure_drop_method == "robbins" and packing.robbins_fpd is None:
+            raise SizingInputError("pressure_drop_method", f"'{self.packing}' has no Robbins packing factor in the packing data file")
+        for name in ("max_bed_height", "redistributor_space", "top_space", "bottom_space"):
+            if not getattr(self, name) > 0.0:
+                raise SizingInputError(name, f"must be positive, found {getattr(self, name):g}")
+
+    @property
+    def data(self):
+        return find_packing(self.packing)
+
+
+@dataclass(frozen=True)
+class PackedHydraulics:
+    """Per-stage rating of a packed column at ``diameter`` (arrays (N,), SI)."""
+
+    internals: PackedInternals
+    diameter: float
+    fraction_of_flood: np.ndarray
+    flooding_velocity: np.ndarray  # gas, superficial [m/s]
+    gas_velocity: np.ndarray  # superficial [m/s]
+    liquid_velocity: np.ndarray  # superficial [m/s]
+    pressure_drop_per_height: np.ndarray  # [Pa/m]
+    hetp: np.ndarray  # [m]
+    pressure_drop: np.ndarray  # over each stage's bed section [Pa]
+    wetting_rate: np.ndarray  # [m3/(m s)]
+    wetted_area: np.ndarray | None = None  # Onda [m2/m3]
+    liquid_coefficient: np.ndarray | None = None  # Onda k_L [m/s]
+    gas_coefficient: np.ndarray | None = None  # Onda k_G [mol/(m2 s Pa)]
+    warnings: tuple = field(default=())
+
+    @property
+    def bed_height(self):
+        return float(self.hetp.sum())
+
+    @property
+    def area(self):
+        return np.pi * self.diameter ** 2 / 4.0
+
+
+def stichlmair_flooding_velocity(packing, liquid_velocity, gas_density, liquid_density, gas_viscosity):
+    """Superficial gas velocity at flood [m/s] at a superficial liquid velocity [m/s], by
+    Stichlmair, Bravo & Fair through fluids.packed_tower.Stichlmair_flood."""
+    from fluids.packed_tower import Stichlmair_flood
+
+    c1, c2, c3 = packing.stichlmair
+    return Stichlmair_flood(Vl=float(liquid_velocity), rhog=float(gas_density), rhol=float(liquid_density),
+                            mug=float(gas_viscosity), voidage=packing.voidage, specific_area=packing.specific_area,
+                            C1=c1, C2=c2, C3=c3)
+
+
+def pressure_drop_per_height(packing, method, *, gas_velocity, liquid_velocity, gas_density, liquid_density,
+                             gas_viscosity, liquid_viscosity):
+    """Irrigated-bed pressure drop [Pa/m]: 'stichlmair' (fluids.packed_tower.Stichlmair_wet) or
+    'robbins' (fluids.packed_tower.Robbins, from mass fluxes)."""
+    from fluids.packed_tower import Robbins, Stichlmair_wet
+
+    if method == "stichlmair":
+        c1, c2, c3 = packing.stichlmair
+        return Stichlmair_wet(Vg=float(gas_velocity), Vl=float(liquid_velocity), rhog=float(gas_density),
+                              rhol=float(liquid_density), mug=float(gas_viscosity), voidage=packing.voidage,
+                              specific_area=packing.specific_area, C1=c1, C2=c2, C3=c3)
+    return Robbins(L=float(liquid_velocity * liquid_density), G=float(gas_velocity * gas_density),
+                   rhol=float(liquid_density), rhog=float(gas_density), mul=float(liquid_viscosity), H=1.0,
+                   Fpd=packing.robbins_fpd)
+
+
+def _flooding_velocity(packing, liquid_velocity, properties, j):
+    return stichlmair_flooding_velocity(packing, liquid_velocity, properties.gas_density[j],
+                                        properties.liquid_density[j], properties.gas_viscosity[j])
+
+
+def flooding_fraction(properties, internals, diameter):
+    """(fraction of flood, flooding gas velocity [m/s]) of every stage at ``diameter`` [m]."""
+    packing, area = internals.data, np.pi * diameter ** 2 / 4.0
+    liquid = properties.liquid_volume_flow / area
+    flood = np.array([_flooding_velocity(packing, liquid[j], properties, j) for j in range(liquid.size)])
+    return properties.gas_volume_flow / area / flood, flood
+
+
+def design_diameter(properties, internals):
+    """(diameter [m], 1-based stage that sets it): each stage's diameter at ``fraction_of_flood``
+    (a root in D of the fraction of flood, which falls monotonically as D grows), the largest wins."""
+    packing, target = internals.data, internals.fraction_of_flood
+    diameters = np.empty(properties.temperature.size)
+    for j in range(diameters.size):
+        def excess(diameter):
+            area = np.pi * diameter ** 2 / 4.0
+            try:
+                flood = _flooding_velocity(packing, properties.liquid_volume_flow[j] / area, properties, j)
+            except (ArithmeticError, ValueError, UnboundLocalError):  # fluids' Newton fails deep in flood
+                return FLOODED
+            fraction = properties.gas_volume_flow[j] / area / flood - target
+            return fraction if np.isfinite(fraction) and flood > 0.0 else FLOODED
+        low = high = 1.0
+        while excess(high) > 0.0:
+            high *= 1.5
+            if high > 100.0:
+                raise SizingInputError("diameter", f"stage {j + 1} would need a packed column above 100 m across")
+        while excess(low) < 0.0:
+            low /= 1.5
+        diameters[j] = brentq(excess, low, high, xtol=1e-13, rtol=1e-13)
+    worst = int(np.argmax(diameters))
+    return float(diameters[worst]), worst + 1
+
+
+def _hetp(properties, packing, liquid_flux, gas_flux, area):
+    a = packing.specific_area
+    wetted = onda_wetted_area(a, packing.critical_surface_tension, liquid_flux, properties.liquid_density,
+                              properties.liquid_viscosity, properties.surface_tension)
+    k_l = onda_liquid_coefficient(wetted, packing.nominal_size, a, liquid_flux, properties.liquid_density,
+                                  properties.liquid_viscosity, properties.liquid_diffusivity)
+    k_g = onda_gas_coefficient(packing.nominal_size, a, gas_flux, properties.gas_density, properties.gas_viscosity,
+                               properties.gas_diffusivity, properties.temperature)
+    gas_molar_flux = properties.gas_molar_flow / area
+    liquid_molar_flux = properties.liquid_molar_flow / area
+    gas_height = gas_molar_flux / (k_g * wetted * properties.pressure)
+    liquid_height = liquid_molar_flux / (k_l * wetted * properties.liquid_molar_density)
+    stripping = properties.slope * gas_molar_flux / liquid_molar_flux
+    return hetp_from_transfer_units(gas_height, liquid_height, stripping), wetted, k_l, k_g
+
+
+def rate_packing(properties, internals, diameter):
+    """PackedHydraulics of every stage at ``diameter`` [m]."""
+    if not diameter > 0.0:
+        raise SizingInputError("diameter", f"must be positive, found {diameter:g}")
+    packing, area = internals.data, np.pi * diameter ** 2 / 4.0
+    fraction, flood = flooding_fraction(properties, internals, diameter)
+    gas, liquid = properties.gas_volume_flow / area, properties.liquid_volume_flow / area
+    gas_flux, liquid_flux = properties.gas_mass_flow / area, properties.liquid_mass_flow / area
+    per_height = np.array([pressure_drop_per_height(
+        packing, internals.pressure_drop_method, gas_velocity=gas[j], liquid_velocity=liquid[j],
+        gas_density=properties.gas_density[j], liquid_density=properties.liquid_density[j],
+        gas_viscosity=properties.gas_viscosity[j], liquid_viscosity=properties.liquid_viscosity[j])
+        for j in range(gas.size)])
+    wetted = k_l = k_g = None
+    if internals.hetp is None:
+        hetp, wetted, k_l, k_g = _hetp(properties, packing, liquid_flux, gas_flux, area)
+    else:
+        hetp = np.full(gas.size, internals.hetp)
+    wetting = liquid / packing.specific_area
+    hydraulics = PackedHydraulics(
+        internals=internals, diameter=float(diameter), fraction_of_flood=fraction, flooding_velocity=flood,
+        gas_velocity=gas, liquid_velocity=liquid, pressure_drop_per_height=per_height, hetp=hetp,
+        pressure_drop=per_height * hetp, wetting_rate=wetting, wetted_area=wetted, liquid_coefficient=k_l,
+        gas_coefficient=k_g,
+    )
+    return _with_warnings(hydraulics)
+
+
+def _with_warnings(h):
+    warnings = []
+    checks = (
+        (h.fraction_of_flood > 1.0, "above 100 % of flood: the packing floods"),
+        (h.wetting_rate < MINIMUM_WETTING_RATE, "liquid below the minimum wetting rate 0.08 m3/(m h): part of the packing stays dry"),
+        (h.pressure_drop_per_height > PRESSURE_DROP_HIGH, "pressure drop above 1.2 kPa/m: near flood"),
+    )
+    for mask, message in checks:
+        stages = np.flatnonzero(mask) + 1
+        if stages.size:
+            listed = ", ".join(str(s) for s in stages[:8]) + (", ..." if stages.size > 8 else "")
+            warnings.append(f"stage {listed}: {message}")
+    if h.internals.pressure_drop_method == "robbins":
+        warnings.append("Robbins' correlation is meant for pressures up to about 3 bar; flooding by Stichlmair")
+    return PackedHydraulics(**{**h.__dict__, "warnings": tuple(warnings)})
+
+
+def packed_column_height(bed_height, internals):
+    """(tangent-to-tangent height [m], number of beds): beds of at most ``max_bed_height``,
+    a redistributor space between beds, top and bottom allowances."""
+    beds = max(1, int(np.ceil(bed_height / internals.max_bed_height - 1e-9)))
+    return bed_height + (beds - 1) * internals.redistributor_space + internals.top_space + internals.bottom_space, beds

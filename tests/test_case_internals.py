@@ -1,0 +1,59 @@
+"""The [internals] table: read into the sizing layer's objects; bad input refused naming the key."""
+
+import re
+from pathlib import Path
+
+import pytest
+from click.testing import CliRunner
+
+from traywise.case.load import parse_case
+from traywise.cli import main
+from traywise.errors import CaseError
+from traywise.sizing.packed import PackedInternals
+from traywise.sizing.trays import TrayInternals
+
+DEMO = (Path(__file__).resolve().parents[1] / "cases" / "ammonia-recovery.toml").read_text(encoding="utf-8")
+BASE = DEMO[: DEMO.index("[internals]")]
+
+
+def with_internals(table):
+    return parse_case(BASE + "[internals]\n" + table, "sized.toml")
+
+
+def test_trays_with_units_and_defaults():
+    internals = with_internals('tray_type = "valve"\ntray_spacing = "24 in"\nweir_height = "2 in"\n').internals
+    assert isinstance(internals.internals, TrayInternals) and internals.diameter is None
+    assert internals.internals.tray_spacing == pytest.approx(0.6096)
+    assert internals.internals.weir_height == pytest.approx(0.0508)
+    assert internals.internals.fraction_of_flood == 0.8  # default, common practice
+
+
+def test_packing_for_rating():
+    internals = with_internals('packing = "ceramic raschig rings 25 mm"\ndiameter = "500 mm"\nhetp = "0.5 m"\n').internals
+    assert isinstance(internals.internals, PackedInternals) and internals.diameter == pytest.approx(0.5)
+    assert internals.echo["diameter_m"] == pytest.approx(0.5)
+
+
+@pytest.mark.parametrize("table, key, words", [
+    ('packing = "gold mesh 5 mm"\n', "internals.packing", "not in the packing data file"),
+    ('tray_type = "sieve"\nfraction_of_flood = 1.2\n', "internals.fraction_of_flood", "between 0 and 1"),
+    ('tray_type = "sieve"\ntray_spacing = "5 mm"\n', "internals.tray_spacing", "outside Fair's chart"),
+    ('tray_type = "sieve"\ntray_spacing = 0.6\n', "internals.tray_spacing", "no unit"),
+    ('tray_type = "sieve"\npacking = "ceramic raschig rings 25 mm"\n', "internals", "not both"),
+    ('tray_type = "sieve"\nhetp = "0.5 m"\n', "internals.hetp", "packing key"),
+    ('tray_type = "sieve"\ntray_spcing = "600 mm"\n', "internals.tray_spcing", "did you mean 'tray_spacing'"),
+    ('packing = "sheet metal structured 250 m2/m3"\n', "internals.hetp", "give the HETP"),
+])
+def test_bad_internals_name_the_key(table, key, words):
+    with pytest.raises(CaseError) as error:
+        with_internals(table)
+    assert f"sized.toml: {key}" in str(error.value) and words in str(error.value)
+
+
+def test_rating_a_too_small_diameter_warns_of_flooding(tmp_path):
+    # A rating diameter far too small floods the trays: the run completes and says so in a warning.
+    case = tmp_path / "tiny.toml"
+    case.write_text(BASE + '[internals]\ntray_type = "sieve"\ndiameter = "100 mm"\n', encoding="utf-8")
+    result = CliRunner().invoke(main, ["run", str(case), "--out", str(tmp_path / "out"), "--no-plots"])
+    assert result.exit_code == 0, result.output
+    assert re.search(r"sizing: stage [0-9, .]+: above 100 % of flood", result.output)

@@ -1,0 +1,100 @@
+"""Packed-column sizing: the fluids functions through traywise's wrapper (their documented
+examples), design invariants, rating at the design, Onda's coefficients, bad input."""
+
+import numpy as np
+import pytest
+
+from traywise.sizing.errors import SizingInputError
+from traywise.sizing.onda import hetp_from_transfer_units, onda_wetted_area
+from traywise.sizing.packed import (
+    PackedInternals,
+    design_diameter,
+    pressure_drop_per_height,
+    rate_packing,
+    stichlmair_flooding_velocity,
+)
+from traywise.sizing.packing_data import Packing, find_packing
+
+from sizing_cases import demo_stage_properties
+
+# The packing of Stichlmair, Bravo & Fair's worked example (Gas Sep. Purif. 3 (1989) 19):
+# a = 260 m2/m3, voidage 0.68, C1..C3 = 32, 7, 1, as reproduced in fluids' documentation.
+EXAMPLE = find_packing("ceramic berl saddles 25 mm")
+
+
+def test_stichlmair_flooding_example_through_the_wrapper():
+    # fluids.packed_tower.Stichlmair_flood documented example (from the 1989 paper, "matches"):
+    # 0.6394323542746928 m/s. The wrapper must return fluids' number (1e-9) and so lie within
+    # 10 % of the paper's example.
+    found = stichlmair_flooding_velocity(EXAMPLE, 5e-3, gas_density=5.0, liquid_density=1200.0, gas_viscosity=5e-5)
+    assert found == pytest.approx(0.6394323542746928, rel=1e-9)
+
+
+def test_stichlmair_irrigated_pressure_drop_example_through_the_wrapper():
+    # fluids.packed_tower.Stichlmair_wet documented example (from the 1989 paper): 539.876823725352 Pa/m.
+    found = pressure_drop_per_height(EXAMPLE, "stichlmair", gas_velocity=0.4, liquid_velocity=5e-3, gas_density=5.0,
+                                     liquid_density=1200.0, gas_viscosity=5e-5, liquid_viscosity=1e-3)
+    assert found == pytest.approx(539.876823725352, rel=1e-9)
+
+
+def test_robbins_example_through_the_wrapper():
+    # fluids.packed_tower.Robbins documented example, built on the example of Perry's handbook:
+    # L = 12.2, G = 2.03 kg/(m2 s), water and air, F_pd = 24 1/ft: 619.6624593438102 Pa over 2 m.
+    packing = Packing("test", "random", "ceramic", 0.025, 100.0, 0.9, (1.0, 1.0, 1.0), 24.0, "fluids example", "")
+    per_height = pressure_drop_per_height(packing, "robbins", gas_velocity=2.03 / 1.1853, liquid_velocity=12.2 / 1000.0,
+                                          gas_density=1.1853, liquid_density=1000.0, gas_viscosity=1.8e-5,
+                                          liquid_viscosity=0.001)
+    assert 2.0 * per_height == pytest.approx(619.6624593438102, rel=1e-9)
+
+
+@pytest.fixture
+def stages():
+    return demo_stage_properties()
+
+
+def test_more_gas_never_gives_a_smaller_packed_diameter(stages):
+    internals = PackedInternals("ceramic raschig rings 25 mm")
+    base, _ = design_diameter(stages, internals)
+    for factor in (1.2, 2.0):
+        assert design_diameter(stages.scaled(gas=factor), internals)[0] >= base
+
+
+def test_a_larger_fraction_of_flood_gives_a_smaller_packed_diameter(stages):
+    found = [design_diameter(stages, PackedInternals("ceramic raschig rings 25 mm", fraction_of_flood=f))[0]
+             for f in (0.5, 0.6, 0.7, 0.8)]
+    assert all(b < a for a, b in zip(found, found[1:]))
+
+
+def test_rating_at_the_packed_design_returns_the_design_fraction(stages):
+    internals = PackedInternals("ceramic berl saddles 25 mm", fraction_of_flood=0.65)
+    diameter, stage = design_diameter(stages, internals)
+    rating = rate_packing(stages, internals, diameter)
+    assert rating.fraction_of_flood.max() == pytest.approx(0.65, abs=1e-6)
+    assert int(np.argmax(rating.fraction_of_flood)) + 1 == stage
+    # Onda's wetted area lies between 0 and the packing's area, and the HETP is that of H_OG
+    assert np.all((rating.wetted_area > 0.0) & (rating.wetted_area < EXAMPLE.specific_area))
+    assert np.all(rating.hetp > 0.0) and rating.bed_height == pytest.approx(rating.hetp.sum())
+
+
+def test_hetp_limits():
+    # HETP = H_OG ln(lambda)/(lambda - 1): equal to H_OG at lambda = 1 (limit), below it for lambda > 1.
+    assert hetp_from_transfer_units(0.3, 0.2, 1.0) == pytest.approx(0.5)
+    assert hetp_from_transfer_units(0.3, 0.2, 1.0 + 1e-4) == pytest.approx(0.5, rel=1e-4)
+    lam = 2.0
+    assert hetp_from_transfer_units(0.3, 0.2, lam) == pytest.approx((0.3 + lam * 0.2) * np.log(lam) / (lam - 1.0))
+
+
+def test_wetted_area_grows_with_the_liquid_rate():
+    fluxes = np.array([1.0, 3.0, 10.0, 30.0])
+    wetted = onda_wetted_area(190.0, 0.061, fluxes, 998.0, 1e-3, 0.072)
+    assert np.all(np.diff(wetted) > 0.0)
+
+
+@pytest.mark.parametrize("kwargs, key", [
+    ({"packing": "gold mesh 5 mm"}, "packing"),
+    ({"packing": "ceramic raschig rings 25 mm", "fraction_of_flood": 1.2}, "fraction_of_flood"),
+    ({"packing": "sheet metal structured 250 m2/m3"}, "hetp"),
+])
+def test_bad_packing_input_names_the_quantity(kwargs, key):
+    with pytest.raises(SizingInputError, match=key):
+        PackedInternals(**kwargs)
