@@ -182,11 +182,19 @@ def wagner_pruss_saturation_pressure(temperature):
     t = np.asarray(temperature, dtype=float)
     tc = WATER_CRITICAL_TEMPERATURE
     tau = 1.0 - t / tc
-    s = ds = d2s = 0.0  # sum and its derivatives with respect to tau
+    root = np.sqrt(tau)
+    tau2 = tau * tau
+    powers = {0.5: root, 1.0: tau, 1.5: tau * root, 2.0: tau2, 2.5: tau2 * root, 3.0: tau2 * tau}
+    powers.update({3.5: powers[3.0] * root, 4.0: tau2 * tau2, 5.5: tau2 * tau2 * tau * root})
+    powers[6.5] = powers[5.5] * tau
+    powers[7.5] = powers[6.5] * tau
+    powers.update({0.0: 1.0, -0.5: 1.0 / root})
+    s = ds = d2s = 0.0  # sum and its derivatives with respect to tau, by powers built by products
     for a, e in WAGNER_PRUSS_SATURATION:
-        s = s + a * tau**e
-        ds = ds + a * e * tau ** (e - 1.0)
-        d2s = d2s + (a * e * (e - 1.0) * tau ** (e - 2.0) if e != 1.0 else 0.0)
+        s = s + a * powers[e]
+        ds = ds + a * e * powers[e - 1.0]
+        if e != 1.0:
+            d2s = d2s + a * e * (e - 1.0) * powers[e - 2.0]
     # ln(p/pc) = u s with u = tc/T; d/dT = -(1/tc) d/dtau for s; du/dT = -u/T
     u = tc / t
     ln_p = np.log(WATER_CRITICAL_PRESSURE) + u * s
@@ -230,13 +238,17 @@ def iapws_henry(temperature, a, b, c):
     tc = WATER_CRITICAL_TEMPERATURE
     tr = t / tc
     tau = 1.0 - tr
-    e_tau = np.exp(tau)
-    f = a / tr + b * tau**0.355 / tr + c * tr**-0.41 * e_tau
-    df = (-a / tr**2 + b * (-0.355 * tau**-0.645 / tr - tau**0.355 / tr**2)
-          + c * e_tau * (-0.41 * tr**-1.41 - tr**-0.41))
-    d2f = (2.0 * a / tr**3
-           + b * (-0.355 * 0.645 * tau**-1.645 / tr + 0.71 * tau**-0.645 / tr**2 + 2.0 * tau**0.355 / tr**3)
-           + c * e_tau * (0.41 * 1.41 * tr**-2.41 + 0.82 * tr**-1.41 + tr**-0.41))
+    inverse = 1.0 / tr
+    tau_a = tau**0.355  # and tau**-0.645, tau**-1.645 from it
+    tau_b = tau_a / tau
+    tau_c = tau_b / tau
+    g = tr**-0.41 * np.exp(tau)  # and tr**-1.41, tr**-2.41 times exp(tau)
+    g1, g2 = g * inverse, g * inverse * inverse
+    f = a * inverse + b * tau_a * inverse + c * g
+    df = -a * inverse**2 + b * (-0.355 * tau_b * inverse - tau_a * inverse**2) + c * (-0.41 * g1 - g)
+    d2f = (2.0 * a * inverse**3
+           + b * (-0.355 * 0.645 * tau_c * inverse + 0.71 * tau_b * inverse**2 + 2.0 * tau_a * inverse**3)
+           + c * (0.41 * 1.41 * g2 + 0.82 * g1 + g))
     ln_p, dln_p, d2ln_p = wagner_pruss_saturation_pressure(t)
     ln_h = ln_p + f
     dln_h = dln_p + df / tc
