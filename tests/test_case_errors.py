@@ -5,15 +5,12 @@ demo scenario). The check is that the error names the key path, and where it mat
 found and what would be valid; never a traceback.
 """
 
-import re
-import warnings
 
 import pytest
 
+from support.case_errors import FILE, check_error_names, sweep_odd_values, variant
 from traywise.case import load_case, parse_case
 from traywise.errors import CaseError
-
-FILE = "scrubber.toml"
 
 VALID = """\
 title = "Ammonia vent scrubber (demo, invented numbers)"
@@ -77,12 +74,6 @@ temperature = "30 degC"
 stages = 4
 top_pressure = "5 bar"
 """
-
-
-def variant(base, old, new):
-    """``base`` with the text ``old`` (which must occur exactly once) replaced by ``new``."""
-    assert base.count(old) == 1, f"variant anchor {old!r} occurs {base.count(old)} times"
-    return base.replace(old, new)
 
 
 def test_the_valid_cases_parse():
@@ -213,19 +204,11 @@ MALFORMED_INLINE = [
 ]
 
 
-def _check(error, key_path, words):
-    text = str(error)
-    assert text.startswith(f"{FILE}: "), text
-    assert key_path in text, text
-    for word in words:
-        assert word in text, text
-
-
 @pytest.mark.parametrize(("name", "old", "new", "key_path", "words"), MALFORMED, ids=[m[0] for m in MALFORMED])
 def test_malformed_case_names_the_key(name, old, new, key_path, words):
     with pytest.raises(CaseError) as error:
         parse_case(variant(VALID, old, new), FILE)
-    _check(error.value, key_path, words)
+    check_error_names(error.value, key_path, words)
 
 
 @pytest.mark.parametrize(("name", "old", "new", "key_path", "words"), MALFORMED_INLINE, ids=[m[0] for m in MALFORMED_INLINE])
@@ -236,7 +219,7 @@ def test_malformed_inline_component_names_the_key(name, old, new, key_path, word
                             '[component.nitrogen]\nequilibrium = "nonvolatile"\nliquid_heat_capacity = "29 J/(mol K)"')
     with pytest.raises(CaseError) as error:
         parse_case(text, FILE)
-    _check(error.value, key_path, words)
+    check_error_names(error.value, key_path, words)
 
 
 def test_missing_file_is_a_case_error(tmp_path):
@@ -258,30 +241,9 @@ def test_a_hot_gas_feed_is_accepted_with_a_warning():
     assert any("Henry's constant" in w and "outside its valid range" in w for w in case.warnings)
 
 
-# Values that a slip of the keyboard or a wrong column of a spreadsheet might put anywhere.
-ODD_VALUES = ("nan", "inf", '""', "0", "-1", "true", "[]", "{}", '"abc"', '"1e400 K"', '"1 bar"', '"45 degC"',
-              '"balance"', '"-1 kg/h"', '"water"')
-
-
 @pytest.mark.parametrize("base", [VALID, INLINE], ids=["library", "inline"])
 def test_no_value_anywhere_ends_in_a_traceback(base):
     """Every value of the valid cases replaced by each odd value: a valid case or a CaseError."""
     sweep_odd_values(base)
 
 
-def sweep_odd_values(base):
-    """Every value line of the case text ``base`` replaced, one at a time, by each of
-    ODD_VALUES: the result parses, or it raises a CaseError naming the file; nothing else."""
-    lines = base.splitlines()
-    for i, line in enumerate(lines):
-        match = re.match(r'^([\w".]+\s*=\s*)(.*)$', line)
-        if not match:
-            continue
-        for odd in ODD_VALUES:
-            text = "\n".join([*lines[:i], match.group(1) + odd, *lines[i + 1 :]])
-            with warnings.catch_warnings():
-                warnings.simplefilter("error")  # no NaN or overflow slipping into the property model either
-                try:
-                    parse_case(text, FILE)
-                except CaseError as error:
-                    assert str(error).startswith(f"{FILE}"), str(error)

@@ -7,7 +7,7 @@ Every variant is one of the valid cases below with one hand-made change (invente
 
 import pytest
 
-from test_case_errors import FILE, _check, sweep_odd_values, variant
+from support.case_errors import FILE, check_error_names, sweep_odd_values, variant
 from traywise.case import parse_case
 from traywise.errors import CaseError
 
@@ -196,7 +196,7 @@ def test_the_valid_cases_parse():
 def test_malformed_table_or_liquid_model_names_the_key(name, base, old, new, key_path, words):
     with pytest.raises(CaseError) as error:
         parse_case(variant(base, old, new), FILE)
-    _check(error.value, key_path, words)
+    check_error_names(error.value, key_path, words)
 
 
 def test_a_single_isotherm_outside_water_needs_its_enthalpy():
@@ -207,7 +207,7 @@ def test_a_single_isotherm_outside_water_needs_its_enthalpy():
     text = variant(text, "[gas_feed]", '[component.methanol]\nequilibrium = "raoult"\n\n[gas_feed]')
     with pytest.raises(CaseError) as error:
         parse_case(variant(text, ONE_ISOTHERM, ""), FILE)
-    _check(error.value, f"{T}.enthalpy_of_solution", ["missing", "single isotherm"])
+    check_error_names(error.value, f"{T}.enthalpy_of_solution", ["missing", "single isotherm"])
 
 
 @pytest.mark.parametrize("base", [TABLE, ACTIVITY, NRTL], ids=["table", "unifac", "nrtl"])

@@ -14,6 +14,7 @@ from pathlib import Path
 import pytest
 from click.testing import CliRunner
 
+from support.case_text import replace_stream_value
 from traywise.cli import main
 from traywise.starter import starter_case
 
@@ -135,7 +136,7 @@ def test_missing_case_file(in_tmp):
 
 def test_bad_case_names_file_and_key(in_tmp):
     case = in_tmp / "bad.toml"
-    case.write_text(_replace_stream_value(starter_case(), "solvent_feed", "temperature", '"25"'), encoding="utf-8")
+    case.write_text(replace_stream_value(starter_case(), "solvent_feed", "temperature", '"25"'), encoding="utf-8")
     result = invoke("run", str(case))
     assert_one_line_error(result, 2)
     assert "bad.toml" in result.stderr and "temperature" in result.stderr
@@ -147,7 +148,7 @@ def test_non_convergence_exits_3_and_writes_nothing(in_tmp):
     solution exists (invented numbers)."""
     text = starter_case()
     case = in_tmp / "dry.toml"
-    case.write_text(_replace_stream_value(_replace_stream_value(text, "solvent_feed", "flow", '"1 kg/h"'),
+    case.write_text(replace_stream_value(replace_stream_value(text, "solvent_feed", "flow", '"1 kg/h"'),
                                           "gas_feed", "temperature", '"150 degC"'), encoding="utf-8")
     result = invoke("run", str(case))
     assert_one_line_error(result, 3)
@@ -182,12 +183,3 @@ def test_components_list_and_show():
     assert_one_line_error(invoke("components", "show", "unobtainium"), 2)
 
 
-def _replace_stream_value(text, table, key, value):
-    """The case text with ``key`` of ``[table]`` set to ``value`` (a TOML literal)."""
-    head, _, rest = text.partition(f"[{table}]")
-    lines = rest.split("\n")
-    for i, line in enumerate(lines):
-        if line.split("=")[0].strip() == key:
-            lines[i] = f"{key} = {value}"
-            return head + f"[{table}]" + "\n".join(lines)
-    raise AssertionError(f"{table}.{key} not in the starter case")

@@ -10,7 +10,7 @@ from pathlib import Path
 
 import pytest
 from click.testing import CliRunner
-from test_reports import lookup, strict_json
+from support.results import lookup, strict_json
 
 from traywise.case import parse_case
 from traywise.cli import main

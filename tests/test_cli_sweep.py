@@ -12,8 +12,8 @@ from pathlib import Path
 import numpy as np
 import pytest
 from click.testing import CliRunner
-from test_cli import _replace_stream_value
-from test_reports import PNG_SIGNATURE, strict_json
+from support.case_text import replace_stream_value
+from support.results import PNG_SIGNATURE, strict_json
 
 from traywise.cli import main
 from traywise.starter import starter_case
@@ -80,7 +80,7 @@ def _hot_starter(tmp_path):
     """The starter case with the gas at 150 degC: a trickle of water evaporates completely, so
     there is no solution at the low end of a solvent sweep (invented numbers)."""
     case = tmp_path / "hot.toml"
-    case.write_text(_replace_stream_value(starter_case(), "gas_feed", "temperature", '"150 degC"'), encoding="utf-8")
+    case.write_text(replace_stream_value(starter_case(), "gas_feed", "temperature", '"150 degC"'), encoding="utf-8")
     return case
 
 

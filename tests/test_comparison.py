@@ -3,7 +3,7 @@
 import numpy as np
 import pytest
 
-from columns import dilute_column, ideal_dilute_model, library_model, water_column
+from support.columns import dilute_column, ideal_dilute_model, library_model, water_column
 from traywise.inert_basis.comparison import compare
 from traywise.mesh.newton import solve_column
 from traywise.inert_basis.design import mole_ratio_equilibrium, step_stages

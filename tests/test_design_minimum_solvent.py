@@ -13,8 +13,8 @@ from dataclasses import replace
 import numpy as np
 import pytest
 
-from columns import dilute_column, ideal_dilute_model
-from test_design_support import scrubber_column, scrubber_model
+from support.columns import dilute_column, ideal_dilute_model
+from support.design import scrubber_column, scrubber_model
 from traywise.design import SoluteTarget, minimum_solvent
 
 K_VALUE = 2.0  # ideal_dilute_model at 1e5 Pa
@@ -100,7 +100,7 @@ def test_inert_basis_minimum_takes_k_in_the_solvent_fed():
     (Dortmund)) and a lean solvent carrying 10 mol% methanol: the inert-basis minimum takes
     acetone's K in that water-methanol liquid, as the comparison's inert-basis design does, not
     in pure water (numbers invented)."""
-    from columns import water_column
+    from support.columns import water_column
     from traywise.inert_basis.equilibrium_curve import mole_ratio_equilibrium
     from traywise.properties.library import find_component
     from traywise.properties.model import PropertyModel

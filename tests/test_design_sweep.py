@@ -5,7 +5,7 @@ numbers from one process or two, outputs checked against the model, invariants a
 import numpy as np
 import pytest
 
-from test_design_support import scrubber_column, scrubber_model
+from support.design import scrubber_column, scrubber_model
 from traywise.design import sweep
 from traywise.errors import CaseError
 from traywise.mesh.newton import solve_column

@@ -9,8 +9,8 @@ Treybal, Mass-Transfer Operations, 3rd ed. 1980, ch. 5).
 import numpy as np
 import pytest
 
-from columns import dilute_column, ideal_dilute_model
-from test_design_support import scrubber_column, scrubber_model
+from support.columns import dilute_column, ideal_dilute_model
+from support.design import scrubber_column, scrubber_model
 from traywise.design import (
     SoluteTarget,
     TemperatureLimit,

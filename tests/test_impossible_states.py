@@ -16,7 +16,7 @@ from traywise.mesh.newton import solve_column
 from traywise.properties.inline import henry_from_reference
 from traywise.properties.model import PropertyModel
 
-from columns import dilute_column, ideal_dilute_model
+from support.columns import dilute_column, ideal_dilute_model
 
 CASE = """
 title = "Invented test column"

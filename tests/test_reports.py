@@ -6,12 +6,12 @@ temperatures invented for the test). The case is a plain namespace with the fiel
 loader provides, so these tests do not depend on the case-file format.
 """
 
-import json
 import types
 
 import numpy as np
 import pytest
-from columns import library_model, water_column
+from support.columns import library_model, water_column
+from support.results import PNG_SIGNATURE, lookup, strict_json
 
 from traywise.errors import CaseError
 from traywise.mesh.newton import solve_column
@@ -25,7 +25,6 @@ from traywise.report.results import RESULTS_KEYS
 from traywise.report.summary import summary_text
 from traywise.report.tables import concentration, percent, text_table
 
-PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"  # PNG specification (ISO/IEC 15948), section 5.2
 N_STAGES = 5
 
 
@@ -67,32 +66,6 @@ def written(solved, comparison_record, tmp_path_factory):
     folder = tmp_path_factory.mktemp("outputs") / "scrubber-results"
     record = write_outputs(folder, case, solution, comparison_record, plots=True)
     return folder, record
-
-
-def strict_json(path):
-    def refuse(constant):
-        raise ValueError(f"{constant} is not JSON")
-
-    return json.loads(path.read_text(encoding="utf-8"), parse_constant=refuse)
-
-
-def lookup(record, dotted):
-    """Values at a documented key path ('components[].name' is checked on every entry). A
-    section that RESULTS_KEYS documents as possibly null ('design', 'design.target') may be
-    null, and then its keys are not looked for."""
-    values, path = [record], []
-    for part in dotted.split("."):
-        listed = part.endswith("[]")
-        name = part[:-2] if listed else part
-        path.append(part)
-        found = []
-        for value in values:
-            assert isinstance(value, dict) and name in value, f"missing key '{dotted}'"
-            found.extend(value[name] if listed else [value[name]])
-        if None in found and "null" in RESULTS_KEYS[".".join(path)]:
-            found = [value for value in found if value is not None]
-        values = found
-    return values
 
 
 def test_results_json_has_every_documented_key_and_no_other(written):

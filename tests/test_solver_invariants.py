@@ -7,7 +7,8 @@ import numpy as np
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from columns import library_model, water_column
+from support.columns import library_model, water_column
+from support.balances import recomputed_closure
 from traywise.mesh.newton import solve_column
 
 SOLUTES = ("ammonia", "sulfur dioxide", "hydrogen sulfide", "acetone")
@@ -74,4 +75,4 @@ def test_balances_close_whenever_converged(case, cooling):
     solution = solve_column(column, model)
     fed = column.solvent.component_flows + column.gas.component_flows
     assert np.all(np.abs(solution.gas_out + solution.liquid_out - fed) <= CLOSE * fed)
-    assert solution.convergence.energy_closure < 1e-7
+    assert recomputed_closure(solution, model)[1] < 1e-7

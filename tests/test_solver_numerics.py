@@ -3,7 +3,7 @@
 import numpy as np
 import pytest
 
-from columns import dense_jacobian, dilute_column, ideal_dilute_model, jacobian_error, library_model, water_column
+from support.columns import dense_jacobian, dilute_column, ideal_dilute_model, jacobian_error, library_model, water_column
 from traywise.errors import ConvergenceError
 from traywise.inert_basis.kremser import kremser_fraction_absorbed
 from traywise.mesh.balances import build_solution

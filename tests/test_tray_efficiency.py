@@ -9,8 +9,8 @@ from dataclasses import replace
 import numpy as np
 import pytest
 
-from columns import dilute_column, ideal_dilute_model
-from test_design_support import scrubber_column, scrubber_model
+from support.columns import dilute_column, ideal_dilute_model
+from support.design import scrubber_column, scrubber_model
 from traywise.column import Column, Feed
 from traywise.design import SoluteTarget, actual_trays, tray_design
 from traywise.design.efficiency import (

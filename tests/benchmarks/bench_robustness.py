@@ -7,8 +7,8 @@ from pathlib import Path
 
 import numpy as np
 
-sys.path.insert(0, str(Path(__file__).parent))
-from hard_cases import hard_case  # noqa: E402
+sys.path.insert(0, str(Path(__file__).parents[1]))  # the tests folder, for its support package
+from support.hard_cases import hard_case  # noqa: E402
 
 from traywise.errors import ConvergenceError  # noqa: E402
 from traywise.mesh.newton import solve_column  # noqa: E402

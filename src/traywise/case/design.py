@@ -107,7 +107,7 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
         section.fail("oconnell_efficiency", f"trays are found by changing the stage count, which leaves {what} without "
                      "a fixed place; remove oconnell_efficiency (the column table's overall_efficiency still gives "
                      "the trays of the designed column)")
-    if oconnell and model.names[solvent] != "water":
+    if oconnell and not model.components[solvent].is_water:
         section.fail("oconnell_efficiency", f"O'Connell's correlation needs the liquid's viscosity and density, which "
                      f"traywise has for water only (the solvent is {model.names[solvent]}); give "
                      "column.overall_efficiency instead")

@@ -15,7 +15,6 @@ ISOTHERM_KEYS = ("temperature", "loadings", "partial_pressures", "gas_mole_fract
 # loading basis as written -> EquilibriumTable basis
 LOADING_BASES = {"mole fraction": "mole_fraction", "mole ratio": "mole_ratio", "mass ratio": "mass_ratio"}
 TABLE_SOLVENT_KINDS = ("raoult", "nonvolatile")
-WATER_CAS = "7732-18-5"
 
 
 def read_equilibrium_table(section, index, components, default_solvent):
@@ -166,7 +165,7 @@ def _enthalpy(section, solute, solvent, isotherms):
         if not math.isfinite(value):
             section.fail("enthalpy_of_solution", "expected a finite energy")
         return value
-    water = solvent.cas == WATER_CAS or solvent.matches("water")
+    water = solvent.is_water
     if solute.henry_in_water is None or not water:
         section.raw("enthalpy_of_solution", expected='an energy such as "-30 kJ/mol" (negative when dissolving releases '
                     "heat): a single isotherm gives no temperature dependence (or add a second isotherm)")

@@ -14,7 +14,6 @@ LIQUID_MODEL_KEYS = ("activity", "version", "members", "groups", "a", "b", "alph
 ACTIVITY_MODELS = ("unifac", "nrtl")
 MEMBER_KINDS = ("raoult", "activity", "nonvolatile")  # equilibrium models of the liquid model's members
 _ONLY = {"unifac": ("version", "groups"), "nrtl": ("a", "b", "alpha", "source")}
-WATER_CAS = "7732-18-5"
 
 
 @dataclass(frozen=True)
@@ -101,7 +100,7 @@ def _members(section, components):
     if outside:
         section.fail("members", f"leaves out {', '.join(outside)}, whose equilibrium is 'activity'; add them to the members")
     anchored = any(components[i].equilibrium == "activity" for i in members)
-    if anchored and not any(components[i].cas == WATER_CAS or components[i].matches("water") for i in members):
+    if anchored and not any(components[i].is_water for i in members):
         section.fail("members", "anchors solutes to their Henry's constants in water (equilibrium 'activity'), so "
                      "water must be a member; for a solute in another solvent use equilibrium 'raoult' with the model")
     return members

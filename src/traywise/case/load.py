@@ -312,7 +312,7 @@ class _CaseBuilder:
 
     def _other_warnings(self, solvent, column_input, column):
         model, components = self.components.model, self.components
-        if model.names[solvent] != "water":
+        if not model.components[solvent].is_water:
             for name in components.library_henry:
                 self.warnings.append(f"{name}: the library's Henry's constant is for water, but the solvent is "
                                      f"{model.names[solvent]}; give henry_constant in [component.\"{name}\"]")

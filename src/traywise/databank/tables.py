@@ -23,14 +23,14 @@ from chemicals import MW, Tm, Tm_methods
 from CoolProp import CoolProp as coolprop
 from thermo import EnthalpyVaporization, HeatCapacityGas, HeatCapacityLiquid, VaporPressure
 
-from ..properties.component import HeatCapacity
-from ..properties.constants import GAS_CONSTANT, T_REFERENCE, ZERO_CELSIUS
+from ..properties.component import WATER_CAS, HeatCapacity
+from ..properties.constants import T_REFERENCE, ZERO_CELSIUS
 from ..properties.correlations import dippr101
 from . import citations
 from .fits import fit_stable_polynomial
 from .iapws_henry import iapws_henry_fields
 
-WATER = "7732-18-5"
+WATER = WATER_CAS
 HENRY_RANGE = (273.15, 353.15)  # K; judgement, see HENRY_RANGE_NOTE
 HENRY_RANGE_NOTE = (
     "t_min/t_max are a judgement (common practice), not stated by the source: Sander's fits are "

@@ -31,7 +31,6 @@ from ..errors import CaseError
 from ..mesh.newton import SolverSettings
 from ..inert_basis.stepping import minimum_liquid_to_gas_ratio
 from .adjust import solvent_for_target
-from .targets import component_index
 from .variables import with_stages
 
 PINCH_BAND = 0.01  # stages within 1 % (absolute, on d_j) of the smallest driving force form the pinch zone
@@ -208,7 +207,7 @@ def _inert_basis_minimum(column, model, target, temperature):
     """(L'/V')min, the same as a total solvent feed [mol/s], and the T [K] and P [Pa] used.
     The equilibrium curve takes K in the solvent fed (key left out), as the inert-basis design
     of the comparison does, for composition-dependent models."""
-    i = component_index(model, target.key)
+    i = model.component_index(target.key)
     gas, solvent = column.gas.component_flows, column.solvent.component_flows
     inert_gas, solvent_free = gas.sum() - gas[i], solvent.sum() - solvent[i]
     gas_in, liquid_in = gas[i] / inert_gas, solvent[i] / solvent_free

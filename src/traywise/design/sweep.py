@@ -29,7 +29,6 @@ import numpy as np
 
 from ..errors import CaseError, TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
-from .targets import component_index
 from .variables import UNITS, with_value
 
 PR_SET_PDEATHSIG = 1  # Linux prctl option: signal this process when its parent dies (prctl(2))
@@ -187,7 +186,7 @@ def output_spec(name, model):
     kind, _, key = name.partition(":")
     if kind in _COMPONENT_OUTPUTS:
         try:
-            index = component_index(model, key)
+            index = model.component_index(key)
         except CaseError:
             raise CaseError(
                 "outputs", f"'{name}' needs a component of the model after ':'; expected one of {', '.join(model.names)}"

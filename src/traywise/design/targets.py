@@ -25,14 +25,6 @@ TEMPERATURE_PLACES = ("liquid_outlet", "column_maximum")
 SMALLEST = float(np.nextafter(0.0, 1.0))
 
 
-def component_index(model, key):
-    """Index of the component named ``key`` (name, alias, formula or CAS) in the model."""
-    for i, component in enumerate(model.components):
-        if component.matches(key):
-            return i
-    raise CaseError("key", f"'{key}' is not a component of the model; expected one of {', '.join(model.names)}")
-
-
 @dataclass(frozen=True)
 class SoluteTarget:
     """A removal target on the key solute.
@@ -59,7 +51,7 @@ class SoluteTarget:
 
     def for_model(self, model):
         """The same target with the key written as the model's component name."""
-        return replace(self, key=model.names[component_index(model, self.key)])
+        return replace(self, key=model.names[model.component_index(self.key)])
 
     @property
     def unit(self):

@@ -29,7 +29,6 @@ from .efficiency import (
     water_molar_density,
     water_viscosity,
 )
-from .targets import component_index
 from .variables import with_stages
 
 
@@ -114,7 +113,7 @@ def tray_design(
     target = target.for_model(model)
     options = dict(max_stages=max_stages, settings=settings)
     theoretical = stages_for_target(replace(column, murphree=None), model, target, **options)
-    lam = _mean_stripping_factor(theoretical.solution, component_index(model, target.key))
+    lam = _mean_stripping_factor(theoretical.solution, model.component_index(target.key))
     group, warnings = None, []
     if murphree is not None:
         overall, source = float(overall_from_murphree(murphree, lam)), "from the given Murphree efficiency by Lewis"
@@ -148,7 +147,7 @@ def _oconnell(solution, model, target, viscosity, density):
     """(group, E_o, warnings) at the mean of the top and bottom temperatures and mean pressure."""
     temperature = 0.5 * (solution.gas_out_temperature + solution.liquid_out_temperature)
     pressure = float(np.mean(solution.pressure))
-    k = float(model.evaluate([temperature], [pressure]).k[0, component_index(model, target.key)])
+    k = float(model.evaluate([temperature], [pressure]).k[0, model.component_index(target.key)])
     group = float(oconnell_group(k, viscosity(temperature), density(temperature)))
     warnings = []
     low, high = WATER_VISCOSITY_RANGE

@@ -29,7 +29,6 @@ from dataclasses import dataclass
 import numpy as np
 
 from .equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium, mole_ratio_equilibrium
-from .equilibrium_curve import component_index as _component_index
 from ..column import actual_trays
 from ..errors import CaseError
 from .stepping import StageStepping, minimum_liquid_to_gas_ratio, outlet_for_stages, step_stages
@@ -137,7 +136,7 @@ def inert_basis_design(
         raise CaseError("target", "give exactly one of target_fraction_absorbed and n_stages")
     if overall_efficiency is not None and not 0.0 < overall_efficiency <= 1.0:
         raise CaseError("overall_efficiency", f"expected 0 < E <= 1, found {overall_efficiency!r}")
-    i = _component_index(model, key)
+    i = model.component_index(key)
     gas, solvent = _flows(gas_flows, "gas_flows", model), _flows(solvent_flows, "solvent_flows", model)
     inert_gas, solvent_flow = gas.sum() - gas[i], solvent.sum() - solvent[i]
     if gas[i] <= 0.0 or inert_gas <= 0.0:

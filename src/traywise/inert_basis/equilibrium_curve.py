@@ -119,7 +119,7 @@ def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fr
     ConstantKEquilibrium (ideal-solution models) or MixtureEquilibrium   Callable Y*(X)
     [mol/mol -> mol/mol], with ``k_value`` the K used (at infinite dilution for a mixture)
     """
-    i = component_index(model, key)
+    i = model.component_index(key)
     k_value = float(model.evaluate([temperature], [pressure]).k[0, i])
     if not (np.isfinite(k_value) and k_value > 0.0):
         raise CaseError(
@@ -139,11 +139,3 @@ def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fr
     solvent /= solvent.sum()
     dilute = model.evaluate([temperature], [pressure], solvent[None, :]).k[0, i]
     return MixtureEquilibrium(model, i, solvent, float(temperature), float(pressure), float(dilute))
-
-
-def component_index(model, key):
-    """Position of the component named ``key`` (name, alias, formula or CAS number) in the model."""
-    for i, component in enumerate(model.components):
-        if component.matches(key):
-            return i
-    raise CaseError("key", f"'{key}' is not a component of the model; expected one of {', '.join(model.names)}")

@@ -17,10 +17,12 @@ from .correlations import (
     iapws_if97_saturation_pressure,
     ln_henry,
     offset_scale,
+    solution_enthalpy_from_slope,
     stable_polynomial,
     stable_polynomial_antiderivative,
 )
 
+WATER_CAS = "7732-18-5"
 EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a component's own default model
 # Models a property model can also give a component: they need more than the component's data
 # (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
@@ -78,7 +80,7 @@ class VapourPressure:
         """(ln(Psat/Pa), dln(Psat)/dT [1/K]) at temperature [K]."""
         if self.form == "iapws_if97":
             return iapws_if97_saturation_pressure(temperature)
-        return dippr101(temperature, *self.coefficients)
+        return dippr101(temperature, *self.coefficients)[:2]
 
 
 HENRY_FORMS = ("ln_h", "iapws_2004")
@@ -102,7 +104,8 @@ class HenryConstant:
     def terms(self, temperature):
         """(ln(H/Pa), dln(H)/dT [1/K], dH_sol/R [K], d(dH_sol/R)/dT [-]) at temperature [K]."""
         if self.form == "iapws_2004":
-            return iapws_henry(temperature, *self.coefficients)
+            ln_h, dln_h, d2ln_h = iapws_henry(temperature, *self.coefficients)
+            return ln_h, dln_h, *solution_enthalpy_from_slope(temperature, dln_h, d2ln_h)
         return (*ln_henry(temperature, *self.coefficients), *henry_solution_enthalpy(temperature, *self.coefficients))
 
     def ln_constant(self, temperature):
@@ -151,6 +154,12 @@ class Component:
     sources: dict = field(default_factory=dict, compare=False)
     notes: dict = field(default_factory=dict, compare=False)
     origin: str = "library"
+
+    @property
+    def is_water(self):
+        """True for water (CAS number 7732-18-5, or an inline component without a CAS number
+        named 'water'), the solvent several models single out."""
+        return self.cas == WATER_CAS or (not self.cas and self.matches("water"))
 
     def matches(self, text):
         """True when text names this component (name, alias, formula or CAS number; any case)."""

@@ -71,10 +71,52 @@ def stable_polynomial_antiderivative(coefficients, scale):
     return np.concatenate([integral, zero]) / scale
 
 
+HENRY_TERMS = 6  # coefficients a..f of ``ln_henry``
+
+
+def ln_henry_terms(temperature, terms=range(HENRY_TERMS)):
+    """The terms of ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2 without their
+    coefficients, with their first and second temperature derivatives.
+
+    The one home of this form: ``ln_henry``, ``henry_solution_enthalpy`` and the property
+    models' batched evaluations all contract these terms with the coefficients.
+
+    Parameters
+    ----------
+    temperature : array_like   Liquid temperature [K], any shape
+    terms : sequence of int    Which of a..f (0..5) to return
+
+    Returns
+    -------
+    ndarray   Shape (3, len(terms)) + shape(temperature): term, d/dT [1/K], d2/dT2 [1/K**2]
+
+    >>> ln_henry_terms(300.0, [1])[:, 0]
+    array([ 3.33333333e-03, -1.11111111e-05,  7.40740741e-08])
+    """
+    t = np.asarray(temperature, dtype=float)
+    out = np.empty((3, len(terms)) + t.shape)
+    inverse = 1.0 / t
+    for j, term in enumerate(terms):
+        column = out[:, j]
+        if term == 0:
+            column[0], column[1], column[2] = 1.0, 0.0, 0.0
+        elif term == 1:
+            column[0], column[1], column[2] = inverse, -inverse**2, 2.0 * inverse**3
+        elif term == 2:
+            column[0], column[1], column[2] = np.log(t), inverse, -inverse**2
+        elif term == 3:
+            column[0], column[1], column[2] = t, 1.0, 0.0
+        elif term == 4:
+            column[0], column[1], column[2] = inverse**2, -2.0 * inverse**3, 6.0 * inverse**4
+        else:
+            column[0], column[1], column[2] = t * t, 2.0 * t, 2.0
+    return out
+
+
 def ln_henry(temperature, a, b, c=0.0, d=0.0, e=0.0, f=0.0):
     """Henry's-law constant (volatility form, H = p_i / x_i) and its derivative.
 
-    ln(H / Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2
+    ln(H / Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2  (terms: ``ln_henry_terms``)
 
     Parameters
     ----------
@@ -89,23 +131,45 @@ def ln_henry(temperature, a, b, c=0.0, d=0.0, e=0.0, f=0.0):
     ----------
     R. Sander, Compilation of Henry's law constants (version 4.0) for water as solvent,
     Atmos. Chem. Phys. 15 (2015) 4399-4981 (as tabulated in thermo's 'Sander T dep' databank).
+
+    >>> [round(float(v), 6) for v in ln_henry(298.15, 10.0, -2000.0)]
+    [3.291967, 0.022499]
     """
-    t = temperature
-    ln_h = a + b / t + c * np.log(t) + d * t + e / t**2 + f * t**2
-    dln_h_dt = -b / t**2 + c / t + d - 2.0 * e / t**3 + 2.0 * f * t
-    return ln_h, dln_h_dt
+    coefficients = (a, b, c, d, e, f)
+    value = ln_henry_terms(temperature)[:2]
+    total = sum(value[:, k] * coefficients[k] for k in range(HENRY_TERMS))
+    return total[0], total[1]
 
 
 def henry_solution_enthalpy(temperature, a, b, c=0.0, d=0.0, e=0.0, f=0.0):
     """Molar enthalpy of solution implied by ``ln_henry`` (van 't Hoff), per gas constant.
 
-    dH_sol / R = d ln H / d(1/T) = b - c T - d T**2 + 2 e / T - 2 f T**3  (negative when
-    dissolving releases heat). Returns (dH_sol/R [K], d(dH_sol/R)/dT [-]).
+    dH_sol / R = d ln H / d(1/T) = -T**2 d ln H/dT (negative when dissolving releases heat).
+    Returns (dH_sol/R [K], d(dH_sol/R)/dT [-]).
+
+    >>> [round(float(v), 9) for v in henry_solution_enthalpy(298.15, 10.0, -2000.0, 1.0)]
+    [-2298.15, -1.0]
     """
+    coefficients = (a, b, c, d, e, f)
+    terms = ln_henry_terms(temperature)
+    first, second = (sum(terms[order, k] * coefficients[k] for k in range(HENRY_TERMS)) for order in (1, 2))
+    return solution_enthalpy_from_slope(temperature, first, second)
+
+
+def solution_enthalpy_from_slope(temperature, dln_h_dt, d2ln_h_dt2):
+    """van 't Hoff: dH_sol/R = -T**2 d ln H/dT [K] and its temperature derivative [-]."""
     t = temperature
-    value = b - c * t - d * t**2 + 2.0 * e / t - 2.0 * f * t**3
-    derivative = -c - 2.0 * d * t - 2.0 * e / t**2 - 6.0 * f * t**2
-    return value, derivative
+    return -t * t * dln_h_dt, -2.0 * t * dln_h_dt - t * t * d2ln_h_dt2
+
+
+def two_term_intercept(value_at_reference, t_reference, b):
+    """The a of ln(value) = a + b/T through value_at_reference at t_reference (b [K]):
+    the two-term van 't Hoff or Clausius-Clapeyron form fixed by one point [-].
+
+    >>> round(two_term_intercept(1.0, 300.0, -3000.0), 12)
+    10.0
+    """
+    return float(np.log(value_at_reference)) - b / t_reference
 
 
 def dippr101(temperature, a, b, c=0.0, d=0.0, e=0.0):
@@ -113,19 +177,24 @@ def dippr101(temperature, a, b, c=0.0, d=0.0, e=0.0):
 
     ln(P / Pa) = a + b/T + c ln T + d T**e
 
-    Returns (ln_p [-], dln_p_dt [1/K]). With c = d = 0 this is the Clausius-Clapeyron form
-    with a constant heat of vaporisation -b R.
+    Returns (ln_p [-], dln_p_dt [1/K], d2ln_p_dt2 [1/K**2]). With c = d = 0 this is the
+    Clausius-Clapeyron form with a constant heat of vaporisation -b R.
 
     References
     ----------
     R. L. Rowley et al., DIPPR Data Compilation of Pure Chemical Properties (AIChE);
     coefficients as printed in Perry's Chemical Engineers' Handbook, 8th ed. (2008), Table 2-8.
+
+    >>> [round(float(v), 6) for v in dippr101(300.0, 20.0, -3000.0)]
+    [10.0, 0.033333, -0.000222]
     """
-    t = temperature
+    t = np.asarray(temperature, dtype=float)
+    inverse = 1.0 / t
     t_power = d * t**e
-    ln_p = a + b / t + c * np.log(t) + t_power
-    dln_p_dt = -b / t**2 + c / t + e * t_power / t
-    return ln_p, dln_p_dt
+    ln_p = a + b * inverse + c * np.log(t) + t_power
+    dln_p_dt = (-b * inverse + c + e * t_power) * inverse
+    d2ln_p_dt2 = (2.0 * b * inverse - c + e * (e - 1.0) * t_power) * inverse * inverse
+    return ln_p, dln_p_dt, d2ln_p_dt2
 
 
 def iapws_if97_saturation_pressure(temperature):
@@ -223,9 +292,8 @@ def iapws_henry(temperature, a, b, c):
 
     Returns
     -------
-    (ln_h, dln_h_dt, dh_sol_r, ddh_sol_r_dt) : ndarrays   ln(kH/Pa) [-], its temperature
-        derivative [1/K], the enthalpy of solution per gas constant dH_sol/R = d ln kH/d(1/T) [K]
-        and its temperature derivative [-] (van 't Hoff, as ``henry_solution_enthalpy``).
+    (ln_h, dln_h_dt, d2ln_h_dt2) : ndarrays   ln(kH/Pa) [-] and its first and second
+        temperature derivatives [1/K], [1/K**2] (enthalpy of solution: ``solution_enthalpy_from_slope``).
 
     References
     ----------
@@ -253,11 +321,10 @@ def iapws_henry(temperature, a, b, c):
     ln_h = ln_p + f
     dln_h = dln_p + df / tc
     d2ln_h = d2ln_p + d2f / tc**2
-    dh_sol_r = -t * t * dln_h
-    ddh_sol_r = -2.0 * t * dln_h - t * t * d2ln_h
     above = t_given > IAPWS_HENRY_CAP  # van 't Hoff continuation with the slope at the cap
     if np.any(above):
-        ln_h = np.where(above, ln_h + dh_sol_r * (1.0 / t_given - 1.0 / t), ln_h)
-        dln_h = np.where(above, -dh_sol_r / t_given**2, dln_h)
-        ddh_sol_r = np.where(above, 0.0, ddh_sol_r)
-    return ln_h, dln_h, dh_sol_r, ddh_sol_r
+        slope = -t * t * dln_h  # d ln H/d(1/T) at the cap, held
+        ln_h = np.where(above, ln_h + slope * (1.0 / t_given - 1.0 / t), ln_h)
+        dln_h = np.where(above, -slope / t_given**2, dln_h)
+        d2ln_h = np.where(above, 2.0 * slope / t_given**3, d2ln_h)
+    return ln_h, dln_h, d2ln_h

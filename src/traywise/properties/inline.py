@@ -4,10 +4,9 @@ Used by case files for inline definitions and for overriding one property of a l
 component (``dataclasses.replace(component, henry_in_water=henry_from_reference(...))``).
 """
 
-import math
-
 from .component import Component, HeatCapacity, HenryConstant, Quantity, VapourPressure
 from .constants import GAS_CONSTANT, T_REFERENCE
+from .correlations import two_term_intercept
 
 USER = "user"  # source key of values given in a case file
 USER_SOURCE = "given in the case file by the user"
@@ -25,7 +24,7 @@ def henry_from_reference(h_reference, t_reference, enthalpy_of_solution, *, t_ra
     """Henry's constant H = p/x [Pa] at t_reference [K] with a constant enthalpy of solution
     [J/mol] (negative when dissolving releases heat): ln H = a + b/T, b = dH_sol/R."""
     b = enthalpy_of_solution / GAS_CONSTANT
-    a = math.log(h_reference) - b / t_reference
+    a = two_term_intercept(h_reference, t_reference, b)
     return HenryConstant((a, b, 0.0, 0.0, 0.0, 0.0), *t_range, source)
 
 
@@ -33,7 +32,7 @@ def vapour_pressure_from_reference(p_reference, t_reference, heat_of_vaporisatio
     """Clausius-Clapeyron vapour pressure through p_reference [Pa] at t_reference [K] with a
     constant heat of vaporisation [J/mol]: ln P = a + b/T, b = -dH_vap/R."""
     b = -heat_of_vaporisation / GAS_CONSTANT
-    a = math.log(p_reference) - b / t_reference
+    a = two_term_intercept(p_reference, t_reference, b)
     return VapourPressure("dippr101", *t_range, source, (a, b, 0.0, 0.0, 0.0))
 
 

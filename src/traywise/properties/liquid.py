@@ -43,6 +43,7 @@ the liquid's amounts is followed exactly.
 import numpy as np
 
 from ..errors import CaseError, ComponentDataError
+from .correlations import dippr101, ln_henry_terms
 
 
 class AnchoredLiquid:
@@ -79,25 +80,14 @@ class AnchoredLiquid:
 
     def _ln_henry(self, t):
         """ln(H/Pa) of the anchored solutes and its two temperature derivatives, (3, n, a), at
-        t (n, 1); the form of ``correlations.ln_henry`` (its non-zero terms only),
-        ln H = a + b/T + c ln T + d T + e/T**2 + f T**2."""
-        total = np.zeros((3, t.shape[0], self._henry.shape[1]))
-        for j in self._henry_terms:
-            for order, term in enumerate(_henry_term(j, t)):
-                total[order] += term * self._henry[j]
-        return total
+        t (n, 1) (``correlations.ln_henry_terms``, its non-zero terms only)."""
+        terms = ln_henry_terms(t[:, 0], self._henry_terms)  # (3, k, n)
+        return np.einsum("okn,ka->ona", terms, self._henry[self._henry_terms])
 
     def _ln_psat(self, t):
-        """ln(Psat/Pa) of the anchored solutes (DIPPR 101, ``correlations.dippr101``) and its two
+        """ln(Psat/Pa) of the anchored solutes (``correlations.dippr101``) and its two
         temperature derivatives, (3, n, a), at t (n, 1)."""
-        a, b, c, d, e = self._dippr
-        power = d * t**e
-        inverse = 1.0 / t
-        out = np.empty((3, t.shape[0], a.size))
-        out[0] = a + b * inverse + c * np.log(t) + power
-        out[1] = (-b * inverse + c + e * power) * inverse
-        out[2] = (2.0 * b * inverse - c + e * (e - 1.0) * power) * inverse * inverse
-        return out
+        return np.array(dippr101(t, *self._dippr))
 
     def evaluate(self, liquid_mole_fractions, temperature):
         """(phi, dphi/dT [1/K], d2phi/dT2 [1/K2], dphi_i/dx_j) for the members, shapes (n, m)
@@ -140,18 +130,3 @@ class AnchoredLiquid:
         d[:, w, :] += a0
         return correction, d
 
-
-def _henry_term(j, t):
-    """Term j of ln H = a + b/T + c ln T + d T + e/T**2 + f T**2 without its coefficient, and its
-    first and second temperature derivatives, at t (n, 1)."""
-    if j == 0:
-        return np.ones_like(t), np.zeros_like(t), np.zeros_like(t)
-    if j == 1:
-        return 1.0 / t, -1.0 / t**2, 2.0 / t**3
-    if j == 2:
-        return np.log(t), 1.0 / t, -1.0 / t**2
-    if j == 3:
-        return t, np.ones_like(t), np.zeros_like(t)
-    if j == 4:
-        return 1.0 / t**2, -2.0 / t**3, 6.0 / t**4
-    return t * t, 2.0 * t, np.full_like(t, 2.0)

@@ -34,7 +34,7 @@ import numpy as np
 from ..errors import CaseError
 from .component import MODEL_KINDS
 from .constants import GAS_CONSTANT, T_REFERENCE
-from .correlations import iapws_henry, stable_polynomial_antiderivative
+from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope, stable_polynomial_antiderivative
 from .equilibrium_table import TINY
 from .liquid import AnchoredLiquid
 
@@ -111,27 +111,6 @@ class _StackedPolynomials:
         """(integral of Cp from T_ref to T [J/mol], Cp [J/(mol K)]), shape (n, m)."""
         value, cp = self._integral(temperature)
         return value - self.integral_at_reference, cp
-
-
-def _henry_basis(temperature, terms):
-    """Basis of ``ln_henry`` and ``henry_solution_enthalpy`` for the coefficients ``terms``
-    (indices into a..f): array (4, n, len(terms)) whose product with the coefficients gives
-    ln H, d ln H/dT [1/K], dH_sol/R [K] and d(dH_sol/R)/dT [-] (same formulas, as a matrix)."""
-    t = temperature
-    inverse = 1.0 / t
-    columns = {
-        0: (1.0, 0.0, 0.0, 0.0),
-        1: (inverse, -inverse * inverse, 1.0, 0.0),
-        2: (np.log(t), inverse, -t, -1.0),
-        3: (t, 1.0, -t * t, -2.0 * t),
-        4: (inverse * inverse, -2.0 * inverse**3, 2.0 * inverse, -2.0 * inverse * inverse),
-        5: (t * t, 2.0 * t, -2.0 * t**3, -6.0 * t * t),
-    }
-    basis = np.empty((4, t.size, len(terms)))
-    for j, term in enumerate(terms):
-        for row, value in enumerate(columns[term]):
-            basis[row, :, j] = value
-    return basis
 
 
 class PropertyModel:
@@ -213,6 +192,13 @@ class PropertyModel:
         if missing:
             raise CaseError(component.name, f"equilibrium model '{kind}' needs {', '.join(missing)}, which it lacks")
 
+    def component_index(self, key):
+        """Position of the component named ``key`` (name, alias, formula or CAS number)."""
+        for i, component in enumerate(self.components):
+            if component.matches(key):
+                return i
+        raise CaseError("key", f"'{key}' is not a component of the model; expected one of {', '.join(self.names)}")
+
     def _position(self, name, where):
         if name not in self.names:
             raise CaseError(where, f"'{name}' is not a component of the model; expected one of {', '.join(self.names)}")
@@ -233,7 +219,7 @@ class PropertyModel:
         outside = [self.names[i] for i in self.index["activity"] if i not in members]
         if outside:
             raise CaseError("activity", f"{', '.join(outside)} use model 'activity' but are not in the activity model")
-        water = [p for p, i in enumerate(members) if self.components[i].cas == "7732-18-5" or self.components[i].matches("water")]
+        water = [p for p, i in enumerate(members) if self.components[i].is_water]
         anchored = [(p, self.components[i].henry_in_water, self.components[i].vapour_pressure)
                     for p, i in enumerate(members) if self.equilibrium[i] == "activity"]
         liquid = AnchoredLiquid(activity, members, anchored, water[0] if water else None)
@@ -298,7 +284,8 @@ class PropertyModel:
         ln_p = np.log(p)[:, None]
         for henry, terms in ((self._henry_polynomial, self._polynomial_henry), (self._henry_iapws, self._iapws_henry)):
             if henry.size:
-                ln_h, dln_h, dh_sol, ddh_sol = terms(t)
+                ln_h, dln_h, d2ln_h = terms(t)
+                dh_sol, ddh_sol = solution_enthalpy_from_slope(t[:, None], dln_h, d2ln_h)
                 ln_k[:, henry] = ln_h - ln_p
                 dlnk_dt[:, henry] = dln_h
                 h_liquid[:, henry] += GAS_CONSTANT * dh_sol
@@ -331,8 +318,8 @@ class PropertyModel:
         return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
 
     def _polynomial_henry(self, t):
-        """ln H, d ln H/dT, dH_sol/R and its T-derivative of the 'ln_h' gases, each (n, g)."""
-        return _henry_basis(t, self._henry_terms) @ self._henry
+        """ln H and its first two temperature derivatives of the 'ln_h' gases, each (n, g)."""
+        return ln_henry_terms(t, self._henry_terms).transpose(0, 2, 1) @ self._henry
 
     def _iapws_henry(self, t):
         """The same for the gases whose Henry's constant is the IAPWS guideline's, each (n, g)."""
