@@ -27,6 +27,11 @@ def read_gas_model(top, model, gas_flows, pressures, gas_temperature):
     kind = "ideal" if section is None else section.text("model", "ideal", choices=GAS_MODELS)
     p_high = float(np.max(pressures))
     if kind == "ideal":
+        eos = [name for name, kind in zip(model.names, model.equilibrium) if kind == "eos"]
+        if eos:
+            top.fail("gas_model" if section is not None else "components",
+                     f"equilibrium 'eos' ({', '.join(eos)}) describes both phases by the Peng-Robinson equation: "
+                     "add [gas_model] with model = \"peng_robinson\"")
         warnings = []
         if p_high > IDEAL_GAS_LIMIT:
             warnings.append(f"the gas is treated as ideal at up to {p_high / 1e5:.3g} bar: above "

@@ -41,8 +41,8 @@ TOP_KEYS = (
     "internals",
 )
 REPORT_KEYS = ("plots", "xy_solute")
-LIQUID_KINDS = ("raoult", "nonvolatile")  # equilibrium models of components that can be the solvent
-SOLUBLE_KINDS = ("henry", "raoult", "activity", "table")  # models with a finite, non-zero K: candidates for the key
+LIQUID_KINDS = ("raoult", "nonvolatile", "eos")  # equilibrium models of components that can be the solvent
+SOLUBLE_KINDS = ("henry", "raoult", "activity", "table", "eos")  # models with a finite, non-zero K: candidates for the key
 
 
 @dataclass(frozen=True, eq=False)

@@ -1,6 +1,6 @@
 """Generate the component library: one TOML file per component in components/.
 
-    python -m traywise.databank.build                  rebuild the 21 default components
+    python -m traywise.databank.build                  rebuild the 22 default components
     python -m traywise.databank.build "1-butanol" 71-43-2   add or rebuild components by name or CAS
     python -m traywise.databank.build --output DIR ...      write somewhere else (for audits)
 
@@ -34,6 +34,7 @@ DEFAULT_COMPONENTS = (
     "water", "nitrogen", "oxygen", "argon", "carbon dioxide", "sulfur dioxide", "hydrogen sulfide",
     "ammonia", "hydrogen chloride", "methane", "acetone", "methanol", "ethanol",
     "hydrogen", "carbon monoxide", "ethane", "propane", "n-butane", "chlorine", "benzene", "toluene",
+    "n-hexadecane",
 )
 # Formulas as engineers write them (chemicals gives Hill order, e.g. 'O2S'), by CAS number.
 FORMULAS = {

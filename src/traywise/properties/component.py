@@ -26,7 +26,7 @@ WATER_CAS = "7732-18-5"
 EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a component's own default model
 # Models a property model can also give a component: they need more than the component's data
 # (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
-MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table")
+MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos")
 
 
 @dataclass(frozen=True)

@@ -11,6 +11,8 @@ Equilibrium (K_i = y_i / x_i), per component:
   activity     K = gamma(x, T) Psat(T) / P          (organic solute, gamma from the activity model,
                                                      anchored to its Henry's constant in water)
   table        K = p(u, T) / (x P)                  (user equilibrium table, u = solute/solvent)
+  eos          K = phi_L(x, T, P) / phi_V             (hydrocarbon oils, ``eos_liquid``; h_L = h_V + h_res,L)
+A real gas (``gas_phase``) divides every K by phi_V and adds the residual enthalpy to h_V.
 With an activity model (``activity=``), 'raoult' members get gamma(x, T) too and 'nonvolatile'
 members their excess enthalpy. A 'henry' gas keeps its Henry's constant in water whatever the
 liquid (see ``PropertyModel``).
@@ -33,8 +35,10 @@ import numpy as np
 
 from ..errors import CaseError
 from .component import MODEL_KINDS
+from .binary import kij_matrix
 from .constants import GAS_CONSTANT, T_REFERENCE
 from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope, stable_polynomial_antiderivative
+from .eos_liquid import EosLiquid
 from .equilibrium_table import TINY
 from .liquid import AnchoredLiquid
 
@@ -173,7 +177,11 @@ class PropertyModel:
         self.tables = dict(tables or {})
         self._activity_liquid = self._anchored_liquid(activity)
         self._table_models = self._prepared_tables()
-        self.composition_dependent = self._activity_liquid is not None or bool(self._table_models)
+        self._eos_liquid = _eos_liquid(self.components, index["eos"])
+        if self._eos_liquid is not None and not liquid:
+            self.reference_liquid[self._eos_liquid.heaviest] = 1.0
+        self.composition_dependent = (self._activity_liquid is not None or bool(self._table_models)
+                                      or self._eos_liquid is not None)
         self.gas_phase = gas_phase  # a gas_phase.GasPhase (real gas), or None for the ideal gas
 
     @staticmethod
@@ -187,6 +195,7 @@ class PropertyModel:
             "insoluble": (),
             "activity": ("henry_in_water", "vapour_pressure"),
             "table": (),
+            "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
         }[kind]
         missing = [key for key in needs if getattr(component, key) is None]
         if missing:
@@ -309,9 +318,10 @@ class PropertyModel:
                 self._add_activity(props, t, ln_p, x)
             for i, (s, table) in self._table_models.items():
                 _add_table(props, t, ln_p, x, i, s, table)
+            if self._eos_liquid is not None:
+                self._eos_liquid.apply(props, t, p, x)
         if self.gas_phase is not None:
-            arrays = (ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt)
-            self.gas_phase.apply(t, p, arrays, vapour_mole_fractions)
+            self.gas_phase.apply(t, p, (ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt), vapour_mole_fractions)
         k = np.exp(ln_k)
         k[:, idx["nonvolatile"]] = 0.0
         k[:, idx["insoluble"]] = np.inf
@@ -379,6 +389,12 @@ class PropertyModel:
         if self.gas_phase is not None:
             warnings.extend(self.gas_phase.range_warnings(temperatures))
         return warnings
+
+
+def _eos_liquid(components, members):
+    """The Peng-Robinson liquid of the 'eos' components (``eos_liquid.EosLiquid``), or None."""
+    chosen = [components[i] for i in members]
+    return EosLiquid(members, chosen, kij_matrix(chosen)[0]) if chosen else None
 
 
 def _add_table(props, t, ln_p, x, i, s, table):
