@@ -17,7 +17,7 @@ def build_solution(equations, x, iterations, norm, tolerance):
     """The ``ColumnSolution`` of a converged iterate, after the physical and closure checks."""
     column, model = equations.column, equations.model
     v, l, t = (a.copy() for a in equations.split(x))
-    props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True))
+    props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True), v / v.sum(axis=1, keepdims=True))
     _check_physical(equations, v, l, props, iterations, norm)
     _check_state(model, l, t, iterations, norm)
     heat_removed = equations.heat_removed(v, l, props)
@@ -106,13 +106,14 @@ def _heat_breakdown(equations, v, l, t, heat_removed):
     gas_out, liquid_out, _, _ = _outlets(equations, v, l)
     p_top, p_bottom = equations.pressure[[0]], equations.pressure[[-1]]
 
-    def h(phase, temperature, pressure, liquid=None):
-        x = None if liquid is None else liquid[None, :] / liquid.sum()
-        props = model.evaluate(np.array([temperature]), pressure, x)
-        return (props.h_vapour if phase == "vapour" else props.h_liquid)[0]
+    def h(phase, temperature, pressure, flows=None):
+        fractions = None if flows is None else flows[None, :] / flows.sum()
+        if phase == "vapour":
+            return model.evaluate(np.array([temperature]), pressure, vapour_mole_fractions=fractions).h_vapour[0]
+        return model.evaluate(np.array([temperature]), pressure, fractions).h_liquid[0]
 
-    h_v_gas_in = h("vapour", column.gas.temperature, p_bottom)
-    h_v_top = h("vapour", t[0], p_top)
+    h_v_gas_in = h("vapour", column.gas.temperature, p_bottom, gas_in)
+    h_v_top = h("vapour", t[0], p_top, v[0])
     h_l_solvent_in = h("liquid", column.solvent.temperature, p_top, solvent_in)
     h_l_bottom = h("liquid", t[-1], p_bottom, l[-1])
     absorbed = gas_in - gas_out

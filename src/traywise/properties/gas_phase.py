@@ -12,10 +12,9 @@ Enthalpies keep the van 't Hoff identity d ln K/d(1/T) = -(h_V - h_L)/R:
     h_V += h_res,i = -R T**2 d ln phi_i/dT    (partial molar residual enthalpy, PR)
     h_L += -R T**2 d ln PF_i/dT               (Henry's-law solutes)
 
-The fugacity coefficients are those of the vapour at the stage's temperature and pressure and at
-the composition given (``vapour_mole_fractions``), else at the reference composition (the gas
-feed): the solver holds the vapour composition of phi at the feed's, which for an absorber whose
-gas stays mostly carrier moves phi by well under 1 % (see DEVELOPERS.md).
+The fugacity coefficients are those of the vapour at the stage's temperature, pressure and
+composition (``vapour_mole_fractions``, as the solver passes them), else at the reference
+composition (the gas feed; starting estimates, single streams).
 """
 
 import numpy as np
@@ -25,6 +24,7 @@ from .correlations import IAPWS_HENRY_CAP, wagner_pruss_saturation_pressure
 from .eos import PengRobinson
 
 DERIVATIVE_STEP = 1e-2  # K, central difference of the residual enthalpy for its heat capacity
+COMPOSITION_STEP = 1e-6  # [-], central difference in a vapour mole fraction
 NEAR_CRITICAL = 0.85  # T/Tc above which a liquid's properties are doubtful (common practice)
 
 
@@ -54,16 +54,28 @@ class GasPhase:
 
     def apply(self, t, p, arrays, vapour_mole_fractions=None):
         """Add the corrections to ``arrays`` (ln_k, dlnk_dt, h_vapour, dh_vapour_dt, h_liquid,
-        dh_liquid_dt, each (n, c)) in place, at temperature t (n,) [K] and pressure p (n,) [Pa]."""
+        dh_liquid_dt, each (n, c)) in place, at temperature t (n,) [K] and pressure p (n,) [Pa].
+
+        Returns d ln K_i/d y_k (n, c, c) when vapour mole fractions are given (central
+        differences of the analytic ln phi, in one batch), else None (reference composition)."""
         ln_k, dlnk_dt, h_vapour, dh_vapour_dt, h_liquid, dh_liquid_dt = arrays
         y = self._composition(t, vapour_mole_fractions)
+        n, c = y.shape
+        shifts = 2 + (2 * c if vapour_mole_fractions is not None else 0)
+        temperatures = np.repeat(t[None], shifts, axis=0)
+        temperatures[0] += DERIVATIVE_STEP
+        temperatures[1] -= DERIVATIVE_STEP
+        compositions = np.repeat(y[None], shifts, axis=0)
+        for k in range(c if vapour_mole_fractions is not None else 0):
+            compositions[2 + 2 * k, :, k] += COMPOSITION_STEP
+            compositions[3 + 2 * k, :, k] -= COMPOSITION_STEP
+        batch = self.eos.phase(temperatures.reshape(-1), np.tile(p, shifts), compositions.reshape(-1, c), "vapour")
         state = self.eos.phase(t, p, y, "vapour")
-        hot = self.eos.phase(t + DERIVATIVE_STEP, p, y, "vapour").h_residual
-        cold = self.eos.phase(t - DERIVATIVE_STEP, p, y, "vapour").h_residual
+        h_res = batch.h_residual.reshape(shifts, n, c)
         ln_k -= state.ln_phi
         dlnk_dt -= state.dln_phi_dt
         h_vapour += state.h_residual
-        dh_vapour_dt += (hot - cold) / (2.0 * DERIVATIVE_STEP)
+        dh_vapour_dt += (h_res[0] - h_res[1]) / (2.0 * DERIVATIVE_STEP)
         if self.henry.size:
             ln_pf, dln_pf, d2ln_pf = self._poynting(t, p)
             ln_k[:, self.henry] += ln_pf
@@ -71,6 +83,10 @@ class GasPhase:
             tt = (t * t)[:, None]
             h_liquid[:, self.henry] -= GAS_CONSTANT * tt * dln_pf
             dh_liquid_dt[:, self.henry] -= GAS_CONSTANT * (2.0 * t[:, None] * dln_pf + tt * d2ln_pf)
+        if vapour_mole_fractions is None:
+            return None
+        ln_phi = batch.ln_phi.reshape(shifts, n, c)
+        return -np.transpose((ln_phi[2::2] - ln_phi[3::2]) / (2.0 * COMPOSITION_STEP), (1, 2, 0))
 
     def fugacity_coefficients(self, t, p, vapour_mole_fractions=None):
         """Vapour fugacity coefficients (n, c) [-] at the given or the reference composition."""

@@ -48,9 +48,8 @@ class StageProperties:
     """Properties on each stage, arrays (n_stages, n_components).
 
     k [-], dlnk_dt [1/K], h_vapour and h_liquid (partial molar enthalpies) [J/mol] and their
-    temperature derivatives [J/(mol K)]. ``dlnk_dx`` (n_stages, n_components, n_components)
-    [-] is the composition dependence of ln K at fixed T (None when K does not depend on x).
-    """
+    temperature derivatives [J/(mol K)]. ``dlnk_dx`` and ``dlnk_dy`` (n_stages, n_components,
+    n_components) [-]: ln K against liquid and vapour mole fractions at fixed T (or None)."""
 
     k: np.ndarray
     dlnk_dt: np.ndarray
@@ -59,6 +58,7 @@ class StageProperties:
     h_liquid: np.ndarray
     dh_liquid_dt: np.ndarray
     dlnk_dx: np.ndarray | None = None
+    dlnk_dy: np.ndarray | None = None
 
 
 @dataclass
@@ -130,10 +130,11 @@ class PropertyModel:
         'raoult', 'activity' or 'nonvolatile' components, and every 'activity' component one
         of them; anchoring to Henry's constants needs water among them.
     tables : dict, optional   Name -> ``EquilibriumTable`` for every 'table' component.
+    gas_phase : gas_phase.GasPhase, optional   The real gas (None: ideal gas); also settable.
 
     Without liquid mole fractions, ``evaluate`` takes the reference liquid: the first 'raoult'
-    or 'nonvolatile' component, pure, with every solute at infinite dilution in it (where an
-    anchored solute's K is its Henry's constant over P).
+    or 'nonvolatile' component (else the heaviest 'eos' one), pure, every solute at infinite
+    dilution in it (where an anchored solute's K is its Henry's constant over P).
 
     Gases ('henry') keep their Henry's constant in water whatever else the liquid holds. That
     is right while water is most of the liquid (organics below about 10 mol %, common
@@ -182,7 +183,7 @@ class PropertyModel:
             self.reference_liquid[self._eos_liquid.heaviest] = 1.0
         self.composition_dependent = (self._activity_liquid is not None or bool(self._table_models)
                                       or self._eos_liquid is not None)
-        self.gas_phase = gas_phase  # a gas_phase.GasPhase (real gas), or None for the ideal gas
+        self.gas_phase = gas_phase
 
     @staticmethod
     def _check(component, kind):
@@ -278,9 +279,8 @@ class PropertyModel:
     def evaluate(self, temperature, pressure, liquid_mole_fractions=None, vapour_mole_fractions=None):
         """All stage properties for temperature (n,) [K], pressure (n,) [Pa] and, for the
         composition-dependent models, liquid mole fractions (n, c) [-] (default: the reference
-        liquid, see the class docstring; ignored by the ideal-solution models). With a real gas
-        (``gas_phase``), vapour mole fractions (n, c) for its fugacity coefficients (default: its
-        reference composition)."""
+        liquid, see the class docstring; ignored by the ideal-solution models); for a real gas,
+        vapour mole fractions (n, c) (default: the gas phase's reference composition)."""
         t = np.asarray(temperature, dtype=float).reshape(-1)
         p = np.broadcast_to(np.asarray(pressure, dtype=float).reshape(-1), t.shape)
         n, m, idx = t.size, self.n_components, self.index
@@ -320,12 +320,12 @@ class PropertyModel:
                 _add_table(props, t, ln_p, x, i, s, table)
             if self._eos_liquid is not None:
                 self._eos_liquid.apply(props, t, p, x)
-        if self.gas_phase is not None:
-            self.gas_phase.apply(t, p, (ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt), vapour_mole_fractions)
+        dlnk_dy = None if self.gas_phase is None else self.gas_phase.apply(
+            t, p, (ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt), vapour_mole_fractions)
         k = np.exp(ln_k)
         k[:, idx["nonvolatile"]] = 0.0
         k[:, idx["insoluble"]] = np.inf
-        return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
+        return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx, dlnk_dy)
 
     def _polynomial_henry(self, t):
         """ln H and its first two temperature derivatives of the 'ln_h' gases, each (n, g)."""
