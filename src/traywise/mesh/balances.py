@@ -17,7 +17,8 @@ def build_solution(equations, x, iterations, norm, tolerance):
     """The ``ColumnSolution`` of a converged iterate, after the physical and closure checks."""
     column, model = equations.column, equations.model
     v, l, t = (a.copy() for a in equations.split(x))
-    props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True), v / v.sum(axis=1, keepdims=True))
+    y = v / np.maximum(v.sum(axis=1, keepdims=True), 1e-300)  # a vapour-free stage is refused below
+    props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True), y)
     _check_physical(equations, v, l, props, iterations, norm)
     _check_state(model, l, t, iterations, norm)
     heat_removed = equations.heat_removed(v, l, props)
