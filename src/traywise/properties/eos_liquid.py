@@ -46,24 +46,24 @@ class EosLiquid:
         members = self.members
         x_members = np.maximum(x[:, members], 0.0)
         x_members = x_members / np.maximum(x_members.sum(axis=1, keepdims=True), 1e-300)
-        # one batch: the stage values, T +- dT, and x_k +- dx for each member k
-        shifted = np.repeat(x_members[None], 2 + 2 * m, axis=0)  # (2 + 2m, n, m)
+        # one batch: the stages as they are, T +- dT, and x_k +- dx for each member k
+        shifts = 3 + 2 * m
+        shifted = np.repeat(x_members[None], shifts, axis=0)  # (shifts, n, m)
         for k in range(m):
-            shifted[2 + 2 * k, :, k] += COMPOSITION_STEP
-            shifted[3 + 2 * k, :, k] -= COMPOSITION_STEP
-        temperatures = np.repeat(t[None], 2 + 2 * m, axis=0)
-        temperatures[0] += TEMPERATURE_STEP
-        temperatures[1] -= TEMPERATURE_STEP
-        batch = self.eos.phase(temperatures.reshape(-1), np.tile(p, 2 + 2 * m), shifted.reshape(-1, m), "liquid")
-        state = self.eos.phase(t, p, x_members, "liquid")
-        ln_phi = batch.ln_phi.reshape(2 + 2 * m, n, m)
-        h_res = batch.h_residual.reshape(2 + 2 * m, n, m)
-        props.ln_k[:, members] = state.ln_phi
-        props.dlnk_dt[:, members] = state.dln_phi_dt
-        props.h_liquid[:, members] = props.h_vapour[:, members] + state.h_residual
-        props.dh_liquid_dt[:, members] = props.dh_vapour_dt[:, members] + (h_res[0] - h_res[1]) / (2.0 * TEMPERATURE_STEP)
+            shifted[3 + 2 * k, :, k] += COMPOSITION_STEP
+            shifted[4 + 2 * k, :, k] -= COMPOSITION_STEP
+        temperatures = np.repeat(t[None], shifts, axis=0)
+        temperatures[1] += TEMPERATURE_STEP
+        temperatures[2] -= TEMPERATURE_STEP
+        batch = self.eos.phase(temperatures.reshape(-1), np.tile(p, shifts), shifted.reshape(-1, m), "liquid")
+        ln_phi = batch.ln_phi.reshape(shifts, n, m)
+        h_res = batch.h_residual.reshape(shifts, n, m)
+        props.ln_k[:, members] = ln_phi[0]
+        props.dlnk_dt[:, members] = batch.dln_phi_dt.reshape(shifts, n, m)[0]
+        props.h_liquid[:, members] = props.h_vapour[:, members] + h_res[0]
+        props.dh_liquid_dt[:, members] = props.dh_vapour_dt[:, members] + (h_res[1] - h_res[2]) / (2.0 * TEMPERATURE_STEP)
         # d ln phi_i / d x_k of the renormalised liquid, by central differences
-        derivative = (ln_phi[2::2] - ln_phi[3::2]) / (2.0 * COMPOSITION_STEP)  # (m, n, m): k, stage, i
+        derivative = (ln_phi[3::2] - ln_phi[4::2]) / (2.0 * COMPOSITION_STEP)  # (m, n, m): k, stage, i
         block = np.transpose(derivative, (1, 2, 0))  # (n, i, k)
         total = np.maximum(x[:, members].sum(axis=1), 1e-300)[:, None, None]
         props.dlnk_dx[:, members[:, None], members[None, :]] += block / total

@@ -61,21 +61,22 @@ class GasPhase:
         ln_k, dlnk_dt, h_vapour, dh_vapour_dt, h_liquid, dh_liquid_dt = arrays
         y = self._composition(t, vapour_mole_fractions)
         n, c = y.shape
-        shifts = 2 + (2 * c if vapour_mole_fractions is not None else 0)
+        # one batch: the stages as they are, T +- dT, and (given y) y_k +- dy for each component
+        shifts = 3 + (2 * c if vapour_mole_fractions is not None else 0)
         temperatures = np.repeat(t[None], shifts, axis=0)
-        temperatures[0] += DERIVATIVE_STEP
-        temperatures[1] -= DERIVATIVE_STEP
+        temperatures[1] += DERIVATIVE_STEP
+        temperatures[2] -= DERIVATIVE_STEP
         compositions = np.repeat(y[None], shifts, axis=0)
         for k in range(c if vapour_mole_fractions is not None else 0):
-            compositions[2 + 2 * k, :, k] += COMPOSITION_STEP
-            compositions[3 + 2 * k, :, k] -= COMPOSITION_STEP
+            compositions[3 + 2 * k, :, k] += COMPOSITION_STEP
+            compositions[4 + 2 * k, :, k] -= COMPOSITION_STEP
         batch = self.eos.phase(temperatures.reshape(-1), np.tile(p, shifts), compositions.reshape(-1, c), "vapour")
-        state = self.eos.phase(t, p, y, "vapour")
         h_res = batch.h_residual.reshape(shifts, n, c)
-        ln_k -= state.ln_phi
-        dlnk_dt -= state.dln_phi_dt
-        h_vapour += state.h_residual
-        dh_vapour_dt += (h_res[0] - h_res[1]) / (2.0 * DERIVATIVE_STEP)
+        ln_phi = batch.ln_phi.reshape(shifts, n, c)
+        ln_k -= ln_phi[0]
+        dlnk_dt -= batch.dln_phi_dt.reshape(shifts, n, c)[0]
+        h_vapour += h_res[0]
+        dh_vapour_dt += (h_res[1] - h_res[2]) / (2.0 * DERIVATIVE_STEP)
         if self.henry.size:
             ln_pf, dln_pf, d2ln_pf = self._poynting(t, p)
             ln_k[:, self.henry] += ln_pf
@@ -85,8 +86,7 @@ class GasPhase:
             dh_liquid_dt[:, self.henry] -= GAS_CONSTANT * (2.0 * t[:, None] * dln_pf + tt * d2ln_pf)
         if vapour_mole_fractions is None:
             return None
-        ln_phi = batch.ln_phi.reshape(shifts, n, c)
-        return -np.transpose((ln_phi[2::2] - ln_phi[3::2]) / (2.0 * COMPOSITION_STEP), (1, 2, 0))
+        return -np.transpose((ln_phi[3::2] - ln_phi[4::2]) / (2.0 * COMPOSITION_STEP), (1, 2, 0))
 
     def fugacity_coefficients(self, t, p, vapour_mole_fractions=None):
         """Vapour fugacity coefficients (n, c) [-] at the given or the reference composition."""
@@ -129,11 +129,11 @@ class GasPhase:
 
     def dense_gas_warning(self, temperature, pressure):
         """A warning when the reference gas at temperature [K] and pressure [Pa] is dense
-        (compressibility factor below 0.8), where the Henry's-law liquid with fixed-composition
-        fugacity coefficients is doubtful; else None."""
+        (compressibility factor below 0.8), where Henry's law with a constant partial molar volume
+        and a cubic equation's gas are doubtful; else None."""
         t = np.array([float(temperature)])
         z = float(self.eos.phase(t, np.array([float(pressure)]), self._composition(t, None), "vapour").z[0])
         if z >= 0.8:
             return None
-        return (f"the gas is dense (compressibility factor {z:.2f} at {pressure / 1e5:.3g} bar): fugacity coefficients "
-                "held at the feed composition and Henry's law for the liquid are doubtful; check against data")
+        return (f"the gas is dense (compressibility factor {z:.2f} at {pressure / 1e5:.3g} bar): the cubic equation's "
+                "fugacity coefficients and Henry's law with constant partial molar volumes are doubtful; check against data")
