@@ -107,7 +107,7 @@ def test_concentrated_curved_case_steps_sensibly():
     )
     k = 2.0e5 / P_STANDARD
     assert design.k_value == pytest.approx(k, rel=1e-12)
-    assert (design.inert_gas_flow, design.solvent_flow) == (80.0, 250.0)
+    assert (design.inert_gas_flow, design.inert_solvent_flow) == (80.0, 250.0)
     assert design.gas_ratio_in == 0.25 and design.liquid_ratio_in == 0.0
     assert design.gas_ratio_out == pytest.approx(0.025, rel=1e-14)
     assert design.liquid_ratio_out == pytest.approx(0.072, rel=1e-14)
@@ -176,13 +176,13 @@ def test_inert_basis_bookkeeping_and_trays():
         model, "solute", gas_flows=[70.0, 0.5, 10.0], solvent_flows=[0.0, 200.0, 1.0],
         temperature=T, pressure=P_STANDARD, target_fraction_absorbed=0.8, overall_efficiency=0.55,
     )
-    assert design.inert_gas_flow == 70.5 and design.solvent_flow == 200.0
+    assert design.inert_gas_flow == 70.5 and design.inert_solvent_flow == 200.0
     assert design.gas_ratio_in == pytest.approx(10.0 / 70.5, rel=1e-15)
     assert design.liquid_ratio_in == pytest.approx(1.0 / 200.0, rel=1e-15)
     assert design.liquid_to_gas_ratio == pytest.approx(200.0 / 70.5, rel=1e-15)
     assert design.actual_trays == math.ceil(design.theoretical_stages / 0.55)
     # Overall balance on the solute: what the gas lost, the liquid gained.
-    gained = design.solvent_flow * (design.liquid_ratio_out - design.liquid_ratio_in)
+    gained = design.inert_solvent_flow * (design.liquid_ratio_out - design.liquid_ratio_in)
     assert gained == pytest.approx(design.inert_gas_flow * (design.gas_ratio_in - design.gas_ratio_out), rel=1e-13)
 
 

@@ -4,6 +4,8 @@
     traywise compare CASE [--json] [--quiet | --verbose]
     traywise sweep CASE [--vary INPUT --from VALUE --to VALUE] [--points N] [--log] [--output NAME ...]
                         [--stage N] [--processes N] [--out DIR] [--no-plots] [--quiet]
+    traywise uncertainty CASE [--samples N] [--seed N] [--processes N] [--engine local|dask]
+                              [--scheduler ADDRESS] [--out DIR] [--no-plots] [--quiet]
     traywise new [FILE] [--force]
     traywise components [show NAME]
 
@@ -303,6 +305,57 @@ def sweep(ctx, case_file, vary, start, end, points, log, outputs, cooler_stage, 
         _echo_warnings(record)
     else:
         click.echo(sweep_text(record, folder=target))
+
+@main.command()
+@_case_argument
+@click.option("--samples", type=click.IntRange(min=2), metavar="N", help="Latin hypercube samples [default: the "
+              "case's uncertainty.samples, else 200].")
+@click.option("--seed", type=click.IntRange(min=0), metavar="N", help="Seed of the samples; the same seed gives the "
+              "same numbers [default: the case's uncertainty.seed, else 1].")
+@click.option("--processes", type=click.IntRange(min=1), metavar="N", help="Local worker processes [default: all cores].")
+@click.option("--engine", type=click.Choice(["local", "dask"]), default="local", show_default=True,
+              help="Where the samples run: local processes, or dask.distributed (pip install \"traywise[distributed]\").")
+@click.option("--scheduler", metavar="ADDRESS", help="dask scheduler address, e.g. tcp://10.0.0.5:8786 [default: a "
+              "local cluster on 127.0.0.1].")
+@click.option("--out", "out_dir", metavar="DIR", type=click.Path(file_okay=False),
+              help="Results folder [default: CASE-STEM-uncertainty in the current folder].")
+@click.option("--no-plots", is_flag=True, help="Skip the histogram and tornado figures.")
+@click.option("--quiet", "-q", is_flag=True, help="Print nothing but warnings (on stderr) and errors.")
+@click.pass_context
+def uncertainty(ctx, case_file, samples, seed, processes, engine, scheduler, out_dir, no_plots, quiet):
+    """Carry the uncertainty of the property data to CASE's results: sample the property values
+    by their stated uncertainties (the [uncertainty] table overrides them), solve every sample
+    (designs re-solved to their target) and write the distributions, their drivers and plots."""
+    import os
+    from pathlib import Path
+
+    if engine == "dask":
+        try:
+            import distributed  # noqa: F401  (the optional extra)
+        except ImportError:
+            _fail(ctx, 'the dask engine needs dask.distributed: pip install "traywise[distributed]"', EXIT_INPUT)
+    workers = processes or os.cpu_count() or 1
+    if workers > 1:
+        os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")  # as for sweep: one BLAS thread per worker
+    target = Path(out_dir) if out_dir else Path.cwd() / f"{Path(case_file).stem}-uncertainty"
+    case = _load(ctx, case_file, quiet, False, target=target)
+    from .case.uncertainty import uncertainty_settings
+    from .report.uncertainty_view import uncertainty_text, write_uncertainty
+    from .uncertainty.analysis import run_uncertainty
+
+    inputs, correlations, n_samples, seed = uncertainty_settings(case, samples=samples, seed=seed)
+    with _progress(quiet or n_samples < LONG_SWEEP or not sys.stderr.isatty(), n_samples) as bar:
+        result = run_uncertainty(
+            case.column, case.model, inputs, key=case.model.names.index(case.key_component), correlations=correlations,
+            design=case.design, n_samples=n_samples, seed=seed, processes=workers, engine=engine, scheduler=scheduler,
+            progress=None if bar is None else (lambda done, _total: bar.update(done - bar.pos)),
+        )
+    record = write_uncertainty(target, case, result, plots=case.plots and not no_plots)
+    if record["converged_samples"] == 0:
+        _fail(ctx, f"no sample converged (see {target / 'samples.csv'}); the first failed with: {result.messages[0]}",
+              EXIT_CONVERGENCE)
+    if not quiet:
+        click.echo(uncertainty_text(record, folder=target))
 
 
 def _progress(hidden, total):

@@ -21,6 +21,7 @@ from .gas_model import read_gas_model
 from .internals import read_internals
 from .reader import Section, where
 from .sweep import SWEEP_KEYS, check_sweep_table
+from .uncertainty import read_uncertainty
 
 TOP_KEYS = (
     "title",
@@ -39,6 +40,7 @@ TOP_KEYS = (
     "design",
     "sweep",
     "internals",
+    "uncertainty",
 )
 REPORT_KEYS = ("plots", "xy_solute")
 LIQUID_KINDS = ("raoult", "nonvolatile", "eos")  # equilibrium models of components that can be the solvent
@@ -66,6 +68,7 @@ class Case:
     sweep_table : dict or None      The ``[sweep]`` table as written, checked (case/sweep.py)
     internals : InternalsInput or None   The ``[internals]`` table (case/internals.py): what to size
     source : str                    The case's name in error messages (usually the file name)
+    uncertainty : UncertaintyRequest or None   The ``[uncertainty]`` table (case/uncertainty.py)
     """
 
     path: Path | None
@@ -86,6 +89,7 @@ class Case:
     sweep_table: dict | None = None
     source: str = "<case>"
     internals: object = None
+    uncertainty: object = None
 
 
 def load_case(path):
@@ -193,6 +197,7 @@ class _CaseBuilder:
             sweep_table=None if sweep is None else sweep.data,
             source=top.file,
             internals=internals,
+            uncertainty=read_uncertainty(top, components),
         )
 
     # -- roles of the components ----------------------------------------------------------------

@@ -43,7 +43,7 @@ class InertBasisDesign:
     k_value : float or None            K = y*/x of the key used, at infinite dilution where K
                                        depends on composition (None for a user curve) [-]
     inert_gas_flow : float             V', gas feed less the key [mol/s]
-    solvent_flow : float               L', solute-free solvent feed [mol/s]
+    inert_solvent_flow : float         L', solute-free solvent feed [mol/s]
     liquid_to_gas_ratio : float        L'/V' [mol/mol]
     minimum_liquid_to_gas_ratio : float   (L'/V')min for these terminals [mol/mol]
     gas_ratio_in, gas_ratio_out, liquid_ratio_in, liquid_ratio_out : float   Terminals [mol/mol]
@@ -58,7 +58,7 @@ class InertBasisDesign:
     pressure: float
     k_value: float | None
     inert_gas_flow: float
-    solvent_flow: float
+    inert_solvent_flow: float
     liquid_to_gas_ratio: float
     minimum_liquid_to_gas_ratio: float
     gas_ratio_in: float
@@ -138,17 +138,17 @@ def inert_basis_design(
         raise CaseError("overall_efficiency", f"expected 0 < E <= 1, found {overall_efficiency!r}")
     i = model.component_index(key)
     gas, solvent = _flows(gas_flows, "gas_flows", model), _flows(solvent_flows, "solvent_flows", model)
-    inert_gas, solvent_flow = gas.sum() - gas[i], solvent.sum() - solvent[i]
+    inert_gas, inert_solvent = gas.sum() - gas[i], solvent.sum() - solvent[i]
     if gas[i] <= 0.0 or inert_gas <= 0.0:
         raise CaseError("gas_flows", f"expected some {key} and some inert carrier, found {gas_flows!r}")
-    if solvent_flow <= 0.0:
+    if inert_solvent <= 0.0:
         raise CaseError("solvent_flows", f"expected some solvent besides {key}, found {solvent_flows!r}")
     if equilibrium is None:
         equilibrium = mole_ratio_equilibrium(
             model, key, temperature=temperature, pressure=pressure, solvent_mole_fractions=solvent
         )
     k_value = equilibrium.k_value if isinstance(equilibrium, (ConstantKEquilibrium, MixtureEquilibrium)) else None
-    ratio, gas_in, liquid_in = solvent_flow / inert_gas, gas[i] / inert_gas, solvent[i] / solvent_flow
+    ratio, gas_in, liquid_in = inert_solvent / inert_gas, gas[i] / inert_gas, solvent[i] / inert_solvent
     if n_stages is None:
         if not 0.0 < target_fraction_absorbed < 1.0:
             raise CaseError("target_fraction_absorbed", f"expected 0 < f < 1, found {target_fraction_absorbed!r}")
@@ -165,7 +165,7 @@ def inert_basis_design(
         pressure=float(pressure),
         k_value=k_value,
         inert_gas_flow=float(inert_gas),
-        solvent_flow=float(solvent_flow),
+        inert_solvent_flow=float(inert_solvent),
         liquid_to_gas_ratio=ratio,
         minimum_liquid_to_gas_ratio=minimum_liquid_to_gas_ratio(
             equilibrium, gas_ratio_in=gas_in, gas_ratio_out=gas_out, liquid_ratio_in=liquid_in

@@ -1,0 +1,160 @@
+"""An uncertainty run's results folder and console text.
+
+Folder (written all at once, ``folder.write_results_folder``): uncertainty.json (the record
+below), samples.csv (one row per sample: factors, outputs, converged, reason), uncertainty.md
+(the report, with the cautions) and, unless plots are off, uncertainty_histograms.png and
+uncertainty_tornado.png (``uncertainty_plot.py``).
+"""
+
+import csv
+import json
+import math
+
+from .. import __version__
+from .cautions import SAFETY_CAUTIONS, safety_one_line
+from .folder import MARKER, write_results_folder
+
+DISPLAY = {  # SI unit -> (display unit, scale, offset)
+    "K": ("degC", 1.0, -273.15),
+    "kg/s": ("kg/h", 3600.0, 0.0),
+    "W": ("kW", 1e-3, 0.0),
+}
+
+
+def display(unit, value):
+    """(display unit, value shown in it) for an SI output value."""
+    shown, scale, offset = DISPLAY.get(unit, (unit, 1.0, 0.0))
+    return shown, value * scale + offset
+
+
+def uncertainty_record(case, result, files=()):
+    """The JSON-ready record of an uncertainty run (SI values; units beside each output)."""
+    return {
+        "software": {"name": "traywise", "version": __version__},
+        "case": {"title": case.title, "file": case.source},
+        "statement": result.sentence,
+        "samples": result.n_samples,
+        "seed": result.seed,
+        "engine": result.engine,
+        "converged_samples": int(result.converged.sum()),
+        "failed_samples": int((~result.converged).sum()),
+        "failure_reasons": [{"reason": reason, "samples": count} for reason, count in result.failure_reasons()],
+        "inputs": [{"name": e.name, "component": e.component, "quantity": e.quantity, "relative_uncertainty": e.relative,
+                    "basis": e.basis, "default": e.default} for e in result.inputs],
+        "correlations": [{"inputs": [result.inputs[i].name, result.inputs[j].name], "coefficient": rho}
+                         for i, j, rho in result.correlations],
+        "outputs": [_summary_json(s) for s in result.summaries],
+        "seconds": result.seconds,
+        "files": list(files),
+        "cautions": list(SAFETY_CAUTIONS),
+    }
+
+
+def _summary_json(s):
+    return {"name": s.name, "unit": s.unit, "nominal": s.nominal, "mean": _finite(s.mean), "std": _finite(s.std),
+            "p10": _finite(s.p10), "p50": _finite(s.p50), "p90": _finite(s.p90),
+            "drivers": [{"input": name, "spearman": _finite(rho), "swing_per_standard_uncertainty": swing}
+                        for name, rho, swing in s.drivers]}
+
+
+def _finite(value):
+    return value if math.isfinite(value) else None
+
+
+def write_uncertainty(target, case, result, *, plots=True):
+    """Write the results folder ``target``; return the record."""
+    files = ["uncertainty.json", "samples.csv", "uncertainty.md", MARKER]
+    if plots:
+        files += ["uncertainty_histograms.png", "uncertainty_tornado.png"]
+    record = uncertainty_record(case, result, files)
+
+    def write_files(folder):
+        with open(folder / "samples.csv", "w", newline="", encoding="utf-8") as stream:
+            writer = csv.writer(stream)
+            writer.writerows(sample_rows(result))
+        (folder / "uncertainty.md").write_text(uncertainty_markdown(record), encoding="utf-8")
+        if plots:
+            from .uncertainty_plot import write_histograms, write_tornado
+
+            write_histograms(folder / "uncertainty_histograms.png", case.title, result)
+            write_tornado(folder / "uncertainty_tornado.png", case.title, result)
+        (folder / "uncertainty.json").write_text(json.dumps(record, indent=2, allow_nan=False) + "\n", encoding="utf-8")
+
+    write_results_folder(target, write_files, protect=() if case.path is None else (case.path,))
+    return record
+
+
+def sample_rows(result):
+    """Header and one row per sample: input factors, converged, outputs [SI units], reason."""
+    header = ["sample", *(f"factor {e.name} [-]" for e in result.inputs), "converged",
+              *(f"{name} [{unit}]" for name, unit in result.outputs), "reason"]
+    rows = [header]
+    for i in range(result.n_samples):
+        outputs = ["" if math.isnan(v) else repr(float(v)) for v in result.data[i]]
+        rows.append([i + 1, *(repr(float(f)) for f in result.factors[i]), bool(result.converged[i]), *outputs,
+                     result.messages[i]])
+    return rows
+
+
+def _table(record):
+    lines = ["| output | unit | nominal | P10 | P50 | P90 | mean | largest drivers (Spearman rho) |",
+             "| --- | --- | --- | --- | --- | --- | --- | --- |"]
+    for s in record["outputs"]:
+        unit, _ = display(s["unit"], 0.0)
+        shown = [_shown(s["unit"], s[k]) for k in ("nominal", "p10", "p50", "p90", "mean")]
+        drivers = ", ".join(f"{d['input']} ({d['spearman']:+.2f})" for d in s["drivers"][:3] if d["spearman"] is not None)
+        lines.append(f"| {s['name']} | {unit} | " + " | ".join(shown) + f" | {drivers or 'none (does not vary)'} |")
+    return "\n".join(lines)
+
+
+def _shown(unit, value):
+    return "n/a" if value is None else f"{display(unit, value)[1]:.5g}"
+
+
+def uncertainty_markdown(record):
+    """The report: statement, outputs, inputs with their basis, failures, method, cautions."""
+    failed = record["failed_samples"]
+    parts = [
+        f"# Uncertainty: {record['case']['title']}",
+        f"Case file `{record['case']['file']}`, traywise {record['software']['version']}: {record['samples']} "
+        f"Latin hypercube samples (seed {record['seed']}, engine {record['engine']}), each solved rigorously; "
+        f"{record['converged_samples']} converged, {failed} failed.",
+        f"**{record['statement']}**",
+        "## Outputs\n\nP90 is the value the output stays at or below in 90 % of the converged samples.\n\n" + _table(record),
+        "## Uncertain inputs\n\nEach is sampled as a log-normal factor of median 1 and log-standard deviation u. "
+        "'default' marks a stated default where the source gives no uncertainty.\n\n"
+        "| input | u | default | basis |\n| --- | --- | --- | --- |\n"
+        + "\n".join(f"| {e['name']} | {100 * e['relative_uncertainty']:.3g} % | {'yes' if e['default'] else 'no'} | "
+                    f"{e['basis']} |" for e in record["inputs"]),
+    ]
+    if record["correlations"]:
+        parts.append("Correlated inputs: " + "; ".join(f"{' and '.join(c['inputs'])}: {c['coefficient']:+.2f}"
+                                                       for c in record["correlations"]))
+    if failed:
+        parts.append("## Failed samples\n\nKept in samples.csv with their reason:\n\n"
+                     + "\n".join(f"- {f['samples']} x {f['reason']}" for f in record["failure_reasons"]))
+    parts.append("## Method\n\nProperty uncertainties carried through the rigorous stage model by sampling, after "
+                 "W. B. Whiting, V. R. Vasquez, M. M. Meerschaert, Fluid Phase Equilib. 158-160 (1999) 627. Drivers: "
+                 "Spearman's rank correlation between an input's sampled value and the output. The figures cover the "
+                 "property data only, not the model's own assumptions, the feed or the tray efficiency.")
+    parts.append("## Safety\n\n" + "\n".join(f"- {c}" for c in record["cautions"]))
+    return "\n\n".join(parts) + "\n"
+
+
+def uncertainty_text(record, folder=None):
+    """Console summary."""
+    lines = [f"traywise {record['software']['version']}: {record['case']['title']} ({record['case']['file']})",
+             f"{record['samples']} samples (seed {record['seed']}): {record['converged_samples']} converged, "
+             f"{record['failed_samples']} failed", "", record["statement"], ""]
+    for s in record["outputs"]:
+        unit, _ = display(s["unit"], 0.0)
+        lines.append(f"  {s['name']} [{unit}]: P10 {_shown(s['unit'], s['p10'])}, P50 {_shown(s['unit'], s['p50'])}, "
+                     f"P90 {_shown(s['unit'], s['p90'])} (nominal {_shown(s['unit'], s['nominal'])})")
+        top = [d for d in s["drivers"] if d["spearman"] is not None][:2]
+        if top:
+            lines.append("    driven by " + ", ".join(f"{d['input']} ({d['spearman']:+.2f})" for d in top))
+    for f in record["failure_reasons"]:
+        lines.append(f"  failed: {f['samples']} x {f['reason']}")
+    if folder is not None:
+        lines += ["", f"Results in {folder}", safety_one_line(folder / "uncertainty.md")]
+    return "\n".join(lines)

@@ -1,0 +1,188 @@
+"""The uncertain inputs of a case: which property values are sampled, and by how much.
+
+Each sampled quantity is a relative standard uncertainty u [-] of one property of one
+component, applied as a log-normal factor of median 1 and log-standard deviation u
+(``perturb.py``; for u up to 20 % the factor's standard deviation is within 2 % of u). Where a
+value comes from, per quantity (``basis`` says which, ``default`` marks the stated defaults):
+
+  henry_constant        H at 298.15 K. Default 10 % (common practice: independent measurements
+                        of one gas's Henry's constant in water commonly scatter by about this;
+                        the compilations the component files cite state no uncertainty per value).
+  enthalpy_of_solution  the temperature dependence of H, as the enthalpy of solution at 298.15 K.
+                        Default 20 % (common practice: the temperature dependences compiled for
+                        one gas scatter more than the values themselves).
+  vapour_pressure       the deviation of the correlation from the reference equation of state,
+                        as the component file states it; default 2 % (common practice for a
+                        handbook correlation inside its range).
+  heat_of_vaporisation  the difference from a second, independent value that the component file
+                        states; default 1 % (common practice).
+  gas_heat_capacity     the median deviation of the independent tabulations the component file
+                        lists from the chosen fit; default 1 % (common practice).
+  liquid_heat_capacity  default 1 % (common practice); the file states only how closely the fit
+                        follows its own source.
+
+The two Henry's-law parameters are sampled at the reference temperature, where a van 't Hoff fit's
+value and slope are least correlated; the sources give no correlation, so the default is 0 and
+a case may state one (``correlations``).
+"""
+
+import re
+from dataclasses import dataclass
+
+from ..properties.component import MODEL_KINDS
+from ..properties.constants import T_REFERENCE
+
+HENRY, SOLUTION = "henry_constant", "enthalpy_of_solution"
+# quantity -> (what it is, the equilibrium models that use it, default u, why the default)
+QUANTITIES = {
+    HENRY: ("Henry's constant at 298.15 K", ("henry", "activity"), 0.10,
+            "default: 10 % on a Henry's constant (common practice); the source states no uncertainty"),
+    SOLUTION: ("enthalpy of solution at 298.15 K (temperature dependence of the Henry's constant)",
+               ("henry", "activity"), 0.20,
+               "default: 20 % on an enthalpy of solution from a Henry's-constant fit (common practice)"),
+    "vapour_pressure": ("vapour pressure", ("raoult", "activity"), 0.02,
+                        "default: 2 % on a vapour-pressure correlation (common practice)"),
+    "heat_of_vaporisation": ("heat of vaporisation", ("raoult",), 0.01,
+                             "default: 1 % on a heat of vaporisation (common practice)"),
+    "gas_heat_capacity": ("ideal-gas heat capacity", MODEL_KINDS, 0.01,
+                          "default: 1 % on an ideal-gas heat capacity (common practice)"),
+    "liquid_heat_capacity": ("liquid heat capacity", ("raoult", "nonvolatile"), 0.01,
+                             "default: 1 % on a liquid heat capacity (common practice)"),
+}
+ATTRIBUTES = {  # quantity -> the Component attribute it perturbs
+    HENRY: "henry_in_water",
+    SOLUTION: "henry_in_water",
+    "vapour_pressure": "vapour_pressure",
+    "heat_of_vaporisation": "heat_of_vaporisation",
+    "gas_heat_capacity": "ideal_gas_cp",
+    "liquid_heat_capacity": "liquid_cp",
+}
+SCOPES = ("all", "listed")
+REFERENCE_TEMPERATURE = T_REFERENCE  # [K], where the Henry's-law pair is sampled
+_NUMBER = r"([+-]?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?) %"
+
+
+@dataclass(frozen=True)
+class UncertainInput:
+    """One sampled property value.
+
+    component : str      Component name
+    quantity : str       One of ``QUANTITIES``
+    relative : float     Relative standard uncertainty u [-]
+    basis : str          Where u comes from (source, component-file statement, default, case)
+    default : bool       True when u is a stated default, not taken from the value's source
+    """
+
+    component: str
+    quantity: str
+    relative: float
+    basis: str
+    default: bool
+
+    @property
+    def name(self):
+        """'quantity:component', the input's name in tables and plots."""
+        return f"{self.quantity}:{self.component}"
+
+
+@dataclass(frozen=True)
+class UncertaintyRequest:
+    """What to sample, as a case states it (``case/uncertainty.py`` reads it; all optional).
+
+    samples : int or None        Number of samples (the command's --samples wins)
+    seed : int or None           Seed of the Latin hypercube (--seed wins)
+    scope : str                  'all': every property value the model uses, with the library's
+                                 or the default uncertainty, overridden where listed;
+                                 'listed': only the values listed in ``relative``
+    relative : dict              (component, quantity) -> u [-] stated in the case
+    correlations : dict          component -> correlation coefficient [-] between its
+                                 henry_constant and enthalpy_of_solution
+    """
+
+    samples: int | None = None
+    seed: int | None = None
+    scope: str = "all"
+    relative: dict = None
+    correlations: dict = None
+
+
+def uncertain_inputs(model, request=UncertaintyRequest()):
+    """The sampled inputs of a property model and the correlations between them.
+
+    Parameters
+    ----------
+    model : PropertyModel
+    request : UncertaintyRequest
+
+    Returns
+    -------
+    (tuple of UncertainInput, tuple of (i, j, rho))   rho between inputs i and j [-]; inputs with
+    u = 0 are left out (held at their values).
+    """
+    stated = dict(request.relative or {})
+    inputs = []
+    for component, kind in zip(model.components, model.equilibrium):
+        for quantity, (_, kinds, _, _) in QUANTITIES.items():
+            if kind not in kinds or getattr(component, ATTRIBUTES[quantity]) is None:
+                continue
+            if (component.name, quantity) in stated:
+                relative = float(stated[(component.name, quantity)])
+                entry = UncertainInput(component.name, quantity, relative, "stated in the case file", False)
+            elif request.scope == "listed":
+                continue
+            else:
+                entry = library_uncertainty(component, quantity)
+            if entry.relative > 0.0:
+                inputs.append(entry)
+    names = [entry.name for entry in inputs]
+    correlations = []
+    for component, rho in (request.correlations or {}).items():
+        pair = (f"{HENRY}:{component}", f"{SOLUTION}:{component}")
+        if all(name in names for name in pair) and rho != 0.0:
+            correlations.append((names.index(pair[0]), names.index(pair[1]), float(rho)))
+    return tuple(inputs), tuple(correlations)
+
+
+def library_uncertainty(component, quantity):
+    """The ``UncertainInput`` of one property value of a component as its data state it: from
+    the component file's statement where it has one, else the quantity's default."""
+    prop = getattr(component, ATTRIBUTES[quantity])
+    note = component.notes.get(ATTRIBUTES[quantity], "") if prop.source in component.sources else ""
+    if prop.source == "user":
+        note = ""
+    found = _stated(quantity, note)
+    if found is None:
+        _, _, relative, why = QUANTITIES[quantity]
+        if prop.source == "user":
+            why += " (value given in the case file)"
+        return UncertainInput(component.name, quantity, relative, why, True)
+    relative, basis = found
+    return UncertainInput(component.name, quantity, relative, f"{basis} ({prop.source}, component file note)", False)
+
+
+def _stated(quantity, note):
+    """(u, basis) read from a component file's note on the property, or None."""
+    if quantity == "vapour_pressure":
+        match = re.search(rf"reference equation of state[^.]*? by at most {_NUMBER}", note)
+        if match:
+            return abs(float(match.group(1))) / 100.0, "largest deviation from the reference equation of state"
+        match = re.search(rf"agrees with (IAPWS-95) within about {_NUMBER}", note)
+        if match:
+            return abs(float(match.group(2))) / 100.0, f"stated agreement with {match.group(1)}"
+    if quantity == "heat_of_vaporisation":
+        match = re.search(rf"The (.+?) value via thermo .*? differs by {_NUMBER}", note)
+        if match:
+            return abs(float(match.group(2))) / 100.0, f"difference from the {match.group(1)} value"
+    if quantity == "gas_heat_capacity":
+        deviations = sorted(abs(float(x)) for x in re.findall(rf"'[A-Z_]+' by {_NUMBER}", note))
+        if deviations:
+            middle = len(deviations) // 2
+            median = deviations[middle] if len(deviations) % 2 else 0.5 * (deviations[middle - 1] + deviations[middle])
+            return median / 100.0, f"median deviation of the {len(deviations)} independent tabulations listed"
+    return None
+
+
+def describe(entry):
+    """One line: 'name: u = 10 % (basis)'."""
+    return f"{entry.name}: u = {100.0 * entry.relative:.3g} % ({entry.basis})"
+

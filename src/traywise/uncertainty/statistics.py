@@ -1,0 +1,94 @@
+"""What the samples say: percentiles of each output, which inputs drive it, and the sentence for
+the report.
+
+Percentiles are of the converged samples (failed ones are counted apart, never dropped
+silently). P90 is the value the output stays at or below in 90 % of the samples. Drivers are
+ranked by Spearman's rank correlation between an input's sampled score and the output
+(C. Spearman, Am. J. Psychol. 15 (1904) 72; scipy.stats.spearmanr); the swing is the output's
+change for one standard uncertainty of the input, from a least-squares line in all scores
+(a first-order estimate, beside the rank correlation that needs no linearity).
+"""
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+PERCENTILES = (10.0, 50.0, 90.0)
+
+
+@dataclass(frozen=True)
+class OutputSummary:
+    """The distribution of one output over the converged samples.
+
+    name, unit : str
+    nominal : float          Unperturbed value [unit]
+    mean, std : float        [unit]
+    p10, p50, p90 : float    Percentiles [unit]
+    drivers : tuple of (input name, spearman rho [-], swing per standard uncertainty [unit])
+                             sorted by |rho|, largest first (rho NaN when the output does not vary)
+    """
+
+    name: str
+    unit: str
+    nominal: float
+    mean: float
+    std: float
+    p10: float
+    p50: float
+    p90: float
+    drivers: tuple
+
+
+def percentiles(values):
+    """(P10, P50, P90) of ``values``: each the smallest sampled value that at least that share
+    of the samples stays at or below (the inverted empirical CDF; a stage count stays a count)."""
+    values = np.asarray(values, dtype=float)
+    if values.size == 0:
+        return (math.nan,) * len(PERCENTILES)
+    return tuple(float(np.percentile(values, p, method="inverted_cdf")) for p in PERCENTILES)
+
+
+def summarise(name, unit, nominal, values, scores, input_names):
+    """OutputSummary of one output: values (n,) and scores (n, d) of the converged samples."""
+    from scipy.stats import spearmanr
+
+    values = np.asarray(values, dtype=float)
+    p10, p50, p90 = percentiles(values)
+    drivers = []
+    if values.size > 2 and scores.shape[1] and np.ptp(values) > 0.0:
+        design = np.column_stack([np.ones(values.size), scores])
+        slopes = np.linalg.lstsq(design, values, rcond=None)[0][1:]
+        for j, input_name in enumerate(input_names):
+            rho = spearmanr(scores[:, j], values).statistic
+            drivers.append((input_name, float(rho), float(slopes[j])))
+        drivers.sort(key=lambda d: -abs(d[1]))
+    else:
+        drivers = [(input_name, math.nan, 0.0) for input_name in input_names]
+    std = float(np.std(values, ddof=1)) if values.size > 1 else math.nan
+    mean = float(np.mean(values)) if values.size else math.nan
+    return OutputSummary(name, unit, float(nominal), mean, std, p10, p50, p90, tuple(drivers))
+
+
+def confidence_sentence(values, converged, *, design_output=None, key=None):
+    """The plain sentence for the report, on the design's output when there is one, else on
+    the key solute's outlet. ``values`` (n,) is that output over all samples, ``converged``
+    (n,) which converged: a failed sample counts as not meeting the target (worst case), so
+    with more than 10 % failed no figure is claimed at 90 % confidence."""
+    lead = "With the property data as uncertain as their sources state"
+    values = np.where(np.asarray(converged, dtype=bool), np.asarray(values, dtype=float), np.inf)
+    n_failed = int(np.sum(~np.asarray(converged, dtype=bool)))
+    failed = f" ({n_failed} of {values.size} samples failed and count as not meeting it)" if n_failed else ""
+    p90 = float(np.percentile(values, 90.0, method="inverted_cdf")) if values.size else math.inf
+    if not math.isfinite(p90):
+        what = {"stages": "no stage count", "solvent_mass_flow": "no solvent flow",
+                "cooler_duty": "no cooler duty"}.get(design_output, f"no outlet of {key}")
+        return (f"{lead}, {what} can be stated with 90 % confidence: {n_failed} of {values.size} samples failed "
+                "(see their reasons).")
+    if design_output == "stages":
+        return f"{lead}, {int(p90)} stages meet the target with 90 % confidence{failed}."
+    if design_output == "solvent_mass_flow":
+        return f"{lead}, a solvent flow of {p90 * 3600.0:.4g} kg/h meets the target with 90 % confidence{failed}."
+    if design_output == "cooler_duty":
+        return f"{lead}, a cooler duty of {p90 / 1e3:.4g} kW holds the limit with 90 % confidence{failed}."
+    return f"{lead}, {key} leaves at or below {p90:.4g} ppmv with 90 % confidence{failed}."

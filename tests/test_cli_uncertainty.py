@@ -1,0 +1,52 @@
+"""`traywise uncertainty CASE`: the results folder, the statement, reproducibility by seed."""
+
+import csv
+import json
+from pathlib import Path
+
+from click.testing import CliRunner
+
+from traywise.cli import main
+
+REPOSITORY = Path(__file__).resolve().parents[1]
+
+
+def _case(tmp_path):
+    text = (REPOSITORY / "cases" / "acid-gas-vent-scrubber.toml").read_text(encoding="utf-8")
+    path = tmp_path / "vent.toml"
+    path.write_text(text + '\n[uncertainty]\nsamples = 12\nseed = 3\n', encoding="utf-8")
+    return path
+
+
+def test_uncertainty_writes_its_folder_and_says_how_sure(tmp_path):
+    path = _case(tmp_path)
+    out = tmp_path / "out"
+    result = CliRunner().invoke(main, ["uncertainty", str(path), "--out", str(out), "--processes", "1"])
+    assert result.exit_code == 0, result.output
+    assert "with 90 % confidence" in result.output
+    record = json.loads((out / "uncertainty.json").read_text(encoding="utf-8"))
+    assert record["software"]["name"] == "traywise" and record["samples"] == 12 and record["seed"] == 3
+    assert record["statement"].startswith("With the property data as uncertain as their sources state, sulfur dioxide")
+    assert record["converged_samples"] + record["failed_samples"] == 12
+    names = [o["name"] for o in record["outputs"]]
+    assert names == ["outlet_ppmv:sulfur dioxide", "max_temperature"]
+    assert any(i["default"] for i in record["inputs"]) and any(not i["default"] for i in record["inputs"])
+    with open(out / "samples.csv", encoding="utf-8") as stream:
+        rows = list(csv.reader(stream))
+    assert len(rows) == 13 and rows[0][-1] == "reason"
+    for name in ("uncertainty.md", "uncertainty_histograms.png", "uncertainty_tornado.png"):
+        assert (out / name).stat().st_size > 0
+    assert "Safety" in (out / "uncertainty.md").read_text(encoding="utf-8")
+    # the same seed again, into the same folder (replaceable: it names traywise): the same numbers
+    again = CliRunner().invoke(main, ["uncertainty", str(path), "--out", str(out), "--processes", "2", "--no-plots"])
+    assert again.exit_code == 0, again.output
+    assert json.loads((out / "uncertainty.json").read_text(encoding="utf-8"))["outputs"] == record["outputs"]
+
+
+def test_a_case_error_in_the_table_is_one_line(tmp_path):
+    path = tmp_path / "bad.toml"
+    text = (REPOSITORY / "cases" / "acid-gas-vent-scrubber.toml").read_text(encoding="utf-8")
+    path.write_text(text + '\n[uncertainty]\nscope = "listed"\n', encoding="utf-8")
+    result = CliRunner().invoke(main, ["uncertainty", str(path), "--out", str(tmp_path / "o")])
+    assert result.exit_code == 2
+    assert "uncertainty.scope" in result.output and "Traceback" not in result.output
