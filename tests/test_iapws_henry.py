@@ -98,3 +98,12 @@ def test_continued_smoothly_above_the_cap():
     assert dln_h[0] == pytest.approx(dln_h[1], rel=1e-5)
     dh_sol = -t * t * dln_h  # d ln H/d(1/T): constant beyond the cap
     assert dh_sol[2] == pytest.approx(dh_sol[1], rel=1e-9) and dh_sol[3] == pytest.approx(dh_sol[1], rel=1e-9)
+
+
+@pytest.mark.parametrize("name", ["carbon dioxide", "nitrogen"])
+def test_scaled_constant_moves_value_and_enthalpy_of_solution_at_the_reference(name):
+    # what the uncertainty analysis perturbs: H(t0) x 1.1 and dH_sol(t0) x 0.8, for the guideline form
+    henry = find_component(name).henry_in_water
+    scaled = henry.scaled(1.1, 0.8, 298.15)
+    assert np.exp(scaled.ln_constant(298.15)[0] - henry.ln_constant(298.15)[0]) == pytest.approx(1.1, rel=1e-12)
+    assert scaled.solution_enthalpy(298.15) == pytest.approx(0.8 * henry.solution_enthalpy(298.15), rel=1e-10)

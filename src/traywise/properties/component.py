@@ -5,12 +5,13 @@ A ``Component`` holds SI numbers and the source of each; it is built from a libr
 another component with some properties replaced (``dataclasses.replace``).
 """
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 
 import numpy as np
 
 from .constants import GAS_CONSTANT, T_REFERENCE
 from .correlations import (
+    WATER_CRITICAL_TEMPERATURE,
     dippr101,
     henry_solution_enthalpy,
     iapws_henry,
@@ -92,7 +93,7 @@ class HenryConstant:
 
     'ln_h'        ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2 (coefficients a..f);
     'iapws_2004'  the IAPWS guideline's ln(H/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau)
-                  (coefficients A, B, C; ``correlations.iapws_henry``).
+                  (+ offset): coefficients (A, B, C, offset), ``correlations.iapws_henry``.
     """
 
     coefficients: tuple
@@ -111,6 +112,17 @@ class HenryConstant:
     def ln_constant(self, temperature):
         """(ln(H/Pa), dln(H)/dT [1/K])."""
         return self.terms(temperature)[:2]
+
+    def scaled(self, value_factor, enthalpy_factor, t0):
+        """The same constant with H(t0) times value_factor and the enthalpy of solution at t0 [K]
+        times enthalpy_factor: ln H + ln(value_factor) + extra (1/T - 1/t0), extra = (f - 1) dH_sol(t0)/R."""
+        extra = (enthalpy_factor - 1.0) * float(self.terms(t0)[2])
+        shift = float(np.log(value_factor)) - extra / t0
+        if self.form == "iapws_2004":  # A/Tr = A Tc/T carries the 1/T term
+            a, b, c, offset = self.coefficients
+            return replace(self, coefficients=(a + extra / WATER_CRITICAL_TEMPERATURE, b, c, offset + shift))
+        a, b, *rest = self.coefficients
+        return replace(self, coefficients=(a + shift, b + extra, *rest))
 
     def solution_enthalpy(self, temperature):
         """Enthalpy of solution implied by the temperature dependence (van 't Hoff) [J/mol]."""

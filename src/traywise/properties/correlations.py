@@ -278,7 +278,7 @@ def wagner_pruss_saturation_pressure(temperature):
 IAPWS_HENRY_CAP = 640.0
 
 
-def iapws_henry(temperature, a, b, c):
+def iapws_henry(temperature, a, b, c, offset=0.0):
     """Henry's constant of a gas in water from the IAPWS guideline, with derivatives.
 
     ln(kH/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau), Tr = T/Tc1, tau = 1 - Tr,
@@ -289,6 +289,7 @@ def iapws_henry(temperature, a, b, c):
     temperature : array_like   Liquid temperature [K]; above IAPWS_HENRY_CAP continued with the
         enthalpy of solution there (the equation itself ends at the critical point of water)
     a, b, c : float or array   The guideline's A, B, C [-]
+    offset : float or array    Added to ln kH (0 for the guideline; a perturbed or refitted constant) [-]
 
     Returns
     -------
@@ -318,7 +319,7 @@ def iapws_henry(temperature, a, b, c):
            + b * (-0.355 * 0.645 * tau_c * inverse + 0.71 * tau_b * inverse**2 + 2.0 * tau_a * inverse**3)
            + c * (0.41 * 1.41 * g2 + 0.82 * g1 + g))
     ln_p, dln_p, d2ln_p = wagner_pruss_saturation_pressure(t)
-    ln_h = ln_p + f
+    ln_h = ln_p + f + offset
     dln_h = dln_p + df / tc
     d2ln_h = d2ln_p + d2f / tc**2
     above = t_given > IAPWS_HENRY_CAP  # van 't Hoff continuation with the slope at the cap

@@ -142,7 +142,7 @@ class _FileReader:
         if form == "ln_h":
             coefficients = tuple(self.number(table, key, k) if k in table else 0.0 for k in HENRY_KEYS[form])
         else:
-            coefficients = tuple(self.number(table, key, k) for k in HENRY_KEYS[form])
+            coefficients = (*(self.number(table, key, k) for k in HENRY_KEYS[form]), 0.0)  # offset 0
         t_min, t_max = self.number(table, key, "t_min"), self.number(table, key, "t_max")
         return HenryConstant(coefficients, t_min, t_max, self.source(table, key), form)
 

@@ -165,7 +165,7 @@ class PropertyModel:
         forms = np.array([self.components[i].henry_in_water.form for i in index["henry"]], dtype=object)
         self._henry_polynomial = index["henry"][forms == "ln_h"]
         self._henry_iapws = index["henry"][forms == "iapws_2004"]
-        self._iapws = np.array([self.components[i].henry_in_water.coefficients for i in self._henry_iapws]).reshape(-1, 3).T
+        self._iapws = np.array([self.components[i].henry_in_water.coefficients for i in self._henry_iapws]).reshape(-1, 4).T
         henry = np.array([self.components[i].henry_in_water.coefficients for i in self._henry_polynomial]).reshape(-1, 6).T
         self._henry_terms = tuple(k for k in range(6) if k < 2 or np.any(henry[k]))  # a, b and any non-zero
         self._henry = henry[list(self._henry_terms)]

@@ -93,7 +93,7 @@ def _properties(component):
         if record.form == "iapws_2004":
             form = ["ln(H/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau), Tr = T/647.096 K, tau = 1 - Tr, "
                     "p1* the vapour pressure of water, H = f/x (mole-fraction basis)",
-                    f"A, B, C: {_coefficients(record.coefficients)}"]
+                    f"A, B, C: {_coefficients(record.coefficients[:3])}"]
         else:
             form = ["ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2, H = p/x (mole-fraction basis)",
                     f"a..f: {_coefficients(record.coefficients)}"]
