@@ -8,7 +8,7 @@ import numpy as np
 import pytest
 from thermo.nrtl import NRTL
 
-from traywise.errors import CaseError
+from traywise.errors import InputError
 from traywise.properties.activity import Nrtl
 from traywise.properties.constants import GAS_CONSTANT, P_STANDARD
 from traywise.properties.library import find_component
@@ -97,5 +97,5 @@ def test_anchored_nrtl_is_consistent_and_its_composition_derivative_is_right():
     ],
 )
 def test_bad_nrtl_parameters_are_refused(a, b, alpha, message):
-    with pytest.raises(CaseError, match=message):
+    with pytest.raises(InputError, match=message):
         Nrtl(NAMES, a, b, alpha, source="invented")

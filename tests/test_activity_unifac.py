@@ -11,7 +11,7 @@ import pytest
 from scipy.optimize import brentq
 from thermo.unifac import UNIFAC
 
-from traywise.errors import CaseError
+from traywise.errors import InputError
 from traywise.properties.component import HenryConstant
 from traywise.properties.constants import GAS_CONSTANT, P_STANDARD
 from traywise.properties.inline import henry_from_reference
@@ -239,14 +239,14 @@ def test_liquid_enthalpies_are_partial_molar_quantities():
 
 
 def test_missing_or_misplaced_activity_model_is_refused():
-    with pytest.raises(CaseError, match="needs an activity model"):
+    with pytest.raises(InputError, match="needs an activity model"):
         PropertyModel([WATER, ACETONE], equilibrium=["raoult", "activity"])
-    with pytest.raises(CaseError, match="not in the activity model"):
+    with pytest.raises(InputError, match="not in the activity model"):
         PropertyModel([WATER, ACETONE, METHANOL], equilibrium=["raoult", "activity", "activity"],
                       activity=unifac([WATER, ACETONE]))
-    with pytest.raises(CaseError, match="must be 'raoult', 'activity' or 'nonvolatile'"):
+    with pytest.raises(InputError, match="must be 'raoult', 'activity' or 'nonvolatile'"):
         PropertyModel([WATER, ACETONE], equilibrium=["raoult", "henry"], activity=unifac([WATER, ACETONE]))
-    with pytest.raises(CaseError, match="needs water"):
+    with pytest.raises(InputError, match="needs water"):
         PropertyModel([METHANOL, ACETONE], equilibrium=["raoult", "activity"], activity=unifac([METHANOL, ACETONE]))
-    with pytest.raises(CaseError, match="no published UNIFAC group assignment"):
+    with pytest.raises(InputError, match="no published UNIFAC group assignment"):
         unifac([dataclasses.replace(ACETONE, cas="")])

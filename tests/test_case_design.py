@@ -31,7 +31,7 @@ def test_the_demo_design_table_is_read_in_si():
     design = parse_case(DEMO, FILE).design
     assert (design.solute, design.quantity, design.value) == ("ammonia", "outlet_ppmv", 30.0)  # "30 ppmv" as written
     assert design.limit_place == "column_maximum" and design.limit_value == pytest.approx(313.15)
-    assert design.adjust == "solvent_flow" and design.cooler_stage is None
+    assert design.solve_for == "solvent_flow" and design.cooler_stage is None
     assert design.minimum_solvent and design.oconnell_efficiency
 
 
@@ -49,10 +49,10 @@ def test_removal_targets_are_read_on_their_basis(old, new, expected):
 
 
 def test_a_cooler_duty_design_and_no_design():
-    text = variant('adjust = "solvent_flow"\ncolumn_temperature_limit = "40 degC"',
-                   'adjust = "cooler_duty"\ncooler_stage = 6\nliquid_out_temperature_limit = "25 degC"')
+    text = variant('solve_for = "solvent_flow"\ncolumn_temperature_limit = "40 degC"',
+                   'solve_for = "cooler_duty"\ncooler_stage = 6\nliquid_out_temperature_limit = "25 degC"')
     design = parse_case(variant("oconnell_efficiency = true\n", "", text), FILE).design
-    assert (design.adjust, design.cooler_stage, design.limit_place) == ("cooler_duty", 6, "liquid_outlet")
+    assert (design.solve_for, design.cooler_stage, design.limit_place) == ("cooler_duty", 6, "liquid_outlet")
     assert design.quantity == "outlet_ppmv"  # checked on the result, not solved for
     without = parse_case(DEMO.split("\n[design]\n")[0], FILE)
     assert without.design is None and without.sweep_table is None
@@ -70,14 +70,16 @@ def test_the_readme_snippets_are_valid_tables():
 
 # (id, old text, new text, key path the error must name, further words it must contain)
 MALFORMED_DESIGN = [
-    ("unknown key", 'adjust = "solvent_flow"', 'adjsut = "solvent_flow"', "design.adjsut", ["did you mean 'adjust'"]),
-    ("missing adjust", 'adjust = "solvent_flow"\n', "", "design.adjust", ["missing"]),
-    ("unknown adjusted input", 'adjust = "solvent_flow"', 'adjust = "solvent"', "design.adjust",
+    ("unknown key", 'solve_for = "solvent_flow"', 'solve_fro = "solvent_flow"', "design.solve_fro", ["did you mean 'solve_for'"]),
+    ("missing solve_for", 'solve_for = "solvent_flow"\n', "", "design.solve_for", ["missing"]),
+    ("the former name of solve_for", 'solve_for = "solvent_flow"', 'adjust = "solvent_flow"', "design.adjust",
+     ["unknown key 'adjust'", "did you mean 'solve_for'"]),
+    ("unknown input solved for", 'solve_for = "solvent_flow"', 'solve_for = "solvent"', "design.solve_for",
      ["did you mean 'solvent_flow'"]),
     ("two removal targets", 'outlet_mole_fraction = "30 ppmv"', 'outlet_mole_fraction = "30 ppmv"\nfraction_absorbed = 0.99',
      "design.fraction_absorbed", ["one removal target"]),
     ("no removal target", 'outlet_mole_fraction = "30 ppmv"    # ammonia in the gas leaving the top\n', "",
-     "design.adjust", ["needs a removal target"]),
+     "design.solve_for", ["needs a removal target"]),
     ("outlet as a mass fraction", '"30 ppmv"', '"30 ppmw"', "design.outlet_mole_fraction", ["mass fraction"]),
     ("outlet without unit above 1", '"30 ppmv"', "30", "design.outlet_mole_fraction", ["(0, 1)"]),
     ("outlet above the inlet", '"30 ppmv"', '"6 mol%"', "design.outlet_mole_fraction", ["nothing to absorb"]),
@@ -89,21 +91,21 @@ MALFORMED_DESIGN = [
     ("two limits", 'column_temperature_limit = "40 degC"',
      'column_temperature_limit = "40 degC"\nliquid_out_temperature_limit = "35 degC"', "design.column_temperature_limit",
      ["one temperature limit"]),
-    ("cooler stage when adjusting the solvent", 'adjust = "solvent_flow"', 'adjust = "solvent_flow"\ncooler_stage = 3',
-     "design.cooler_stage", ["only with adjust = 'cooler_duty'"]),
-    ("cooler duty without a stage", 'adjust = "solvent_flow"', 'adjust = "cooler_duty"', "design.cooler_stage",
+    ("cooler stage when solving for the solvent", 'solve_for = "solvent_flow"', 'solve_for = "solvent_flow"\ncooler_stage = 3',
+     "design.cooler_stage", ["only with solve_for = 'cooler_duty'"]),
+    ("cooler duty without a stage", 'solve_for = "solvent_flow"', 'solve_for = "cooler_duty"', "design.cooler_stage",
      ["missing"]),
-    ("cooler stage outside the column", 'adjust = "solvent_flow"', 'adjust = "cooler_duty"\ncooler_stage = 7',
+    ("cooler stage outside the column", 'solve_for = "solvent_flow"', 'solve_for = "cooler_duty"\ncooler_stage = 7',
      "design.cooler_stage", ["stages 1 to 6"]),
-    ("cooler duty without a limit", 'adjust = "solvent_flow"\ncolumn_temperature_limit = "40 degC"',
-     'adjust = "cooler_duty"\ncooler_stage = 3', "design.adjust", ["temperature limit"]),
+    ("cooler duty without a limit", 'solve_for = "solvent_flow"\ncolumn_temperature_limit = "40 degC"',
+     'solve_for = "cooler_duty"\ncooler_stage = 3', "design.solve_for", ["temperature limit"]),
     ("minimum solvent as text", "minimum_solvent = true", 'minimum_solvent = "yes"', "design.minimum_solvent",
      ["true or false"]),
-    ("stages with a cooler", 'adjust = "solvent_flow"', 'adjust = "stages"',
-     "design.adjust", ["[[column.cooler]]", "'solvent_flow' instead"], "cooler"),
-    ("O'Connell with a cooler duty design", 'adjust = "solvent_flow"', 'adjust = "cooler_duty"\ncooler_stage = 3',
+    ("stages with a cooler", 'solve_for = "solvent_flow"', 'solve_for = "stages"',
+     "design.solve_for", ["[[column.cooler]]", "'solvent_flow' instead"], "cooler"),
+    ("O'Connell with a cooler duty design", 'solve_for = "solvent_flow"', 'solve_for = "cooler_duty"\ncooler_stage = 3',
      "design.oconnell_efficiency", ["the cooler being designed", "overall_efficiency"]),
-    ("O'Connell with a cooler", 'adjust = "solvent_flow"', 'adjust = "solvent_flow"', "design.oconnell_efficiency",
+    ("O'Connell with a cooler", 'solve_for = "solvent_flow"', 'solve_for = "solvent_flow"', "design.oconnell_efficiency",
      ["[[column.cooler]]"], "cooler"),
     ("O'Connell with an oil", "oconnell_efficiency = true", "oconnell_efficiency = true", "design.oconnell_efficiency",
      ["water only"], "oil"),
@@ -138,8 +140,10 @@ def test_malformed_design_tables_name_the_key(entry):
 
 
 MALFORMED_SWEEP = [
-    ("unknown key", 'vary = "solvent_flow"', 'vari = "solvent_flow"', "sweep.vari", ["did you mean 'vary'"]),
-    ("unknown input", 'vary = "solvent_flow"', 'vary = "solvent_flw"', "sweep.vary", ["did you mean 'solvent_flow'"]),
+    ("unknown key", 'input = "solvent_flow"', 'inputs = "solvent_flow"', "sweep.inputs", ["did you mean 'input'"]),
+    ("unknown input", 'input = "solvent_flow"', 'input = "solvent_flw"', "sweep.input", ["did you mean 'solvent_flow'"]),
+    ("the former name of input", 'input = "solvent_flow"', 'vary = "solvent_flow"', "sweep.vary",
+     ["unknown key 'vary'", "did you mean 'input'"]),
     ("flow as a temperature", 'from = "600 kg/h"', 'from = "600 degC"', "sweep.from", ["is a temperature"]),
     ("flow without unit", 'from = "600 kg/h"', "from = 600", "sweep.from", ["with its unit"]),
     ("negative flow", 'to = "3000 kg/h"', 'to = "-3000 kg/h"', "sweep.to", ["> 0"]),
@@ -153,12 +157,12 @@ MALFORMED_SWEEP = [
      ["list of output names"]),
     ("cooler stage for a flow sweep", "points = 25", "points = 25\ncooler_stage = 2", "sweep.cooler_stage",
      ["only when the cooler duty is varied"]),
-    ("solvent fed boiling", 'vary = "solvent_flow"\nfrom = "600 kg/h"\nto = "3000 kg/h"',
-     'vary = "solvent_temperature"\nfrom = "20 degC"\nto = "110 degC"', "sweep.to", ["would boil"]),
-    ("stages as a flow", 'vary = "solvent_flow"\nfrom = "600 kg/h"', 'vary = "stages"\nfrom = "600 kg/h"', "sweep.from",
+    ("solvent fed boiling", 'input = "solvent_flow"\nfrom = "600 kg/h"\nto = "3000 kg/h"',
+     'input = "solvent_temperature"\nfrom = "20 degC"\nto = "110 degC"', "sweep.to", ["would boil"]),
+    ("stages as a flow", 'input = "solvent_flow"\nfrom = "600 kg/h"', 'input = "stages"\nfrom = "600 kg/h"', "sweep.from",
      ["whole number of stages"]),
-    ("logarithm from zero", 'vary = "solvent_flow"\nfrom = "600 kg/h"\nto = "3000 kg/h"',
-     'vary = "cooler_duty"\ncooler_stage = 2\nfrom = "0 kW"\nto = "30 kW"\nlog = true', "sweep.log", ["above zero"]),
+    ("logarithm from zero", 'input = "solvent_flow"\nfrom = "600 kg/h"\nto = "3000 kg/h"',
+     'input = "cooler_duty"\ncooler_stage = 2\nfrom = "0 kW"\nto = "30 kW"\nlog = true', "sweep.log", ["above zero"]),
 ]
 
 
@@ -179,7 +183,7 @@ def test_options_replace_the_table_values_one_by_one():
     assert (table.variable, len(table.values), table.log) == ("solvent_flow", 25, False)
     water = 0.018015268  # kg/mol (IAPWS-95 molar mass, as in the component library)
     assert table.values[0] == pytest.approx(600.0 / 3600.0 / water, rel=1e-4)  # 600 kg/h of pure water in mol/s
-    request = sweep_request(case, vary="stages", start="2", end="8", points=30, outputs=("max_temperature",))
+    request = sweep_request(case, input_name="stages", start="2", end="8", points=30, outputs=("max_temperature",))
     assert request.design_variable == "n_stages" and request.values == (2.0, 3.0, 4.0, 5.0, 6.0, 7.0, 8.0)
     assert request.outputs == ("max_temperature",) and "7 different whole stage counts" in request.notes[0]
     logged = sweep_request(case, start="10 kmol/h", end="1000 kmol/h", points=3, log=True)
@@ -189,10 +193,10 @@ def test_options_replace_the_table_values_one_by_one():
 @pytest.mark.parametrize(
     "options, option, words",
     [
-        (dict(vary="colour"), "--vary", ["expected one of solvent_flow"]),
+        (dict(input_name="colour"), "--input", ["expected one of solvent_flow"]),
         (dict(start="50 degC"), "--from", ["is a temperature", "molar flow"]),
-        (dict(vary="cooler_duty", start="0 kW", end="10 kW"), "--vary", ["--stage"]),
-        (dict(vary="cooler_duty", start="0 kW", end="10 kW", cooler_stage=9), "--stage", ["from 1 to 6"]),
+        (dict(input_name="cooler_duty", start="0 kW", end="10 kW"), "--input", ["--stage"]),
+        (dict(input_name="cooler_duty", start="0 kW", end="10 kW", cooler_stage=9), "--stage", ["from 1 to 6"]),
         (dict(points=1), "--points", [">= 2"]),
         (dict(outputs=("colour",)), "--output", ["unknown"]),
     ],
@@ -207,7 +211,7 @@ def test_bad_options_name_the_option(options, option, words):
 
 def test_a_sweep_without_range_says_what_is_missing():
     case = parse_case(DEMO.split("\n[sweep]\n")[0], FILE)
-    with pytest.raises(CaseError, match="needs --vary and --from and --to"):
+    with pytest.raises(CaseError, match="needs --input and --from and --to"):
         sweep_request(case)
 
 

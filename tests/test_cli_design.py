@@ -61,12 +61,12 @@ def test_the_demo_reports_its_design_everywhere(demo):
     assert set(design) == documented
     for dotted in (key for key in RESULTS_KEYS if key.startswith("design")):
         lookup(record, dotted)
-    assert design["adjusted"] == "solvent_flow" and design["target"]["quantity"] == "outlet_ppmv"
-    assert design["target"]["required"] == 30.0 and design["target"]["met"] and design["target"]["adjusted_for"]
+    assert design["solve_for"] == "solvent_flow" and design["target"]["quantity"] == "outlet_ppmv"
+    assert design["target"]["required"] == 30.0 and design["target"]["met"] and design["target"]["solved_for"]
     # Met within the loop's tolerance (Brent's method on ln(flow) to 1e-12, solves to 1e-10 scaled).
     assert design["target"]["reached"] == pytest.approx(30.0, rel=1e-8)
     assert record["solvent_in"]["flow_mol_per_s"] == design["solvent_flow_mol_per_s"]  # the designed column is reported
-    assert design["temperature_limit"]["held"] and not design["temperature_limit"]["adjusted_for"]
+    assert design["temperature_limit"]["held"] and not design["temperature_limit"]["solved_for"]
     minimum = design["minimum_solvent"]
     assert minimum["solvent_flow_mol_per_s"] < design["solvent_flow_mol_per_s"]
     assert minimum["design_multiple"] == pytest.approx(design["solvent_flow_mol_per_s"] / minimum["solvent_flow_mol_per_s"])
@@ -94,12 +94,12 @@ def test_the_design_written_into_the_case_reproduces_the_target(demo):
 
 def test_a_stage_count_design_is_the_fewest_stages_that_meet_the_target(tmp_path):
     text = variant('outlet_mole_fraction = "30 ppmv"', 'outlet_mole_fraction = "50 ppmv"')
-    text = variant('adjust = "solvent_flow"', 'adjust = "stages"', text)
+    text = variant('solve_for = "solvent_flow"', 'solve_for = "stages"', text)
     result, record = run_json(tmp_path, text)
     assert result.exit_code == 0, result.output
     design = record["design"]
     n = design["stages"]
-    assert design["adjusted"] == "stages" and n - 1 < design["fractional_stages"] <= n
+    assert design["solve_for"] == "stages" and n - 1 < design["fractional_stages"] <= n
     assert record["column"]["theoretical_stages"] == n and design["target"]["reached"] <= 50.0
     for stages, meets in ((n, True), (n - 1, False)):
         case = parse_case(variant("stages = 6", f"stages = {stages}", without_design(DEMO)), "rewritten.toml")
@@ -107,16 +107,16 @@ def test_a_stage_count_design_is_the_fewest_stages_that_meet_the_target(tmp_path
 
 
 def test_a_cooler_duty_design_holds_the_limit_and_reproduces_it(tmp_path):
-    text = variant('adjust = "solvent_flow"\ncolumn_temperature_limit = "40 degC"',
-                   'adjust = "cooler_duty"\ncooler_stage = 6\nliquid_out_temperature_limit = "25 degC"')
+    text = variant('solve_for = "solvent_flow"\ncolumn_temperature_limit = "40 degC"',
+                   'solve_for = "cooler_duty"\ncooler_stage = 6\nliquid_out_temperature_limit = "25 degC"')
     text = variant("oconnell_efficiency = true\n", "", text)
     result, record = run_json(tmp_path, text)
     assert result.exit_code == 0, result.output
     design = record["design"]
     assert design["trays"] == [] and any("trays by efficiency route not found" in w for w in record["warnings"])
     assert design["cooler_stage"] == 6 and design["cooler_duty_W"] > 0.0
-    assert design["temperature_limit"]["adjusted_for"] and design["temperature_limit"]["reached_K"] == pytest.approx(298.15, abs=1e-6)
-    assert design["target"]["adjusted_for"] is False and isinstance(design["target"]["met"], bool)
+    assert design["temperature_limit"]["solved_for"] and design["temperature_limit"]["reached_K"] == pytest.approx(298.15, abs=1e-6)
+    assert design["target"]["solved_for"] is False and isinstance(design["target"]["met"], bool)
     cooler = f'\n[[column.cooler]]\nstage = 6\nduty = "{design["cooler_duty_W"]!r} W"\n'
     case = parse_case(without_design(DEMO) + cooler, "rewritten.toml")
     # Brent's method stops within 1e-12 of the duty; the bottom moves ~1 K per kW.

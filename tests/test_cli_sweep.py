@@ -19,7 +19,7 @@ from traywise.cli import main
 from traywise.starter import starter_case
 
 DEMO = Path(__file__).resolve().parents[1] / "cases" / "ammonia-scrubber-design.toml"
-FIFTY = ["--vary", "solvent_flow", "--from", "600 kg/h", "--to", "3000 kg/h", "--points", "50"]
+FIFTY = ["--input", "solvent_flow", "--from", "600 kg/h", "--to", "3000 kg/h", "--points", "50"]
 
 
 def invoke(*arguments):
@@ -86,7 +86,7 @@ def _hot_starter(tmp_path):
 
 def test_a_failing_point_is_reported_not_dropped(tmp_path):
     case = _hot_starter(tmp_path)
-    result = invoke("sweep", case, "--vary", "solvent_flow", "--from", "1 kg/h", "--to", "5000 kg/h", "--points", "4",
+    result = invoke("sweep", case, "--input", "solvent_flow", "--from", "1 kg/h", "--to", "5000 kg/h", "--points", "4",
                     "--log", "--out", tmp_path / "out")
     assert result.exit_code == 0, result.output
     rows = read_csv(tmp_path / "out")
@@ -101,7 +101,7 @@ def test_a_failing_point_is_reported_not_dropped(tmp_path):
 
 def test_no_point_converging_exits_3_after_writing(tmp_path):
     case = _hot_starter(tmp_path)
-    result = invoke("sweep", case, "--vary", "solvent_flow", "--from", "1 kg/h", "--to", "2 kg/h", "--points", "2",
+    result = invoke("sweep", case, "--input", "solvent_flow", "--from", "1 kg/h", "--to", "2 kg/h", "--points", "2",
                     "--out", tmp_path / "out", "--quiet", "--no-plots")
     assert result.exit_code == 3
     lines = result.stderr.strip().splitlines()
@@ -110,14 +110,14 @@ def test_no_point_converging_exits_3_after_writing(tmp_path):
 
 
 def test_a_stage_and_a_cooler_sweep(tmp_path):
-    stages = invoke("sweep", DEMO, "--vary", "stages", "--from", "1", "--to", "8", "--points", "8", "--out",
+    stages = invoke("sweep", DEMO, "--input", "stages", "--from", "1", "--to", "8", "--points", "8", "--out",
                     tmp_path / "stages", "--no-plots", "--output", "outlet_ppmv:ammonia")
     assert stages.exit_code == 0, stages.output
     rows = read_csv(tmp_path / "stages")
     assert [row["stages"] for row in rows] == [str(n) for n in range(1, 9)]
     outlet = [float(row["outlet_ppmv:ammonia"]) for row in rows]
     assert np.all(np.diff(outlet) < 0.0)  # more stages never absorb less
-    cooled = invoke("sweep", DEMO, "--vary", "cooler_duty", "--stage", "6", "--from", "0 kW", "--to", "10 kW",
+    cooled = invoke("sweep", DEMO, "--input", "cooler_duty", "--stage", "6", "--from", "0 kW", "--to", "10 kW",
                     "--points", "3", "--output", "heat_removed", "--output", "liquid_out_temperature",
                     "--out", tmp_path / "cooled", "--no-plots")
     assert cooled.exit_code == 0, cooled.output
@@ -140,9 +140,9 @@ def test_the_case_sweep_table_runs_without_options_and_replaces_its_own_folder(t
 @pytest.mark.parametrize(
     "options, words",
     [
-        (["--vary", "colour", "--from", "1", "--to", "2"], ["--vary:", "expected one of solvent_flow"]),
-        (["--vary", "gas_temperature", "--from", "20", "--to", "40 degC"], ["--from:", "has no unit"]),
-        (["--vary", "top_pressure", "--from", "1 bar", "--to", "2 barg"], ["--to:", "gauge"]),
+        (["--input", "colour", "--from", "1", "--to", "2"], ["--input:", "expected one of solvent_flow"]),
+        (["--input", "gas_temperature", "--from", "20", "--to", "40 degC"], ["--from:", "has no unit"]),
+        (["--input", "top_pressure", "--from", "1 bar", "--to", "2 barg"], ["--to:", "gauge"]),
         (["--output", "colour"], ["--output:", "unknown"]),
         (["--processes", "0"], ["0"]),
     ],
@@ -166,5 +166,5 @@ def test_a_sweep_refuses_a_folder_traywise_did_not_write(tmp_path):
 def test_sweep_is_listed_and_documents_its_options():
     assert "sweep" in invoke("--help").stdout
     help_text = invoke("sweep", "--help").stdout
-    for option in ("--vary", "--from", "--to", "--points", "--log", "--output", "--stage", "--processes", "--out"):
+    for option in ("--input", "--from", "--to", "--points", "--log", "--output", "--stage", "--processes", "--out"):
         assert option in help_text

@@ -7,7 +7,7 @@ import pytest
 
 from support.design import scrubber_column, scrubber_model
 from traywise.design import sweep
-from traywise.errors import CaseError
+from traywise.errors import InputError
 from traywise.mesh.newton import solve_column
 
 OUTPUTS = ("fraction_absorbed:ammonia-like", "outlet_ppmv:ammonia-like", "max_temperature", "hottest_stage", "iterations")
@@ -61,11 +61,11 @@ def test_stage_sweep_and_cooler_sweep(scrubber):
 
 def test_sweep_input_is_checked(scrubber):
     column = scrubber_column(4, 2.0)
-    with pytest.raises(CaseError, match="output 'colour' unknown"):
+    with pytest.raises(InputError, match="output 'colour' unknown"):
         sweep(column, scrubber, variable="solvent_flow", values=[1.0], outputs=("colour",))
-    with pytest.raises(CaseError, match="needs a component"):
+    with pytest.raises(InputError, match="needs a component"):
         sweep(column, scrubber, variable="solvent_flow", values=[1.0], outputs=("fraction_absorbed:ozone",))
-    with pytest.raises(CaseError, match="cannot be swept"):
+    with pytest.raises(InputError, match="cannot be swept"):
         sweep(column, scrubber, variable="colour", values=[1.0], outputs=OUTPUTS)
-    with pytest.raises(CaseError, match="stage"):
+    with pytest.raises(InputError, match="stage"):
         sweep(column, scrubber, variable="cooler_duty", values=[1.0], outputs=OUTPUTS)

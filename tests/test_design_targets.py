@@ -18,7 +18,7 @@ from traywise.design import (
     solvent_for_target,
     stages_for_target,
 )
-from traywise.errors import CaseError, PinchError
+from traywise.errors import InputError, PinchError, TargetNotReached
 from traywise.inert_basis.kremser import kremser_absorption_factor, kremser_stages
 from traywise.mesh.newton import solve_column
 
@@ -117,17 +117,17 @@ def test_a_target_below_the_minimum_solvent_raises_a_pinch_error(dilute):
 
 def test_a_target_too_tight_for_the_stages_raises(dilute):
     # One stage absorbs at most A / (1 + A) < 1; 1 - 1e-9 needs an A beyond 2**14 times the start.
-    with pytest.raises(CaseError, match="not reached even with"):
+    with pytest.raises(TargetNotReached, match="not reached even with"):
         target = SoluteTarget(SOLUTE, "fraction_absorbed", 1 - 1e-9)
         solvent_for_target(dilute_column(1, 1.0, solute_fraction=Y_IN), dilute, target)
 
 
 def test_targets_check_their_input(dilute):
-    with pytest.raises(CaseError, match="quantity"):
+    with pytest.raises(InputError, match="quantity"):
         SoluteTarget(SOLUTE, "outlet_ratio", 0.1)
-    with pytest.raises(CaseError, match="between 0 and 1"):
+    with pytest.raises(InputError, match="between 0 and 1"):
         SoluteTarget(SOLUTE, "fraction_absorbed", 1.0)
-    with pytest.raises(CaseError, match="not a component"):
+    with pytest.raises(InputError, match="not a component"):
         solvent_for_target(dilute_column(3, 1.0), dilute, SoluteTarget("ozone", "fraction_absorbed", 0.5))
 
 
@@ -138,9 +138,9 @@ def test_changing_the_stage_count_keeps_only_what_stays_defined(scrubber):
     longer = with_stages(column, 10)
     assert longer.gas.stage == 10 and np.all(longer.murphree == 0.7)
     assert longer.heat_removed[1] == 500.0 and longer.heat_removed.sum() == 500.0
-    with pytest.raises(CaseError, match="cooler sits on stage 2"):
+    with pytest.raises(InputError, match="cooler sits on stage 2"):
         with_stages(column, 1)
-    with pytest.raises(CaseError, match="differs from stage to stage"):
+    with pytest.raises(InputError, match="differs from stage to stage"):
         with_stages(scrubber_column(3, 2.0, murphree=[1.0, 0.8, 0.8]), 4)
-    with pytest.raises(CaseError, match="whole number"):
+    with pytest.raises(InputError, match="whole number"):
         with_stages(column, 2.5)

@@ -10,7 +10,7 @@ import numpy as np
 import pytest
 from scipy.integrate import quad
 
-from traywise.errors import CaseError
+from traywise.errors import InputError
 from traywise.properties.constants import GAS_CONSTANT, P_STANDARD
 from traywise.properties.equilibrium_table import EquilibriumTable
 from traywise.properties.library import find_component
@@ -195,15 +195,15 @@ def test_warnings_outside_the_table():
 )
 def test_bad_tables_are_refused(arguments, message):
     given = dict(solvent="water", temperatures=TEMPERATURES, loadings=(LOADINGS, LOADINGS), partial_pressures=PRESSURES)
-    with pytest.raises(CaseError, match=message):
+    with pytest.raises(InputError, match=message):
         EquilibriumTable(**{**given, **arguments})
 
 
 def test_a_table_needs_a_table_component_and_a_liquid_solvent():
-    with pytest.raises(CaseError, match="needs an equilibrium table"):
+    with pytest.raises(InputError, match="needs an equilibrium table"):
         PropertyModel([WATER, SO2], equilibrium=["raoult", "table"])
-    with pytest.raises(CaseError, match="must be a 'raoult' or 'nonvolatile' liquid"):
+    with pytest.raises(InputError, match="must be a 'raoult' or 'nonvolatile' liquid"):
         PropertyModel([WATER, SO2, NITROGEN], equilibrium=["raoult", "table", "insoluble"],
                       tables={"sulfur dioxide": EquilibriumTable("nitrogen", TEMPERATURES, (LOADINGS, LOADINGS), PRESSURES)})
-    with pytest.raises(CaseError, match="whose equilibrium model is not 'table'"):
+    with pytest.raises(InputError, match="whose equilibrium model is not 'table'"):
         PropertyModel([WATER, SO2], equilibrium=["raoult", "henry"], tables={"sulfur dioxide": two_temperature_table()})

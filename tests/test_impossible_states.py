@@ -67,7 +67,7 @@ def test_a_modest_cooler_still_gives_a_result(tmp_path):
 def test_a_cooler_duty_design_that_would_freeze_the_column_is_not_reached(tmp_path):
     # A 40 degC gas keeps the bottom stages above a 30 degC limit whatever one cooler on stage 5
     # takes out: the search would end at a duty that freezes the stages around the cooler.
-    design = '[design]\nadjust = "cooler_duty"\ncooler_stage = 5\ncolumn_temperature_limit = "30 degC"'
+    design = '[design]\nsolve_for = "cooler_duty"\ncooler_stage = 5\ncolumn_temperature_limit = "30 degC"'
     result = run(tmp_path, design, t_gas="40 degC")
     assert result.exit_code == 3, result.output
     assert "design target not reached" in result.stderr and "no physical state" in result.stderr

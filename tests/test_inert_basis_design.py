@@ -12,7 +12,7 @@ import pytest
 from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
-from traywise.errors import CaseError
+from traywise.errors import InputError, PinchError
 from traywise.inert_basis.kremser import kremser_fraction_absorbed, kremser_gas_outlet, kremser_stages
 from traywise.properties.constants import P_STANDARD
 from traywise.properties.inline import inline_component
@@ -212,13 +212,13 @@ def test_minimum_ratio_finds_the_tangent_pinch():
     assert minimum == pytest.approx(tangent, rel=1e-9)  # bounded Brent refinement of a smooth maximum
     assert minimum > (y_in - y_out) / 3.0  # the bottom-end line would be far too lean
     step_stages(curve, 1.001 * tangent, gas_ratio_in=y_in, gas_ratio_out=y_out)
-    with pytest.raises(CaseError, match="pinch: inside the column"):
+    with pytest.raises(PinchError, match="pinch: inside the column"):
         step_stages(curve, 0.999 * tangent, gas_ratio_in=y_in, gas_ratio_out=y_out)
 
 
 def test_target_beyond_the_bottom_pinch_raises():
     # L'/V' = 1.25 against (L'/V')min = 2.0 for 90 % of a 20 % solute with K = 1.97.
-    with pytest.raises(CaseError, match="pinch: at the bottom.*against a minimum 1.99"):
+    with pytest.raises(PinchError, match="pinch: at the bottom.*against a minimum 1.99"):
         inert_basis_design(
             absorber_model(2.0e5), "solute", gas_flows=[80.0, 0.0, 20.0], solvent_flows=[0.0, 100.0, 0.0],
             temperature=T, pressure=P_STANDARD, target_fraction_absorbed=0.9,
@@ -227,9 +227,9 @@ def test_target_beyond_the_bottom_pinch_raises():
 
 def test_outlet_below_equilibrium_with_the_entering_solvent_raises():
     # Solvent enters with X_in = 0.02 over Y* = 1.3 X: the gas cannot leave below Y = 0.026.
-    with pytest.raises(CaseError, match="pinch: at the top"):
+    with pytest.raises(PinchError, match="pinch: at the top"):
         step_stages(straight(1.3), 5.0, gas_ratio_in=0.05, gas_ratio_out=0.025, liquid_ratio_in=0.02)
-    with pytest.raises(CaseError, match="pinch: at the top"):
+    with pytest.raises(PinchError, match="pinch: at the top"):
         minimum_liquid_to_gas_ratio(straight(1.3), gas_ratio_in=0.05, gas_ratio_out=0.025, liquid_ratio_in=0.02)
 
 
@@ -237,7 +237,7 @@ def test_nearly_pinched_staircase_is_refused_not_truncated():
     # A = 0.8 aiming at 0.8 * (1 - 1e-9) of the solute: some 90 stages, more than the 50 allowed.
     m, y_in = 1.3, 0.05
     y_out = y_in * (1.0 - 0.8 * (1.0 - 1e-9))
-    with pytest.raises(CaseError, match="more than 50 stages"):
+    with pytest.raises(PinchError, match="more than 50 stages"):
         step_stages(straight(m), 0.8 * m, gas_ratio_in=y_in, gas_ratio_out=y_out, max_stages=50)
 
 
@@ -247,13 +247,13 @@ def test_nearly_pinched_staircase_is_refused_not_truncated():
 def test_bad_input_is_refused_with_its_name():
     model = absorber_model(2.0e5)
     flows = dict(gas_flows=[80.0, 0.0, 20.0], solvent_flows=[0.0, 250.0, 0.0], temperature=T, pressure=P_STANDARD)
-    with pytest.raises(CaseError, match="exactly one"):
+    with pytest.raises(InputError, match="exactly one"):
         inert_basis_design(model, "solute", target_fraction_absorbed=0.9, n_stages=3, **flows)
-    with pytest.raises(CaseError, match="not a component"):
+    with pytest.raises(InputError, match="not a component"):
         inert_basis_design(model, "ammonia", target_fraction_absorbed=0.9, **flows)
-    with pytest.raises(CaseError, match="finite K > 0"):
+    with pytest.raises(InputError, match="finite K > 0"):
         inert_basis_design(model, "carrier", target_fraction_absorbed=0.9, **flows)
-    with pytest.raises(CaseError, match="overall_efficiency"):
+    with pytest.raises(InputError, match="overall_efficiency"):
         inert_basis_design(model, "solute", target_fraction_absorbed=0.9, overall_efficiency=1.2, **flows)
-    with pytest.raises(CaseError, match="must increase"):
+    with pytest.raises(InputError, match="must increase"):
         step_stages(lambda x: 0.05 * np.sin(40.0 * np.asarray(x)) + x, 0.5, gas_ratio_in=0.05, gas_ratio_out=0.01)

@@ -13,7 +13,7 @@ import pytest
 from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
-from traywise.errors import CaseError
+from traywise.errors import InputError
 from traywise.inert_basis.kremser import (
     approach_to_equilibrium,
     kremser_absorption_factor,
@@ -127,16 +127,16 @@ def test_absorption_factor_round_trip(a, n):
 
 @pytest.mark.parametrize("a, phi", [(0.8, 0.8), (0.8, 0.95), (2.0, 1.0)])
 def test_unreachable_fraction_names_the_pinch(a, phi):
-    with pytest.raises(CaseError, match="pinch makes it impossible"):
+    with pytest.raises(InputError, match="pinch makes it impossible"):
         kremser_stages(a, phi)
 
 
 def test_invalid_arguments_are_refused():
-    with pytest.raises(CaseError, match="absorption_factor"):
+    with pytest.raises(InputError, match="absorption_factor"):
         kremser_fraction_absorbed(-0.5, 2)
-    with pytest.raises(CaseError, match="n_stages"):
+    with pytest.raises(InputError, match="n_stages"):
         kremser_fraction_absorbed(1.5, -1)
-    with pytest.raises(CaseError, match="fraction_absorbed"):
+    with pytest.raises(InputError, match="fraction_absorbed"):
         kremser_absorption_factor(3, 1.0)
-    with pytest.raises(CaseError, match="gas_ratio_in"):
+    with pytest.raises(InputError, match="gas_ratio_in"):
         approach_to_equilibrium(0.01, 0.005, liquid_ratio_in=0.01, equilibrium_slope=2.0)

@@ -130,7 +130,7 @@ def test_processes_give_the_numbers_of_one_process():
 def test_a_failed_sample_is_kept_with_its_reason():
     # A stage-count design for 95 % absorbed: samples whose Henry's constant makes A < 0.95 cannot
     # reach it with any number of stages (Kremser: phi tends to A).
-    result = _run(DILUTE + '[design]\nadjust = "stages"\nfraction_absorbed = "95 %"\n', 12)
+    result = _run(DILUTE + '[design]\nsolve_for = "stages"\nfraction_absorbed = "95 %"\n', 12)
     failed = result.failed
     absorption = SOLVENT_FLOW / (HENRY * result.factors[:, 0] / PRESSURE * GAS_FLOW)
     assert set(failed) == set(np.flatnonzero(absorption < 0.95)) and failed.size > 0
@@ -141,7 +141,7 @@ def test_a_failed_sample_is_kept_with_its_reason():
 
 
 def test_the_sentence_states_the_stages_at_90_percent():
-    result = _run(DILUTE + '[design]\nadjust = "stages"\nfraction_absorbed = "70 %"\n', 30)
+    result = _run(DILUTE + '[design]\nsolve_for = "stages"\nfraction_absorbed = "70 %"\n', 30)
     assert result.converged.all()
     stages = np.sort(result.data[:, 0])
     n90 = int(stages[math.ceil(0.9 * stages.size) - 1])

@@ -2,14 +2,14 @@
 
     traywise run CASE [--out DIR] [--json] [--no-plots] [--quiet | --verbose]
     traywise compare CASE [--json] [--quiet | --verbose]
-    traywise sweep CASE [--vary INPUT --from VALUE --to VALUE] [--points N] [--log] [--output NAME ...]
+    traywise sweep CASE [--input INPUT --from VALUE --to VALUE] [--points N] [--log] [--output NAME ...]
                         [--stage N] [--processes N] [--out DIR] [--no-plots] [--quiet]
     traywise uncertainty CASE [--samples N] [--seed N] [--processes N] [--engine local|dask]
                               [--scheduler ADDRESS] [--out DIR] [--no-plots] [--quiet]
     traywise new [FILE] [--force]
     traywise components [show NAME]
 
-A case with a [design] table is designed by `run` and `compare` (the adjusted input solved for
+A case with a [design] table is designed by `run` and `compare` (its solve_for input solved for
 its target); `sweep` solves the column as written at every point.
 
 Exit status: 0 success; 1 the results could not be written (file system); 2 bad input (case
@@ -46,11 +46,16 @@ class _Command(click.Command):
         return result
 
     def _invoke_translated(self, ctx):
-        from .errors import CaseError, ConvergenceError, PropertyRangeError, TargetNotReached
+        from .errors import (CaseError, ComponentDataError, ConvergenceError, InputError, PinchError,
+                             PropertyRangeError, TargetNotReached)
 
         try:
             return super().invoke(ctx)
-        except (CaseError, PropertyRangeError) as error:
+        except InputError as error:
+            from .case.quantities import case_error
+
+            _fail(ctx, str(case_error(error, ctx.params.get("case_file"))), EXIT_INPUT)
+        except (CaseError, ComponentDataError, PinchError, PropertyRangeError) as error:
             _fail(ctx, str(error), EXIT_INPUT)
         except ConvergenceError as error:
             _fail(ctx, str(error), EXIT_CONVERGENCE)
@@ -252,8 +257,8 @@ LONG_SWEEP = 10  # points from which a sweep shows a progress bar
 
 @main.command()
 @_case_argument
-@click.option("--vary", metavar="INPUT", help="The input to vary: solvent_flow, stages, gas_temperature, "
-              "solvent_temperature, top_pressure or cooler_duty [default: the case's sweep.vary].")
+@click.option("--input", "input_name", metavar="INPUT", help="The input to sweep: solvent_flow, stages, gas_temperature, "
+              "solvent_temperature, top_pressure or cooler_duty [default: the case's sweep.input].")
 @click.option("--from", "start", metavar="VALUE", help="First value with its unit: '1000 kg/h', '50 kmol/h', '20 degC', "
               "'1.1 bar', '0 kW', or a stage count.")
 @click.option("--to", "end", metavar="VALUE", help="Last value with its unit.")
@@ -271,7 +276,7 @@ LONG_SWEEP = 10  # points from which a sweep shows a progress bar
 @click.option("--no-plots", is_flag=True, help="Skip sweep.png.")
 @click.option("--quiet", "-q", is_flag=True, help="Print nothing but warnings (on stderr) and errors.")
 @click.pass_context
-def sweep(ctx, case_file, vary, start, end, points, log, outputs, cooler_stage, processes, out_dir, no_plots, quiet):
+def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_stage, processes, out_dir, no_plots, quiet):
     """Solve CASE at every point of a range of one input; write sweep.csv, sweep.png, sweep.json
     and sweep.md. Options replace the case's [sweep] table values; failed points are kept and
     marked."""
@@ -288,7 +293,7 @@ def sweep(ctx, case_file, vary, start, end, points, log, outputs, cooler_stage, 
     from .design.sweep import sweep as run_sweep
     from .report.sweep_view import write_sweep, sweep_text
 
-    request = sweep_request(case, vary=vary, start=start, end=end, points=points, log=log, outputs=outputs,
+    request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
                             cooler_stage=cooler_stage)
     total = len(request.values)
     with _progress(quiet or total < LONG_SWEEP or not sys.stderr.isatty(), total) as bar:

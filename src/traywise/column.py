@@ -11,6 +11,8 @@ from dataclasses import dataclass, fields
 
 import numpy as np
 
+from .errors import InputError
+
 PHASES = ("vapour", "liquid")
 MODES = ("adiabatic", "isothermal")
 
@@ -93,25 +95,25 @@ class Column(_ByValue):
     def __post_init__(self):
         n = self.n_stages
         if n < 1:
-            raise ValueError("a column needs at least one stage")
+            raise InputError("n_stages", f"a column needs at least one stage, found {n!r}")
         object.__setattr__(self, "extra_feeds", tuple(self.extra_feeds))
         object.__setattr__(self, "side_draws", tuple(self.side_draws))
         object.__setattr__(self, "heat_removed", _per_stage(self.heat_removed, n, 0.0))
         object.__setattr__(self, "murphree", _per_stage(self.murphree, n, 1.0))
         if self.mode not in MODES:
-            raise ValueError(f"mode must be one of {MODES}")
+            raise InputError("mode", f"expected one of {MODES}, found {self.mode!r}")
         if self.mode == "isothermal":
             if self.temperature is None:
-                raise ValueError("isothermal mode needs a temperature")
+                raise InputError("temperature", "isothermal mode needs a temperature")
             object.__setattr__(self, "temperature", _per_stage(self.temperature, n, None))
         for feed in self.feeds:
             if not 1 <= feed.stage <= n or feed.phase not in PHASES:
-                raise ValueError(f"feed on stage {feed.stage} ({feed.phase}) does not fit a {n}-stage column")
+                raise InputError("feeds", f"feed on stage {feed.stage} ({feed.phase}) does not fit a {n}-stage column")
         for draw in self.side_draws:
             if not 1 <= draw.stage <= n or draw.phase not in PHASES or not 0.0 <= draw.fraction < 1.0:
-                raise ValueError(f"side draw on stage {draw.stage} is not valid")
+                raise InputError("side_draws", f"side draw on stage {draw.stage} is not valid")
         if np.any(self.murphree <= 0.0) or np.any(self.murphree > 1.0):
-            raise ValueError("Murphree efficiencies must lie in (0, 1]")
+            raise InputError("murphree", "Murphree efficiencies must lie in (0, 1]")
 
     @property
     def feeds(self):

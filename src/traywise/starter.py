@@ -60,14 +60,14 @@ plots = true
 # Design to a target instead of solving the column as written (`traywise run`):
 # [design]
 # outlet_mole_fraction = "20 ppmv"   # key component in the gas out; or fraction_absorbed = "99 %"
-# adjust = "solvent_flow"            # or "stages"; or "cooler_duty" with cooler_stage and a temperature limit
-# column_temperature_limit = "45 degC"   # or liquid_out_temperature_limit; checked unless a cooler is adjusted
+# solve_for = "solvent_flow"         # or "stages"; or "cooler_duty" with cooler_stage and a temperature limit
+# column_temperature_limit = "45 degC"   # or liquid_out_temperature_limit; checked unless a cooler duty is solved for
 # minimum_solvent = true             # also the minimum solvent flow, the pinch and the design margin
 # oconnell_efficiency = true         # also trays from O'Connell's efficiency estimate (water as solvent)
 
 # One input over a range (`traywise sweep`; its options replace these):
 # [sweep]
-# vary = "solvent_flow"              # or stages, gas_temperature, solvent_temperature, top_pressure, cooler_duty
+# input = "solvent_flow"             # or stages, gas_temperature, solvent_temperature, top_pressure, cooler_duty
 # from = "30000 kg/h"
 # to = "90000 kg/h"
 # points = 21

@@ -20,7 +20,7 @@ from pathlib import Path
 
 REPOSITORY = Path(__file__).resolve().parents[2]
 CASE = REPOSITORY / "cases" / "ammonia-scrubber-design.toml"
-RANGE = ["--vary", "solvent_flow", "--from", "600 kg/h", "--to", "3000 kg/h"]
+RANGE = ["--input", "solvent_flow", "--from", "600 kg/h", "--to", "3000 kg/h"]
 
 
 def command():

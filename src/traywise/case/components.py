@@ -5,7 +5,7 @@ equilibrium tables and the ``[liquid_model]``, assembled into the case's propert
 import dataclasses
 import math
 
-from ..errors import CaseError, ComponentDataError
+from ..errors import CaseError, ComponentDataError, InputError
 from ..properties.component import MODEL_KINDS, Quantity
 from ..properties.constants import P_STANDARD, T_REFERENCE
 from ..properties.inline import (
@@ -136,7 +136,7 @@ def read_components(top):
     liquid = read_liquid_model(top, components)
     try:
         model = PropertyModel(components, activity=None if liquid is None else liquid.activity, tables=equilibrium_tables)
-    except CaseError as error:  # the readers check what it refuses; kept so that no input ends in a traceback
+    except InputError as error:  # the readers check what it refuses; kept so that no input ends in a traceback
         raise CaseError(where(top.file, "liquid_model" if liquid else "component"), str(error)) from None
     return CaseComponents(tuple(components), model, tuple(echo), tuple(concentration), tuple(library_henry),
                           tuple(warnings), None if liquid is None else liquid.echo)

@@ -1,5 +1,5 @@
 """The ``[design]`` table: a removal target on the key solute and/or a temperature limit, the
-input adjusted to meet it, and the extra figures asked for (minimum solvent flow, O'Connell's
+input solved for to meet it, and the extra figures asked for (minimum solvent flow, O'Connell's
 tray efficiency). Read into a ``DesignInput`` whose fields are those the design layer takes
 (``traywise.design.plan``); the design itself is run by the command line."""
 
@@ -12,13 +12,13 @@ DESIGN_KEYS = (
     "fraction_absorbed",
     "liquid_out_temperature_limit",
     "column_temperature_limit",
-    "adjust",
+    "solve_for",
     "cooler_stage",
     "minimum_solvent",
     "oconnell_efficiency",
 )
 # case word -> name in traywise.design.variables
-ADJUSTABLE = {"solvent_flow": "solvent_flow", "stages": "n_stages", "cooler_duty": "cooler_duty"}
+SOLVABLE = {"solvent_flow": "solvent_flow", "stages": "n_stages", "cooler_duty": "cooler_duty"}
 # case key -> place of traywise.design.targets.TemperatureLimit
 LIMITS = {"liquid_out_temperature_limit": "liquid_outlet", "column_temperature_limit": "column_maximum"}
 PER_MILLION_UNITS = ("ppmv", "ppm")  # an outlet written in these is reported in ppmv
@@ -33,7 +33,7 @@ class DesignInput:
     value : float or None         In the quantity's units: mole fraction [-], ppmv, fraction [-]
     limit_place : str or None     'liquid_outlet' or 'column_maximum'
     limit_value : float or None   Highest temperature allowed [K]
-    adjust : str                  'solvent_flow', 'n_stages' or 'cooler_duty'
+    solve_for : str               'solvent_flow', 'n_stages' or 'cooler_duty'
     cooler_stage : int or None    1-based
     minimum_solvent : bool
     oconnell_efficiency : bool
@@ -44,7 +44,7 @@ class DesignInput:
     value: float | None
     limit_place: str | None
     limit_value: float | None
-    adjust: str
+    solve_for: str
     cooler_stage: int | None
     minimum_solvent: bool
     oconnell_efficiency: bool
@@ -57,7 +57,7 @@ class DesignInput:
             "target_value": self.value,
             "temperature_limit_place": self.limit_place,
             "temperature_limit_K": self.limit_value,
-            "adjust": next(word for word, name in ADJUSTABLE.items() if name == self.adjust),
+            "solve_for": next(word for word, name in SOLVABLE.items() if name == self.solve_for),
             "cooler_stage": self.cooler_stage,
             "minimum_solvent": self.minimum_solvent,
             "oconnell_efficiency": self.oconnell_efficiency,
@@ -79,30 +79,30 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
     section = top.table("design", DESIGN_KEYS)
     if section is None:
         return None
-    adjust = ADJUSTABLE[section.text("adjust", choices=tuple(ADJUSTABLE))]
+    solve_for = SOLVABLE[section.text("solve_for", choices=tuple(SOLVABLE))]
     quantity, value = _removal_target(section, model.names[key], gas_flows[key] / gas_flows.sum())
     limits = [name for name in LIMITS if name in section]
     if len(limits) > 1:
         section.fail(limits[1], f"give one temperature limit, not both {' and '.join(limits)}")
     limit_place = LIMITS[limits[0]] if limits else None
     limit_value = section.quantity(limits[0], "temperature") if limits else None
-    cooler_stage = _cooler_stage(section, adjust, column_input)
+    cooler_stage = _cooler_stage(section, solve_for, column_input)
     minimum = section.boolean("minimum_solvent", False)
     oconnell = section.boolean("oconnell_efficiency", False)
     needs_target = [name for name, asked in (("minimum_solvent", minimum), ("oconnell_efficiency", oconnell)) if asked]
-    if adjust != "cooler_duty":
-        needs_target.insert(0, "adjust")
+    if solve_for != "cooler_duty":
+        needs_target.insert(0, "solve_for")
     if quantity is None and needs_target:
         section.fail(needs_target[0], "needs a removal target on the key solute: add outlet_mole_fraction (e.g. "
                      "\"20 ppmv\") or fraction_absorbed (e.g. \"99 %\")")
-    if adjust == "cooler_duty" and limit_place is None:
-        section.fail("adjust", "'cooler_duty' is adjusted to hold a temperature limit: add "
+    if solve_for == "cooler_duty" and limit_place is None:
+        section.fail("solve_for", "solving for 'cooler_duty' needs a temperature limit to hold: add "
                      "liquid_out_temperature_limit or column_temperature_limit (e.g. \"40 degC\")")
     fixed = _fixed_in_place(column_input)
-    if adjust == "n_stages" and fixed:
-        section.fail("adjust", f"'stages' changes the stage count, which leaves {' and '.join(fixed)} without a fixed "
-                     "place; remove them or adjust 'solvent_flow' instead")
-    if oconnell and (fixed or adjust == "cooler_duty"):
+    if solve_for == "n_stages" and fixed:
+        section.fail("solve_for", f"'stages' changes the stage count, which leaves {' and '.join(fixed)} without a fixed "
+                     "place; remove them or solve for 'solvent_flow' instead")
+    if oconnell and (fixed or solve_for == "cooler_duty"):
         what = " and ".join(fixed) if fixed else "the cooler being designed"
         section.fail("oconnell_efficiency", f"trays are found by changing the stage count, which leaves {what} without "
                      "a fixed place; remove oconnell_efficiency (the column table's overall_efficiency still gives "
@@ -117,7 +117,7 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
         value=value,
         limit_place=limit_place,
         limit_value=limit_value,
-        adjust=adjust,
+        solve_for=solve_for,
         cooler_stage=cooler_stage,
         minimum_solvent=minimum,
         oconnell_efficiency=oconnell,
@@ -147,13 +147,13 @@ def _removal_target(section, key_name, inlet):
     return "outlet_mole_fraction", fraction
 
 
-def _cooler_stage(section, adjust, column_input):
-    if adjust != "cooler_duty":
+def _cooler_stage(section, solve_for, column_input):
+    if solve_for != "cooler_duty":
         if "cooler_stage" in section:
-            section.fail("cooler_stage", "is used only with adjust = 'cooler_duty'; remove it or change adjust")
+            section.fail("cooler_stage", "is used only with solve_for = 'cooler_duty'; remove it or change solve_for")
         return None
     if column_input.mode != "adiabatic":
-        section.fail("adjust", "'cooler_duty' needs mode = 'adiabatic' (in an isothermal column coolers have no effect)")
+        section.fail("solve_for", "'cooler_duty' needs mode = 'adiabatic' (in an isothermal column coolers have no effect)")
     stage = section.integer("cooler_stage")
     n = column_input.n_stages
     if not 1 <= stage <= n:

@@ -7,7 +7,7 @@ import math
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 from ..properties.equilibrium_table import EquilibriumTable
 
 TABLE_KEYS = ("solvent", "loading_basis", "isotherm", "enthalpy_of_solution", "source")
@@ -61,7 +61,7 @@ def read_equilibrium_table(section, index, components, default_solvent):
             enthalpy_of_solution=enthalpy,
             source=source,
         )
-    except CaseError as error:  # checked above; kept so that no input ever ends in a traceback
+    except InputError as error:  # checked above; kept so that no input ever ends in a traceback
         section.fail(None, error.message)
     loading_key = "loadings_kg_per_kg" if basis == "mass_ratio" else "loadings_mol_per_mol"
     echo = {

@@ -4,7 +4,7 @@ object that ``PropertyModel(activity=...)`` takes. Format: cases/README.md."""
 
 from dataclasses import dataclass
 
-from ..errors import CaseError
+from ..errors import CaseError, InputError
 from ..properties.activity import Nrtl
 from ..properties.constants import GAS_CONSTANT
 from ..properties.unifac_parameters import UNIFAC_VERSIONS, unifac
@@ -117,9 +117,9 @@ def _unifac(section, components, members, echo):
     echo.update(version=version, groups={name: {str(k): v for k, v in found.items()} for name, found in groups.items()})
     try:
         return unifac([components[i] for i in members], version=version, groups=groups)
-    except CaseError as error:
-        key = "groups" if error.where == "unifac.groups" else None
-        found = error.message if error.where.startswith("unifac") else f"{error.where}: {error.message}"
+    except InputError as error:
+        key = "groups" if error.quantity == "unifac.groups" else None
+        found = error.message if error.quantity.startswith("unifac") else str(error)
         section.fail(key, f"{found}; write subgroups as [liquid_model.groups] \"name\" = {{ 1 = 1, 18 = 1 }}")
 
 

@@ -12,13 +12,14 @@ from pathlib import Path
 import numpy as np
 
 from ..column import Column, Feed, SideDraw
-from ..errors import CaseError
+from ..errors import CaseError, InputError
 from .column import read_column
 from .components import read_components
 from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
 from .gas_model import read_gas_model
 from .internals import read_internals
+from .quantities import case_error
 from .reader import Section, where
 from .sweep import SWEEP_KEYS, check_sweep_table
 from .uncertainty import read_uncertainty
@@ -303,8 +304,8 @@ class _CaseBuilder:
                 mode=c.mode,
                 temperature=c.temperature,
             )
-        except ValueError as exc:  # guarded above; kept so that no input ever ends in a traceback
-            raise CaseError(where(self.top.file, "column"), str(exc)) from None
+        except InputError as exc:  # guarded above; kept so that no input ever ends in a traceback
+            raise case_error(exc, self.top.file, "column") from None
 
     def _pressure_warnings(self, gas, liquid, column):
         pressures = column.pressures

@@ -9,6 +9,7 @@ from ..errors import CaseError
 from .units import KINDS, UnitProblem, to_si
 
 MISSING = object()
+RENAMED = {"adjust": "solve_for", "vary": "input"}  # former key names: refused, their successors suggested
 _BARE_KEY = re.compile(r"[A-Za-z0-9_-]+")
 
 
@@ -18,7 +19,10 @@ def where(file, key_path):
 
 
 def suggestion(word, valid):
-    """The hint " (did you mean 'x'?)" naming the closest of ``valid``, or "" when none is close."""
+    """The hint " (did you mean 'x'?)" naming the closest of ``valid`` (or the new name of a key
+    renamed, see ``RENAMED``), or "" when none is close."""
+    if RENAMED.get(word) in valid:
+        return f" (did you mean '{RENAMED[word]}'?)"
     close = difflib.get_close_matches(word, list(valid), n=1, cutoff=0.6)
     return f" (did you mean '{close[0]}'?)" if close else ""
 

@@ -7,11 +7,11 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import CaseError, InputError
 from .reader import Section, suggestion
 from .units import UnitProblem, to_si
 
-SWEEP_KEYS = ("vary", "from", "to", "points", "log", "outputs", "cooler_stage")
+SWEEP_KEYS = ("input", "from", "to", "points", "log", "outputs", "cooler_stage")
 # case word -> (name in traywise.design.variables, kinds of the range values, SI unit)
 VARIABLES = {
     "solvent_flow": ("solvent_flow", ("molar_flow", "mass_flow"), "mol/s"),
@@ -22,7 +22,7 @@ VARIABLES = {
     "cooler_duty": ("cooler_duty", ("power",), "W"),
 }
 OPTIONS = {
-    "vary": "--vary",
+    "input": "--input",
     "from": "--from",
     "to": "--to",
     "points": "--points",
@@ -67,7 +67,7 @@ class SweepRequest:
     def echo(self):
         """The request in SI, units in the key names (for sweep.json)."""
         return {
-            "vary": self.variable,
+            "input": self.variable,
             "unit": self.unit,
             "from": self.values[0],
             "to": self.values[-1],
@@ -83,14 +83,14 @@ def default_outputs(key):
     return (f"fraction_absorbed:{key}", f"outlet_ppmv:{key}", "max_temperature", "liquid_out_temperature")
 
 
-def sweep_request(case, *, vary=None, start=None, end=None, points=None, log=None, outputs=(), cooler_stage=None):
+def sweep_request(case, *, input_name=None, start=None, end=None, points=None, log=None, outputs=(), cooler_stage=None):
     """The sweep of ``case``: its ``[sweep]`` table with the command-line options that are given
     (not None, not empty) in place of the table's values.
 
     Parameters
     ----------
     case : Case                      With ``sweep_table`` (the raw table or None) and ``source``
-    vary, start, end : str or None   Texts as typed ('solvent_flow', '50 kmol/h', '20 degC', '8')
+    input_name, start, end : str or None   Texts as typed ('solvent_flow', '50 kmol/h', '20 degC', '8')
     points : int or None
     log : bool or None
     outputs : tuple of str
@@ -104,7 +104,7 @@ def sweep_request(case, *, vary=None, start=None, end=None, points=None, log=Non
     ------
     CaseError   naming the table key or the option
     """
-    given = {"vary": vary, "from": start, "to": end, "points": points, "log": log, "outputs": outputs or None,
+    given = {"input": input_name, "from": start, "to": end, "points": points, "log": log, "outputs": outputs or None,
              "cooler_stage": cooler_stage}
     return _Reader(case, given).request(complete=True)
 
@@ -136,12 +136,12 @@ class _Reader:
 
     def request(self, *, complete):
         """The SweepRequest; with ``complete`` False, None after checking what is there."""
-        missing = [key for key in ("vary", "from", "to") if not self.present(key)]
+        missing = [key for key in ("input", "from", "to") if not self.present(key)]
         if missing and complete:
             options = " and ".join(OPTIONS[key] for key in missing)
             raise CaseError(self.case.source, f"the sweep needs {options} (or sweep.{missing[0]} in "
-                            "the case's [sweep] table), e.g. --vary solvent_flow --from \"1000 kg/h\" --to \"3000 kg/h\"")
-        variable = self._variable() if self.present("vary") else None
+                            "the case's [sweep] table), e.g. --input solvent_flow --from \"1000 kg/h\" --to \"3000 kg/h\"")
+        variable = self._variable() if self.present("input") else None
         points, log, outputs = self._points(), self._log(), self._outputs()
         stage = self._cooler_stage(variable)
         ends = [self._value(key, variable) for key in ("from", "to") if variable is not None and self.present(key)]
@@ -152,10 +152,10 @@ class _Reader:
         return SweepRequest(variable, design_variable, unit, values, outputs, stage, log, notes)
 
     def _variable(self):
-        value = self.raw("vary")
+        value = self.raw("input")
         if not isinstance(value, str) or value not in VARIABLES:
             hint = suggestion(value, VARIABLES) if isinstance(value, str) else ""
-            self.fail("vary", f"found {value!r}{hint}; expected one of {', '.join(VARIABLES)}")
+            self.fail("input", f"found {value!r}{hint}; expected one of {', '.join(VARIABLES)}")
         return value
 
     def _points(self):
@@ -188,17 +188,17 @@ class _Reader:
         for name in value:
             try:
                 output_spec(name, self.case.model)
-            except CaseError as problem:
+            except InputError as problem:
                 self.fail("outputs", problem.message)
         return tuple(value)
 
     def _cooler_stage(self, variable):
         if variable != "cooler_duty":
             if self.present("cooler_stage") and variable is not None:
-                self.fail("cooler_stage", "is used only when the cooler duty is varied (vary = 'cooler_duty')")
+                self.fail("cooler_stage", "is used only when the cooler duty is varied (input = 'cooler_duty')")
             return None
         if not self.present("cooler_stage"):
-            self.fail("vary", f"'cooler_duty' needs the stage of the cooler: {OPTIONS['cooler_stage']} N, or "
+            self.fail("input", f"'cooler_duty' needs the stage of the cooler: {OPTIONS['cooler_stage']} N, or "
                       "cooler_stage = N in the [sweep] table")
         value, n = self.raw("cooler_stage"), self.case.column.n_stages
         if isinstance(value, bool) or not isinstance(value, int) or not 1 <= value <= n:

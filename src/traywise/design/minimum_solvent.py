@@ -27,10 +27,10 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from ..inert_basis.equilibrium_curve import mole_ratio_equilibrium
-from ..errors import CaseError
+from ..errors import InputError
 from ..mesh.newton import SolverSettings
 from ..inert_basis.stepping import minimum_liquid_to_gas_ratio
-from .adjust import solvent_for_target
+from .solve_for import solvent_for_target
 from .variables import with_stages
 
 PINCH_BAND = 0.01  # stages within 1 % (absolute, on d_j) of the smallest driving force form the pinch zone
@@ -157,11 +157,11 @@ def minimum_solvent(
 
     Raises
     ------
-    CaseError          the target cannot be met at any solvent flow
+    TargetNotReached   the target cannot be met at any solvent flow
     ConvergenceError   a rigorous solve failed
     """
     if max_stages < 2 * n_stages:
-        raise CaseError("max_stages", f"expected at least twice n_stages = {n_stages}, found {max_stages!r}")
+        raise InputError("max_stages", f"expected at least twice n_stages = {n_stages}, found {max_stages!r}")
     target = target.for_model(model)
     n, previous, start = n_stages, None, column
     solves = iterations = 0

@@ -1,4 +1,4 @@
-"""A whole design for one column: the adjusted input that meets the target and, on request,
+"""A whole design for one column: the input solved for that meets the target and, on request,
 the minimum solvent flow and the actual trays by each efficiency route.
 
 The request is any object with these fields (the case layer reads them from a case file's
@@ -9,7 +9,7 @@ The request is any object with these fields (the case layer reads them from a ca
   value : float or None         the required value in the quantity's units (see ``targets``)
   limit_place : str or None     'liquid_outlet' or 'column_maximum' (None: no temperature limit)
   limit_value : float or None   the highest temperature allowed [K]
-  adjust : str                  'solvent_flow', 'n_stages' or 'cooler_duty'
+  solve_for : str               'solvent_flow', 'n_stages' or 'cooler_duty'
   cooler_stage : int or None    1-based stage of the cooler whose duty is adjusted
   minimum_solvent : bool        also find the minimum solvent flow for the removal target
   oconnell_efficiency : bool    also estimate the overall efficiency by O'Connell's correlation
@@ -25,15 +25,13 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError, ConvergenceError, TargetNotReached
+from ..errors import ConvergenceError, PinchError, TargetNotReached
 from ..mesh.newton import SolverSettings
-from .adjust import cooler_duty_for_limit, solvent_for_target, stages_for_target
+from .solve_for import cooler_duty_for_limit, solvent_for_target, stages_for_target
 from .minimum_solvent import minimum_solvent
 from .targets import SoluteTarget, TemperatureLimit
 from .trays import tray_design
 
-# Where the design loops say a target is out of reach (CaseError.where, see adjust.py, trays.py)
-UNREACHABLE = ("target", "pinch", "limit", "max_stages")
 MINIMUM_SOLVENT_STAGES = 40  # first stage count standing for infinitely many (minimum_solvent's default)
 
 
@@ -41,13 +39,13 @@ MINIMUM_SOLVENT_STAGES = 40  # first stage count standing for infinitely many (m
 class DesignOutcome:
     """A design that meets its target, with the figures asked for beside it.
 
-    result : DesignResult             The adjusted input, its value, the converged column
+    result : DesignResult             The input solved for, its value, the converged column
     cooler_stage : int or None        1-based stage of the adjusted cooler
     target : SoluteTarget or None     The removal target (for 'cooler_duty', checked only)
     limit : TemperatureLimit or None  The temperature limit (for the other inputs, checked only)
     target_met : bool or None         Whether the removal target is met (None without one); True
                                       when it is what the input was adjusted for (met within
-                                      the loop's tolerance, see adjust.py)
+                                      the loop's tolerance, see solve_for.py)
     limit_held : bool or None         The same for the temperature limit
     minimum : MinimumSolvent or None  When asked for
     trays : tuple of TrayDesign       One per efficiency route: the given overall efficiency,
@@ -67,11 +65,11 @@ class DesignOutcome:
 
 
 def carry_out_design(column, model, request, *, overall_efficiency=None, settings=SolverSettings()):
-    """Adjust one input of ``column`` to meet the request's target; add what else it asks for.
+    """Solve for one input of ``column`` that meets the request's target; add what else it asks for.
 
     Parameters
     ----------
-    column : Column                  The column as given; its value of the adjusted input is the
+    column : Column                  The column as given; its value of the input solved for is the
                                      first guess [mol/s, -, W]
     model : PropertyModel
     request : design request         Fields in the module docstring
@@ -84,7 +82,7 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
 
     Raises
     ------
-    TargetNotReached   a target or limit cannot be met by the adjusted input, or the trays or
+    TargetNotReached   a target or limit cannot be met by the input solved for, or the trays or
                        the minimum solvent flow cannot be found for it
     ConvergenceError   a rigorous solve failed; names the step and the value tried
     """
@@ -92,19 +90,19 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
     limit = None if request.limit_place is None else TemperatureLimit(request.limit_place, request.limit_value)
     options = dict(settings=settings)
     step = {"solvent_flow": "solvent flow", "n_stages": "stage count"}.get(
-        request.adjust, f"cooler duty on stage {request.cooler_stage}"
+        request.solve_for, f"cooler duty on stage {request.cooler_stage}"
     )
     with _step(step):
-        if request.adjust == "cooler_duty":
+        if request.solve_for == "cooler_duty":
             result = cooler_duty_for_limit(column, model, limit, stage=request.cooler_stage, **options)
-        elif request.adjust == "n_stages":
+        elif request.solve_for == "n_stages":
             result = stages_for_target(column, model, target, limit=limit, **options)
         else:
             result = solvent_for_target(column, model, target, limit=limit, **options)
     solution = result.solution
     warnings = [w for w in result.warnings if w not in solution.warnings]
     # What the input was adjusted for is met within the loop's tolerance; the other is checked.
-    designed = limit if request.adjust == "cooler_duty" else target
+    designed = limit if request.solve_for == "cooler_duty" else target
     target_met = None if target is None else target is designed or target.shortfall(solution) <= 0.0
     limit_held = None if limit is None else limit is designed or limit.shortfall(solution) <= 0.0
     if target_met is False:
@@ -129,7 +127,7 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
         with _step(f"trays by {label}"):
             trays.append(tray_design(result.column, model, target, **efficiency, **options))
         warnings.extend(f"trays by {label}: {w}" for w in trays[-1].warnings)
-    stage = request.cooler_stage if request.adjust == "cooler_duty" else None
+    stage = request.cooler_stage if request.solve_for == "cooler_duty" else None
     return DesignOutcome(result, stage, target, limit, target_met, limit_held, minimum, tuple(trays), tuple(warnings))
 
 
@@ -147,15 +145,14 @@ def _fixed_in_place(column):
 
 @contextmanager
 def _step(name):
-    """Name the step in the errors of the design loops; unreachable targets become
-    ``TargetNotReached``."""
+    """Name the step in the errors of the design loops; a pinch becomes ``TargetNotReached``."""
     try:
         yield
     except ConvergenceError as failure:
         raise type(failure)(
             f"{name}: {failure.reason}", iterations=failure.iterations, residual=failure.residual, stage=failure.stage
         ) from failure
-    except CaseError as failure:
-        if failure.where not in UNREACHABLE:
-            raise
+    except PinchError as failure:
         raise TargetNotReached(f"{name}: {failure.message}") from failure
+    except TargetNotReached as failure:
+        raise TargetNotReached(f"{name}: {failure}") from failure

@@ -27,7 +27,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError, TraywiseError
+from ..errors import InputError, TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
 from .variables import UNITS, with_value
 
@@ -128,11 +128,11 @@ def sweep(
     """
     values = np.asarray(values, dtype=float).reshape(-1)
     if variable not in UNITS:
-        raise CaseError("variable", f"'{variable}' cannot be swept; expected one of {', '.join(UNITS)}")
+        raise InputError("sweep_variable", f"'{variable}' cannot be swept; expected one of {', '.join(UNITS)}")
     if variable == "cooler_duty" and stage is None:
-        raise CaseError("stage", "a 'cooler_duty' sweep needs the stage of the cooler")
+        raise InputError("sweep_stage", "a 'cooler_duty' sweep needs the stage of the cooler")
     if processes < 1:
-        raise CaseError("processes", f"expected at least 1, found {processes!r}")
+        raise InputError("processes", f"expected at least 1, found {processes!r}")
     specs = [output_spec(name, model) for name in outputs]
     job = (column, model, variable, stage, tuple(specs), settings)
     total = values.size
@@ -182,20 +182,20 @@ def _end_with_parent(parent):
 
 def output_spec(name, model):
     """(name, unit, component index or None) for an output name, checked against the model;
-    CaseError('outputs', ...) listing the valid names otherwise."""
+    InputError('outputs', ...) listing the valid names otherwise."""
     kind, _, key = name.partition(":")
     if kind in _COMPONENT_OUTPUTS:
         try:
             index = model.component_index(key)
-        except CaseError:
-            raise CaseError(
+        except InputError:
+            raise InputError(
                 "outputs", f"'{name}' needs a component of the model after ':'; expected one of {', '.join(model.names)}"
             ) from None
         return (kind, _COMPONENT_OUTPUTS[kind][0], index)
     if kind in _COLUMN_OUTPUTS and not key:
         return (kind, _COLUMN_OUTPUTS[kind][0], None)
     known = [f"{k}:<component>" for k in _COMPONENT_OUTPUTS] + list(_COLUMN_OUTPUTS)
-    raise CaseError("outputs", f"output '{name}' unknown; expected one of {', '.join(known)}")
+    raise InputError("outputs", f"output '{name}' unknown; expected one of {', '.join(known)}")
 
 
 def _run(job, values, on_point=None):

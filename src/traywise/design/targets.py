@@ -18,7 +18,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 
 SOLUTE_QUANTITIES = ("outlet_mole_fraction", "outlet_ppmv", "fraction_absorbed")
 TEMPERATURE_PLACES = ("liquid_outlet", "column_maximum")
@@ -42,10 +42,10 @@ class SoluteTarget:
     def __post_init__(self):
         if self.quantity not in SOLUTE_QUANTITIES:
             expected = ", ".join(SOLUTE_QUANTITIES)
-            raise CaseError("target", f"quantity '{self.quantity}' unknown; expected one of {expected}")
+            raise InputError("target", f"quantity '{self.quantity}' unknown; expected one of {expected}")
         upper = 1e6 if self.quantity == "outlet_ppmv" else 1.0
         if not 0.0 < self.value < upper:
-            raise CaseError(
+            raise InputError(
                 "target", f"{self.quantity} must lie between 0 and {upper:g} (exclusive), found {self.value!r}"
             )
 
@@ -78,7 +78,7 @@ class SoluteTarget:
         i = self._index(names)
         gas = column.gas.component_flows
         if gas[i] <= 0.0:
-            raise CaseError("target", f"the gas feed carries no {self.key}, so there is nothing to absorb")
+            raise InputError("target", f"the gas feed carries no {self.key}, so there is nothing to absorb")
         if self.quantity == "fraction_absorbed":
             return self._shortfall(0.0)
         mole_fraction = gas[i] / gas.sum()
@@ -102,7 +102,7 @@ class SoluteTarget:
         lowered = [n.lower() for n in names]
         if key in lowered:
             return lowered.index(key)
-        raise CaseError("target", f"the key solute '{self.key}' is not among the components {', '.join(names)}")
+        raise InputError("target", f"the key solute '{self.key}' is not among the components {', '.join(names)}")
 
 
 def _log_ratio(reached, required):
@@ -124,9 +124,9 @@ class TemperatureLimit:
 
     def __post_init__(self):
         if self.place not in TEMPERATURE_PLACES:
-            raise CaseError("limit", f"place '{self.place}' unknown; expected one of {', '.join(TEMPERATURE_PLACES)}")
+            raise InputError("limit", f"place '{self.place}' unknown; expected one of {', '.join(TEMPERATURE_PLACES)}")
         if not (np.isfinite(self.value) and self.value > 0.0):
-            raise CaseError("limit", f"expected a temperature > 0 [K], found {self.value!r}")
+            raise InputError("limit", f"expected a temperature > 0 [K], found {self.value!r}")
 
     unit = "K"
 

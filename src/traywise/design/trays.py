@@ -16,9 +16,9 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from ..column import actual_trays as whole_trays
-from ..errors import CaseError
+from ..errors import InputError, TargetNotReached
 from ..mesh.newton import SolverSettings
-from .adjust import MAX_STAGES, stages_for_target
+from .solve_for import MAX_STAGES, stages_for_target
 from .efficiency import (
     OCONNELL_FIT_PEAK,
     WATER_VISCOSITY_RANGE,
@@ -69,7 +69,7 @@ def actual_trays(theoretical_stages, overall_efficiency):
     See ``traywise.column.actual_trays``; here the efficiency must be given.
     """
     if not 0.0 < overall_efficiency <= 1.0:
-        raise CaseError("overall_efficiency", f"expected 0 < E_o <= 1, found {overall_efficiency!r}")
+        raise InputError("overall_efficiency", f"expected 0 < E_o <= 1, found {overall_efficiency!r}")
     return whole_trays(theoretical_stages, overall_efficiency)
 
 
@@ -106,10 +106,10 @@ def tray_design(
     TrayDesign
     """
     if overall_efficiency is not None and murphree is not None:
-        raise CaseError("efficiency", "give an overall efficiency or a Murphree efficiency, not both")
+        raise InputError("efficiency", "give an overall efficiency or a Murphree efficiency, not both")
     for name, value in (("overall_efficiency", overall_efficiency), ("murphree", murphree)):
         if value is not None and not 0.0 < value <= 1.0:
-            raise CaseError(name, f"expected a value in (0, 1], found {value!r}")
+            raise InputError(name, f"expected a value in (0, 1], found {value!r}")
     target = target.for_model(model)
     options = dict(max_stages=max_stages, settings=settings)
     theoretical = stages_for_target(replace(column, murphree=None), model, target, **options)
@@ -127,7 +127,7 @@ def tray_design(
         murphree = float(murphree_from_overall(overall, lam))
     trays = actual_trays(theoretical.fractional_stages, overall)
     if trays > max_stages:
-        raise CaseError("max_stages", f"{trays} trays by the overall efficiency exceed max_stages = {max_stages}")
+        raise TargetNotReached(f"{trays} trays by the overall efficiency exceed max_stages = {max_stages}")
     start = with_stages(replace(theoretical.column, murphree=murphree), trays)  # route 1 as the first guess
     rigorous = stages_for_target(start, model, target, **options)
     if rigorous.value != trays:

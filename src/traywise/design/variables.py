@@ -14,7 +14,7 @@ from dataclasses import replace
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 
 UNITS = {
     "solvent_flow": "mol/s",
@@ -29,9 +29,9 @@ UNITS = {
 def with_solvent_flow(column, flow):
     """The column with its solvent feed scaled to a total of ``flow`` [mol/s] (> 0)."""
     if not (np.isfinite(flow) and flow > 0.0):
-        raise CaseError("solvent_flow", f"expected a flow > 0 [mol/s], found {flow!r}")
+        raise InputError("solvent_flow", f"expected a flow > 0 [mol/s], found {flow!r}")
     if column.solvent.flow <= 0.0:
-        raise CaseError("solvent", "the solvent feed is empty, so it cannot be scaled; give it a flow first")
+        raise InputError("solvent", "the solvent feed is empty, so it cannot be scaled; give it a flow first")
     flows = column.solvent.component_flows * (flow / column.solvent.flow)
     return replace(column, solvent=replace(column.solvent, component_flows=flows))
 
@@ -42,21 +42,21 @@ def with_stages(column, n_stages):
     Per-stage arrays are carried over only where that has one meaning: a uniform Murphree
     efficiency or isothermal temperature stays uniform; coolers, extra feeds and side draws keep
     their stage numbers (counted from the top) and must still fit. Anything else raises
-    ``CaseError`` rather than guessing.
+    ``InputError`` rather than guessing.
     """
     n = int(n_stages)
     if n != n_stages or n < 1:
-        raise CaseError("n_stages", f"expected a whole number of stages >= 1, found {n_stages!r}")
+        raise InputError("n_stages", f"expected a whole number of stages >= 1, found {n_stages!r}")
     old = column.n_stages
     heat = np.zeros(n)
     keep = min(n, old)
     heat[:keep] = column.heat_removed[:keep]
     if np.any(column.heat_removed[keep:] != 0.0):
         first = keep + int(np.flatnonzero(column.heat_removed[keep:])[0]) + 1
-        raise CaseError("n_stages", f"a cooler sits on stage {first}, below the bottom of a {n}-stage column")
+        raise InputError("n_stages", f"a cooler sits on stage {first}, below the bottom of a {n}-stage column")
     for item in (*column.extra_feeds, *column.side_draws):
         if item.stage > n:
-            raise CaseError("n_stages", f"a feed or side draw on stage {item.stage} does not fit a {n}-stage column")
+            raise InputError("n_stages", f"a feed or side draw on stage {item.stage} does not fit a {n}-stage column")
     temperature = None if column.temperature is None else _uniform(column.temperature, "isothermal temperature")
     return replace(
         column,
@@ -71,7 +71,7 @@ def with_stages(column, n_stages):
 def with_cooler_duty(column, duty, *, stage):
     """The column with ``duty`` [W] removed from ``stage`` (1-based); other stages unchanged."""
     if not 1 <= stage <= column.n_stages:
-        raise CaseError("stage", f"expected a stage from 1 to {column.n_stages}, found {stage!r}")
+        raise InputError("stage", f"expected a stage from 1 to {column.n_stages}, found {stage!r}")
     heat = np.array(column.heat_removed, dtype=float)
     heat[stage - 1] = duty
     return replace(column, heat_removed=heat)
@@ -96,7 +96,7 @@ def with_value(column, variable, value, *, stage=None):
     """Dispatch on the variable name (see module docstring); ``stage`` for 'cooler_duty'."""
     if variable == "cooler_duty":
         if stage is None:
-            raise CaseError("stage", "'cooler_duty' needs the stage the cooler sits on")
+            raise InputError("sweep_stage", "'cooler_duty' needs the stage the cooler sits on")
         return with_cooler_duty(column, value, stage=stage)
     setters = {
         "solvent_flow": with_solvent_flow,
@@ -106,14 +106,14 @@ def with_value(column, variable, value, *, stage=None):
         "top_pressure": with_top_pressure,
     }
     if variable not in setters:
-        raise CaseError("variable", f"'{variable}' cannot be varied; expected one of {', '.join(UNITS)}")
+        raise InputError("sweep_variable", f"'{variable}' cannot be varied; expected one of {', '.join(UNITS)}")
     return setters[variable](column, value)
 
 
 def _uniform(values, what):
     values = np.asarray(values, dtype=float)
     if np.any(values != values[0]):
-        raise CaseError(
+        raise InputError(
             "n_stages", f"the {what} differs from stage to stage, so a column of another size is not defined"
         )
     return float(values[0])
@@ -121,5 +121,5 @@ def _uniform(values, what):
 
 def _positive(value, name):
     if not (np.isfinite(value) and value > 0.0):
-        raise CaseError(name, f"expected a finite value > 0, found {value!r}")
+        raise InputError(name, f"expected a finite value > 0, found {value!r}")
     return float(value)

@@ -30,7 +30,7 @@ import numpy as np
 
 from .equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium, mole_ratio_equilibrium
 from ..column import actual_trays
-from ..errors import CaseError
+from ..errors import InputError
 from .stepping import StageStepping, minimum_liquid_to_gas_ratio, outlet_for_stages, step_stages
 
 
@@ -124,7 +124,7 @@ def inert_basis_design(
 
     Raises
     ------
-    CaseError   for inconsistent input, and 'pinch: ...' when the target cannot be reached.
+    InputError   for inconsistent input; PinchError when the target cannot be reached.
 
     References
     ----------
@@ -133,16 +133,16 @@ def inert_basis_design(
     efficiency).
     """
     if (target_fraction_absorbed is None) == (n_stages is None):
-        raise CaseError("target", "give exactly one of target_fraction_absorbed and n_stages")
+        raise InputError("target", "give exactly one of target_fraction_absorbed and n_stages")
     if overall_efficiency is not None and not 0.0 < overall_efficiency <= 1.0:
-        raise CaseError("overall_efficiency", f"expected 0 < E <= 1, found {overall_efficiency!r}")
+        raise InputError("overall_efficiency", f"expected 0 < E <= 1, found {overall_efficiency!r}")
     i = model.component_index(key)
     gas, solvent = _flows(gas_flows, "gas_flows", model), _flows(solvent_flows, "solvent_flows", model)
     inert_gas, inert_solvent = gas.sum() - gas[i], solvent.sum() - solvent[i]
     if gas[i] <= 0.0 or inert_gas <= 0.0:
-        raise CaseError("gas_flows", f"expected some {key} and some inert carrier, found {gas_flows!r}")
+        raise InputError("gas_flows", f"expected some {key} and some inert carrier, found {gas_flows!r}")
     if inert_solvent <= 0.0:
-        raise CaseError("solvent_flows", f"expected some solvent besides {key}, found {solvent_flows!r}")
+        raise InputError("solvent_flows", f"expected some solvent besides {key}, found {solvent_flows!r}")
     if equilibrium is None:
         equilibrium = mole_ratio_equilibrium(
             model, key, temperature=temperature, pressure=pressure, solvent_mole_fractions=solvent
@@ -151,7 +151,7 @@ def inert_basis_design(
     ratio, gas_in, liquid_in = inert_solvent / inert_gas, gas[i] / inert_gas, solvent[i] / inert_solvent
     if n_stages is None:
         if not 0.0 < target_fraction_absorbed < 1.0:
-            raise CaseError("target_fraction_absorbed", f"expected 0 < f < 1, found {target_fraction_absorbed!r}")
+            raise InputError("target_fraction_absorbed", f"expected 0 < f < 1, found {target_fraction_absorbed!r}")
         gas_out = gas_in * (1.0 - target_fraction_absorbed)
     else:
         gas_out = outlet_for_stages(equilibrium, ratio, gas_in, liquid_in, float(n_stages), start)
@@ -185,6 +185,6 @@ def inert_basis_design(
 def _flows(flows, name, model):
     array = np.asarray(flows, dtype=float)
     if array.shape != (model.n_components,) or not np.all(np.isfinite(array) & (array >= 0.0)):
-        raise CaseError(name, f"expected flows >= 0 [mol/s] of {', '.join(model.names)}, found {flows!r}")
+        raise InputError(name, f"expected flows >= 0 [mol/s] of {', '.join(model.names)}, found {flows!r}")
     return array
 

@@ -15,7 +15,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 
 
 @dataclass(frozen=True)
@@ -122,7 +122,7 @@ def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fr
     i = model.component_index(key)
     k_value = float(model.evaluate([temperature], [pressure]).k[0, i])
     if not (np.isfinite(k_value) and k_value > 0.0):
-        raise CaseError(
+        raise InputError(
             key,
             f"K = {k_value:g} at {temperature:g} K and {pressure:g} Pa (equilibrium model "
             f"'{model.equilibrium[i]}'); the key solute needs a finite K > 0, e.g. model 'henry'",
@@ -132,10 +132,10 @@ def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fr
     given = model.reference_liquid if solvent_mole_fractions is None else solvent_mole_fractions
     solvent = np.array(given, dtype=float).reshape(-1)
     if solvent.shape != (model.n_components,) or not np.all(np.isfinite(solvent) & (solvent >= 0.0)):
-        raise CaseError("solvent_mole_fractions", f"expected {model.n_components} fractions >= 0, found {given!r}")
+        raise InputError("solvent_mole_fractions", f"expected {model.n_components} fractions >= 0, found {given!r}")
     solvent[i] = 0.0
     if solvent.sum() <= 0.0:
-        raise CaseError("solvent_mole_fractions", f"the solvent must hold something besides {key}")
+        raise InputError("solvent_mole_fractions", f"the solvent must hold something besides {key}")
     solvent /= solvent.sum()
     dilute = model.evaluate([temperature], [pressure], solvent[None, :]).k[0, i]
     return MixtureEquilibrium(model, i, solvent, float(temperature), float(pressure), float(dilute))

@@ -27,7 +27,7 @@ R. E. Treybal, Mass-Transfer Operations, 3rd ed., McGraw-Hill (1980), ch. 5 and 
 import numpy as np
 from scipy.optimize import brentq
 
-from ..errors import CaseError
+from ..errors import InputError
 
 _LARGEST_LN_A = 700.0  # ln A searched up to here (A about 1e304), the float range
 
@@ -83,7 +83,7 @@ def kremser_stages(absorption_factor, fraction_absorbed):
 
     Raises
     ------
-    CaseError   when phi >= A (A < 1) or phi >= 1: no number of stages reaches it, because the
+    InputError   when phi >= A (A < 1) or phi >= 1: no number of stages reaches it, because the
     operating line pinches the equilibrium line at the bottom (or top) of the column.
 
     References
@@ -97,7 +97,7 @@ def kremser_stages(absorption_factor, fraction_absorbed):
     unreachable = phi >= np.minimum(a, 1.0)
     if np.any(unreachable):
         i = np.flatnonzero(unreachable.ravel())[0]
-        raise CaseError(
+        raise InputError(
             "fraction_absorbed",
             f"{phi.ravel()[i]:.6g} cannot be reached with absorption factor {a.ravel()[i]:.6g}: even infinitely "
             f"many stages absorb at most min(A, 1) = {min(a.ravel()[i], 1.0):.6g} (a pinch makes it impossible); "
@@ -193,7 +193,7 @@ def _absorption_factor(n, phi):
     high = max(1.0, low + 1.0)
     while residual(high) < 0.0:
         if high > _LARGEST_LN_A:
-            raise CaseError(
+            raise InputError(
                 "fraction_absorbed",
                 f"{phi!r} in {n:g} stages needs an absorption factor beyond 1e304; use more stages or a lower target",
             )
@@ -206,7 +206,7 @@ def _require(condition, name, expected, values):
     condition = np.asarray(condition)
     if not np.all(condition):
         found = np.broadcast_to(np.asarray(values, dtype=float), condition.shape)[~condition].flat[0]
-        raise CaseError(name, f"expected {expected}, found {found:.6g}")
+        raise InputError(name, f"expected {expected}, found {found:.6g}")
 
 
 def _plain(value):

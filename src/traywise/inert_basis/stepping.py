@@ -15,7 +15,7 @@ from dataclasses import dataclass
 import numpy as np
 from scipy.optimize import brentq, minimize_scalar
 
-from ..errors import CaseError, ConvergenceError, PinchError
+from ..errors import ConvergenceError, InputError, PinchError
 
 
 MAX_STAGES = 1000  # a staircase still short of its terminal after this many stages is taken as pinched
@@ -102,7 +102,7 @@ def step_stages(
 
     Raises
     ------
-    CaseError   'pinch: ...' when the operating line touches or crosses the equilibrium curve
+    PinchError   when the operating line touches or crosses the equilibrium curve
     between the terminals (no number of stages reaches them), or the input is not a column.
 
     References
@@ -111,7 +111,7 @@ def step_stages(
     Treybal, Mass-Transfer Operations, 3rd ed. 1980, ch. 8.
     """
     if start not in ("top", "bottom"):
-        raise CaseError("start", f"expected 'top' or 'bottom', found {start!r}")
+        raise InputError("start", f"expected 'top' or 'bottom', found {start!r}")
     ratio, gas_in, gas_out, liquid_in = _check_terminals(
         equilibrium, liquid_to_gas_ratio, gas_ratio_in, gas_ratio_out, liquid_ratio_in
     )
@@ -196,7 +196,7 @@ def minimum_liquid_to_gas_ratio(equilibrium, *, gas_ratio_in, gas_ratio_out, liq
 def outlet_for_stages(equilibrium, ratio, gas_in, liquid_in, n_stages, start):
     """Y_out for which the staircase has exactly n_stages; Y_out = Y*(X_in) + (Y_in - Y*(X_in)) e**u."""
     if not (math.isfinite(n_stages) and n_stages > 0.0):
-        raise CaseError("n_stages", f"expected a finite number of stages > 0, found {n_stages!r}")
+        raise InputError("n_stages", f"expected a finite number of stages > 0, found {n_stages!r}")
     floor = _curve(equilibrium, liquid_in)
     if gas_in <= floor:
         raise PinchError(
@@ -234,14 +234,14 @@ def outlet_for_stages(equilibrium, ratio, gas_in, liquid_in, n_stages, start):
 
 def _check_terminals(equilibrium, ratio, gas_in, gas_out, liquid_in):
     if not callable(equilibrium):
-        raise CaseError("equilibrium", f"expected a callable Y*(X), found {equilibrium!r}")
+        raise InputError("equilibrium", f"expected a callable Y*(X), found {equilibrium!r}")
     ratio, gas_in, gas_out, liquid_in = (float(v) for v in (ratio, gas_in, gas_out, liquid_in))
     if not (math.isfinite(ratio) and ratio > 0.0):
-        raise CaseError("liquid_to_gas_ratio", f"expected a finite L'/V' > 0, found {ratio!r}")
+        raise InputError("liquid_to_gas_ratio", f"expected a finite L'/V' > 0, found {ratio!r}")
     if not (math.isfinite(gas_in) and 0.0 <= gas_out < gas_in):
-        raise CaseError("gas_ratio_out", f"expected 0 <= Y_out < Y_in, found Y_out = {gas_out!r}, Y_in = {gas_in!r}")
+        raise InputError("gas_ratio_out", f"expected 0 <= Y_out < Y_in, found Y_out = {gas_out!r}, Y_in = {gas_in!r}")
     if not (math.isfinite(liquid_in) and liquid_in >= 0.0):
-        raise CaseError("liquid_ratio_in", f"expected a finite X_in >= 0, found {liquid_in!r}")
+        raise InputError("liquid_ratio_in", f"expected a finite X_in >= 0, found {liquid_in!r}")
     return ratio, gas_in, gas_out, liquid_in
 
 
@@ -249,11 +249,11 @@ def _curve(equilibrium, liquid_ratio):
     """Y*(X) as float or array, refusing NaN and negative values."""
     values = np.asarray(equilibrium(liquid_ratio), dtype=float)
     if values.shape != np.shape(liquid_ratio):
-        raise CaseError("equilibrium", f"Y*(X) must return one value per X; got shape {values.shape} for {np.shape(liquid_ratio)}")
+        raise InputError("equilibrium", f"Y*(X) must return one value per X; got shape {values.shape} for {np.shape(liquid_ratio)}")
     bad = ~(values >= 0.0)
     if np.any(bad):
         x = np.asarray(liquid_ratio)[bad].flat[0]
-        raise CaseError("equilibrium", f"Y*(X) = {values[bad].flat[0]:.6g} at X = {x:.6g}; expected a number >= 0")
+        raise InputError("equilibrium", f"Y*(X) = {values[bad].flat[0]:.6g} at X = {x:.6g}; expected a number >= 0")
     return float(values) if values.ndim == 0 else values
 
 
@@ -272,7 +272,7 @@ def _pinch(equilibrium, ratio, gas_in, gas_out, liquid_in, liquid_out):
         falling = np.diff(curve) < 0.0
     if np.any(falling):
         i = int(np.flatnonzero(falling)[0])
-        raise CaseError("equilibrium", f"Y*(X) falls between X = {x[i]:.6g} and {x[i + 1]:.6g}; it must increase")
+        raise InputError("equilibrium", f"Y*(X) falls between X = {x[i]:.6g} and {x[i + 1]:.6g}; it must increase")
     margin = gas_out + ratio * (x - liquid_in) - curve
     i = int(np.argmin(margin))
     if margin[0] <= 0.0:
@@ -340,7 +340,7 @@ def _liquid_in_equilibrium(equilibrium, gas_ratio, low, high=None):
         high = low + 1.0
         while residual(high) < 0.0:
             if high - low > 1e300:
-                raise CaseError("equilibrium", f"Y*(X) never reaches Y = {gas_ratio:.6g}; the curve must rise above Y_in")
+                raise InputError("equilibrium", f"Y*(X) never reaches Y = {gas_ratio:.6g}; the curve must rise above Y_in")
             high = low + 2.0 * (high - low)
     elif residual(high) <= 0.0:
         return high

@@ -21,7 +21,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 
 
 @dataclass(frozen=True)
@@ -193,15 +193,15 @@ class Nrtl:
         for label, value in (("a", a), ("b", b), ("alpha", alpha)):
             array = np.asarray(value, dtype=float)
             if array.shape != (m, m) or not np.all(np.isfinite(array)):
-                raise CaseError(
+                raise InputError(
                     f"nrtl.{label}", f"expected a finite {m} x {m} matrix for {', '.join(self.names)}, found {value!r}"
                 )
             arrays.append(array)
         self._a, self._b, self._alpha = arrays
         if np.any(np.diag(self._a) != 0.0) or np.any(np.diag(self._b) != 0.0):
-            raise CaseError("nrtl", "tau_ii must be zero: give a_ii = b_ii = 0")
+            raise InputError("nrtl", "tau_ii must be zero: give a_ii = b_ii = 0")
         if not np.allclose(self._alpha, self._alpha.T):
-            raise CaseError("nrtl.alpha", "alpha_ij must equal alpha_ji")
+            raise InputError("nrtl.alpha", "alpha_ij must equal alpha_ji")
 
     def evaluate(self, x, t, composition_derivative=False, infinite_dilution_in=None):
         """Activity coefficients, see the module docstring for the arguments."""

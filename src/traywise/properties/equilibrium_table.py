@@ -34,7 +34,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 from .constants import GAS_CONSTANT
 
 TABLE_BASES = ("mole_fraction", "mole_ratio", "mass_ratio")
@@ -70,24 +70,24 @@ class EquilibriumTable:
     def __post_init__(self):
         t = np.asarray(self.temperatures, dtype=float).reshape(-1)
         if t.size == 0 or not np.all(np.isfinite(t) & (t > 0.0)) or np.any(np.diff(t) <= 0.0):
-            raise CaseError("table.temperatures", f"expected increasing temperatures > 0 [K], found {self.temperatures!r}")
+            raise InputError("table.temperatures", f"expected increasing temperatures > 0 [K], found {self.temperatures!r}")
         if self.basis not in TABLE_BASES:
-            raise CaseError("table.basis", f"'{self.basis}' unknown; use one of {TABLE_BASES}")
+            raise InputError("table.basis", f"'{self.basis}' unknown; use one of {TABLE_BASES}")
         if len(self.loadings) != t.size or len(self.partial_pressures) != t.size:
-            raise CaseError("table", f"expected one list of loadings and one of pressures per temperature ({t.size})")
+            raise InputError("table", f"expected one list of loadings and one of pressures per temperature ({t.size})")
         for j, (loading, pressure) in enumerate(zip(self.loadings, self.partial_pressures)):
             x, p = np.asarray(loading, dtype=float), np.asarray(pressure, dtype=float)
             where = f"table at {t[j]:g} K"
             if x.ndim != 1 or x.size == 0 or x.shape != p.shape:
-                raise CaseError(where, "expected as many loadings as partial pressures, at least one")
+                raise InputError(where, "expected as many loadings as partial pressures, at least one")
             if not np.all(np.isfinite(x) & (x > 0.0)) or np.any(np.diff(x) <= 0.0):
-                raise CaseError(where, f"loadings must be > 0 and increasing, found {list(x)}")
+                raise InputError(where, f"loadings must be > 0 and increasing, found {list(x)}")
             if self.basis == "mole_fraction" and x[-1] >= 1.0:
-                raise CaseError(where, f"a mole fraction must be below 1, found {x[-1]:g}")
+                raise InputError(where, f"a mole fraction must be below 1, found {x[-1]:g}")
             if not np.all(np.isfinite(p) & (p > 0.0)) or np.any(np.diff(p) <= 0.0):
-                raise CaseError(where, f"partial pressures must be > 0 and rise with loading, found {list(p)}")
+                raise InputError(where, f"partial pressures must be > 0 and rise with loading, found {list(p)}")
         if (self.enthalpy_of_solution is None) == (t.size == 1):
-            raise CaseError(
+            raise InputError(
                 "table.enthalpy_of_solution",
                 "give an enthalpy of solution with a single table, and none with tables at several temperatures "
                 "(it then follows from them)",

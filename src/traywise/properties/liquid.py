@@ -42,7 +42,7 @@ the liquid's amounts is followed exactly.
 
 import numpy as np
 
-from ..errors import CaseError, ComponentDataError
+from ..errors import ComponentDataError, InputError
 from .correlations import dippr101, ln_henry_terms
 
 
@@ -63,7 +63,7 @@ class AnchoredLiquid:
         self.members = np.asarray(members, dtype=int)
         self.anchored = np.array([position for position, _, _ in anchored], dtype=int)
         if self.anchored.size and water is None:
-            raise CaseError(
+            raise InputError(
                 "activity", "anchoring a solute to its Henry's constant in water needs water in the liquid model"
             )
         self.water = water
@@ -75,7 +75,7 @@ class AnchoredLiquid:
         pressures = [pressure for _, _, pressure in anchored]
         other = [p.form for p in pressures if p.form != "dippr101"]
         if other:
-            raise CaseError("activity", f"an anchored solute needs a 'dippr101' vapour pressure, not '{other[0]}'")
+            raise InputError("activity", f"an anchored solute needs a 'dippr101' vapour pressure, not '{other[0]}'")
         self._dippr = np.array([p.coefficients for p in pressures]).reshape(-1, 5).T  # (5, a)
 
     def _ln_henry(self, t):

@@ -33,7 +33,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 from .component import MODEL_KINDS
 from .binary import kij_matrix
 from .constants import GAS_CONSTANT, T_REFERENCE
@@ -147,7 +147,7 @@ class PropertyModel:
         self.components = tuple(components)
         kinds = tuple(equilibrium) if equilibrium is not None else tuple(c.equilibrium for c in components)
         if len(kinds) != len(self.components):
-            raise ValueError("one equilibrium model per component")
+            raise InputError("equilibrium", f"expected one equilibrium model per component ({len(self.components)}), found {len(kinds)}")
         for component, kind in zip(self.components, kinds):
             self._check(component, kind)
         self.equilibrium = kinds
@@ -188,7 +188,7 @@ class PropertyModel:
     @staticmethod
     def _check(component, kind):
         if kind not in MODEL_KINDS:
-            raise CaseError(component.name, f"equilibrium model '{kind}' unknown; use one of {MODEL_KINDS}")
+            raise InputError(component.name, f"equilibrium model '{kind}' unknown; use one of {MODEL_KINDS}")
         needs = {
             "henry": ("henry_in_water",),
             "raoult": ("vapour_pressure", "liquid_cp", "heat_of_vaporisation"),
@@ -200,18 +200,18 @@ class PropertyModel:
         }[kind]
         missing = [key for key in needs if getattr(component, key) is None]
         if missing:
-            raise CaseError(component.name, f"equilibrium model '{kind}' needs {', '.join(missing)}, which it lacks")
+            raise InputError(component.name, f"equilibrium model '{kind}' needs {', '.join(missing)}, which it lacks")
 
     def component_index(self, key):
         """Position of the component named ``key`` (name, alias, formula or CAS number)."""
         for i, component in enumerate(self.components):
             if component.matches(key):
                 return i
-        raise CaseError("key", f"'{key}' is not a component of the model; expected one of {', '.join(self.names)}")
+        raise InputError("key_solute", f"'{key}' is not a component of the model; expected one of {', '.join(self.names)}")
 
     def _position(self, name, where):
         if name not in self.names:
-            raise CaseError(where, f"'{name}' is not a component of the model; expected one of {', '.join(self.names)}")
+            raise InputError(where, f"'{name}' is not a component of the model; expected one of {', '.join(self.names)}")
         return self.names.index(name)
 
     def _anchored_liquid(self, activity):
@@ -219,16 +219,16 @@ class PropertyModel:
         if activity is None:
             if self.index["activity"].size:
                 name = self.names[self.index["activity"][0]]
-                raise CaseError(name, "equilibrium model 'activity' needs an activity model of the liquid (activity=...)")
+                raise InputError(name, "equilibrium model 'activity' needs an activity model of the liquid (activity=...)")
             return None
         members = [self._position(name, "activity") for name in activity.names]
         for i in members:
             if self.equilibrium[i] not in ("raoult", "activity", "nonvolatile"):
-                raise CaseError(self.names[i], f"a member of the liquid activity model must be 'raoult', 'activity' or "
+                raise InputError(self.names[i], f"a member of the liquid activity model must be 'raoult', 'activity' or "
                                                f"'nonvolatile', not '{self.equilibrium[i]}'")
         outside = [self.names[i] for i in self.index["activity"] if i not in members]
         if outside:
-            raise CaseError("activity", f"{', '.join(outside)} use model 'activity' but are not in the activity model")
+            raise InputError("activity", f"{', '.join(outside)} use model 'activity' but are not in the activity model")
         water = [p for p, i in enumerate(members) if self.components[i].is_water]
         anchored = [(p, self.components[i].henry_in_water, self.components[i].vapour_pressure)
                     for p, i in enumerate(members) if self.equilibrium[i] == "activity"]
@@ -243,17 +243,17 @@ class PropertyModel:
         for i in self.index["table"]:
             table = self.tables.get(self.names[i])
             if table is None:
-                raise CaseError(self.names[i], "equilibrium model 'table' needs an equilibrium table (tables={name: ...})")
+                raise InputError(self.names[i], "equilibrium model 'table' needs an equilibrium table (tables={name: ...})")
             s = self._position(table.solvent, f"{self.names[i]}: table.solvent")
             if self.equilibrium[s] not in ("raoult", "nonvolatile"):
-                raise CaseError(
+                raise InputError(
                     f"{self.names[i]}: table.solvent", f"'{table.solvent}' must be a 'raoult' or 'nonvolatile' liquid"
                 )
             prepared[i] = (s, table.prepared(self.molar_mass[i], self.molar_mass[s]))
         table_names = {self.names[i] for i in self.index["table"]}
         extra = [name for name in self.tables if name not in table_names]
         if extra:
-            raise CaseError("tables", f"tables given for {', '.join(extra)}, whose equilibrium model is not 'table'")
+            raise InputError("tables", f"tables given for {', '.join(extra)}, whose equilibrium model is not 'table'")
         return prepared
 
     def _liquid_enthalpy_offsets(self, liquid):

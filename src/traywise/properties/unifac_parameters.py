@@ -23,7 +23,7 @@ assignments'), unless the caller gives the groups.
 
 import numpy as np
 
-from ..errors import CaseError
+from ..errors import InputError
 from .activity import Unifac
 
 UNIFAC_VERSIONS = ("original", "dortmund")
@@ -57,7 +57,7 @@ def _assignment(component, key):
 
     found = UNIFAC_group_assignment_DDBST(component.cas, key) if component.cas else {}
     if not found:
-        raise CaseError(
+        raise InputError(
             component.name,
             f"no published UNIFAC group assignment for CAS '{component.cas or '(none)'}'; give its subgroups "
             "(subgroup number: count, e.g. acetone is {1: 1, 18: 1})",
@@ -81,20 +81,20 @@ def unifac(components, *, version="dortmund", groups=None):
     Unifac
     """
     if version not in UNIFAC_VERSIONS:
-        raise CaseError("unifac.version", f"'{version}' unknown; use one of {UNIFAC_VERSIONS}")
+        raise InputError("unifac.version", f"'{version}' unknown; use one of {UNIFAC_VERSIONS}")
     subgroups, interaction_table, key, exponent = _tables(version)
     groups = dict(groups or {})
     given = [c.name for c in components if c.name in groups]
     counts = [groups.pop(c.name) if c.name in groups else _assignment(c, key) for c in components]
     if groups:
-        raise CaseError("unifac.groups", f"{', '.join(groups)} not among {', '.join(c.name for c in components)}")
+        raise InputError("unifac.groups", f"{', '.join(groups)} not among {', '.join(c.name for c in components)}")
     source = _SOURCES[version]
     if given:
         source += f"; subgroups of {', '.join(given)} given by the user, not a published assignment"
     used = sorted({k for found in counts for k in found})
     unknown = [k for k in used if k not in subgroups]
     if unknown:
-        raise CaseError("unifac.groups", f"subgroups {unknown} are not in the {version} UNIFAC table")
+        raise InputError("unifac.groups", f"subgroups {unknown} are not in the {version} UNIFAC table")
     nu = np.array([[found.get(k, 0) for k in used] for found in counts], dtype=float)
     main = [subgroups[k].main_group_id for k in used]
     interaction = np.zeros((3, len(used), len(used)))
@@ -104,7 +104,7 @@ def unifac(components, *, version="dortmund", groups=None):
                 continue
             value = interaction_table.get(main_m, {}).get(main_n)
             if value is None:
-                raise CaseError(
+                raise InputError(
                     "unifac",
                     f"no published {version} UNIFAC parameter between main groups {subgroups[used[m]].main_group} "
                     f"and {subgroups[used[n]].main_group}; use NRTL with fitted parameters instead",

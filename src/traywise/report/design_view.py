@@ -1,5 +1,5 @@
 """The design of a run (``traywise.design.plan.DesignOutcome``) for results.json, the console
-summary and report.md: the target and what was reached, the adjusted input, the minimum solvent
+summary and report.md: the target and what was reached, the input solved for, the minimum solvent
 flow with the pinch, and the trays by each efficiency route.
 
 ``design_json`` builds the "design" section of results.json (keys in ``results.RESULTS_KEYS``);
@@ -10,7 +10,7 @@ from .results import plain
 from .tables import SECONDS_PER_HOUR, celsius, concentration, kilowatt, kmol_per_hour, number, percent
 
 SOURCE_WORDS = {"given": "given", "O'Connell's absorber correlation": "O'Connell"}  # short labels for tables
-ADJUSTED_WORDS = {"solvent_flow": "solvent_flow", "n_stages": "stages", "cooler_duty": "cooler_duty"}  # design -> case
+SOLVE_FOR_WORDS = {"solvent_flow": "solvent_flow", "n_stages": "stages", "cooler_duty": "cooler_duty"}  # design -> case
 
 
 def design_json(outcome):
@@ -19,7 +19,7 @@ def design_json(outcome):
     column = result.column
     molar_mass = solution.molar_mass
     return plain({
-        "adjusted": ADJUSTED_WORDS[result.variable],
+        "solve_for": SOLVE_FOR_WORDS[result.variable],
         "solvent_flow_mol_per_s": column.solvent.flow,
         "solvent_mass_flow_kg_per_s": column.solvent.component_flows @ molar_mass,
         "stages": column.n_stages,
@@ -32,14 +32,14 @@ def design_json(outcome):
             "required": outcome.target.value,
             "reached": outcome.target.reached(solution),
             "met": outcome.target_met,
-            "adjusted_for": result.variable != "cooler_duty",
+            "solved_for": result.variable != "cooler_duty",
         },
         "temperature_limit": None if outcome.limit is None else {
             "place": outcome.limit.place,
             "limit_K": outcome.limit.value,
             "reached_K": outcome.limit.reached(solution),
             "held": outcome.limit_held,
-            "adjusted_for": result.variable == "cooler_duty",
+            "solved_for": result.variable == "cooler_duty",
         },
         "solves": result.solves,
         "iterations": result.iterations,
@@ -90,9 +90,9 @@ def _trays_json(trays):
 
 # -- text, from the results record ------------------------------------------------------------
 def design_lines(results):
-    """Sentences on the design: what was adjusted, the target, the limit, the minimum solvent."""
+    """Sentences on the design: what was solved for, the target, the limit, the minimum solvent."""
     design = results["design"]
-    lines = [_adjusted_line(design)]
+    lines = [_solved_line(design)]
     if design["target"] is not None:
         lines.append(_target_line(design["target"]))
     if design["temperature_limit"] is not None:
@@ -117,19 +117,19 @@ def trays_table(results):
     return headers, rows
 
 
-def _adjusted_line(design):
+def _solved_line(design):
     work = f"{design['solves']} rigorous solves, {design['iterations']} Newton iterations"
-    if design["adjusted"] == "solvent_flow":
+    if design["solve_for"] == "solvent_flow":
         return (f"Design: solvent flow adjusted to {_kg_per_hour(design['solvent_mass_flow_kg_per_s'])} kg/h "
                 f"({kmol_per_hour(design['solvent_flow_mol_per_s'])} kmol/h); {work}.")
-    if design["adjusted"] == "stages":
+    if design["solve_for"] == "stages":
         return (f"Design: {design['stages']} stages, the fewest that meet the target ({design['fractional_stages']:.2f} "
                 f"by interpolation); {work}.")
     return f"Design: cooler on stage {design['cooler_stage']} removing {kilowatt(design['cooler_duty_W'])} kW; {work}."
 
 
 def _target_line(target):
-    state = "solved for" if target["adjusted_for"] else ("met" if target["met"] else "NOT MET")
+    state = "solved for" if target["solved_for"] else ("met" if target["met"] else "NOT MET")
     key, quantity = target["key_component"], target["quantity"]
     if quantity == "fraction_absorbed":
         return (f"Target: at least {percent(target['required'])} % of the {key} absorbed; reached "
@@ -139,7 +139,7 @@ def _target_line(target):
 
 
 def _limit_line(limit):
-    state = "solved for" if limit["adjusted_for"] else ("held" if limit["held"] else "BROKEN")
+    state = "solved for" if limit["solved_for"] else ("held" if limit["held"] else "BROKEN")
     where = "liquid outlet" if limit["place"] == "liquid_outlet" else "hottest stage"
     return (f"Temperature limit: {where} at most {celsius(limit['limit_K'])} degC; reached "
             f"{celsius(limit['reached_K'])} degC ({state}).")

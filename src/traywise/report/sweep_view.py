@@ -122,7 +122,7 @@ def display_table(record):
     """(headers, rows) of the points in display units, 'failed' where a point did not converge."""
     sweep = record["sweep"]
     units = [sweep["unit"], *sweep["output_units"]]
-    names = [sweep["vary"], *sweep["outputs"]]
+    names = [sweep["input"], *sweep["outputs"]]
     headers = [f"{name} [{display_unit(name, unit)[0]}]" for name, unit in zip(names, units)]
     rows = []
     for point in record["points"]:
@@ -140,7 +140,7 @@ def sweep_text(record, folder=None):
     spacing = "logarithmic" if sweep["log"] else "linear"
     parts = [
         f"traywise {record['software']['version']}: {record['case']['title']} ({record['case']['file']})",
-        f"Sweep of {sweep['vary']} over {sweep['points']} points ({spacing} spacing); "
+        f"Sweep of {sweep['input']} over {sweep['points']} points ({spacing} spacing); "
         f"{sweep['points'] - record['failed_points']} converged.",
         text_table(*display_table(record)),
         "Warnings:\n" + "\n".join(f"  - {w}" for w in record["warnings"]) if record["warnings"] else "Warnings: none.",
@@ -155,17 +155,17 @@ def sweep_markdown(record):
     """The text of sweep.md."""
     sweep = record["sweep"]
     blocks = [
-        f"# {record['case']['title']}: sweep of {sweep['vary']}",
+        f"# {record['case']['title']}: sweep of {sweep['input']}",
         f"Case file `{record['case']['file']}`, swept by traywise {record['software']['version']}: {sweep['points']} "
         f"points, {'logarithmic' if sweep['log'] else 'linear'} spacing; the column is solved at each point as the case "
-        f"writes it, with only {sweep['vary']} changed. Machine-readable: `{CSV_FILE}` and `{RECORD_FILE}` (SI units).",
+        f"writes it, with only {sweep['input']} changed. Machine-readable: `{CSV_FILE}` and `{RECORD_FILE}` (SI units).",
     ]
     if record["case"]["notes"]:
         blocks += ["## Notes", record["case"]["notes"]]
     blocks += ["## Safety cautions", "\n".join(f"- {c}" for c in record["safety_cautions"]),
                "## Points", markdown_table(*display_table(record))]
     if FIGURE_FILE in record["files"]:
-        blocks += ["## Figure", f"![Outputs against {sweep['vary']}]({FIGURE_FILE})"]
+        blocks += ["## Figure", f"![Outputs against {sweep['input']}]({FIGURE_FILE})"]
     blocks += ["## Warnings", "\n".join(f"- {w}" for w in record["warnings"]) or "None."]
     return "\n\n".join(blocks) + "\n"
 

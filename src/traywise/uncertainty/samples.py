@@ -62,20 +62,20 @@ def sample_job(column, model, inputs, *, key, design=None, start=None, settings=
     outputs = []
     if design is not None:
         design = replace(design, minimum_solvent=False, oconnell_efficiency=False)
-        adjusted = _adjusted(design)
+        solved_for = _solved_for(design)
         outputs += {"n_stages": [("stages", "-"), ("fractional_stages", "-")],
-                    "solvent_flow": [("solvent_mass_flow", "kg/s")]}.get(adjusted, [("cooler_duty", "W")])
-    if design is None or _adjusted(design) != "solvent_flow":  # a solvent design fixes the outlet at its target
+                    "solvent_flow": [("solvent_mass_flow", "kg/s")]}.get(solved_for, [("cooler_duty", "W")])
+    if design is None or _solved_for(design) != "solvent_flow":  # a solvent design fixes the outlet at its target
         outputs.append((f"outlet_ppmv:{model.names[key]}", "ppmv"))
     outputs.append(("max_temperature", "K"))
-    if np.any(column.heat_removed != 0.0) or (design is not None and _adjusted(design) == "cooler_duty"):
+    if np.any(column.heat_removed != 0.0) or (design is not None and _solved_for(design) == "cooler_duty"):
         outputs.append(("heat_removed", "W"))
     return SampleJob(column, model, tuple(inputs), key, design, start, tuple(outputs), settings)
 
 
-def _adjusted(design):
-    """The input a design request adjusts."""
-    return getattr(design, "solve_for", None) or design.adjust
+def _solved_for(design):
+    """The input a design request solves for."""
+    return design.solve_for
 
 
 def solve_sample(job, factors):

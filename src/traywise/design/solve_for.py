@@ -13,7 +13,7 @@ from dataclasses import dataclass
 
 from scipy.optimize import brentq
 
-from ..errors import CaseError, ConvergenceError, PinchError, TargetNotReached, UnphysicalSolution
+from ..errors import ConvergenceError, PinchError, TargetNotReached, UnphysicalSolution
 from ..mesh.newton import SolverSettings, solve_column
 from .variables import UNITS, with_cooler_duty, with_solvent_flow, with_stages
 
@@ -108,7 +108,7 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
 
     Raises
     ------
-    CaseError          the target is not met even with 2**14 times the solvent (or is met with
+    TargetNotReached   the target is not met even with 2**14 times the solvent (or is met with
                        1/2**14 of it: nothing to design)
     ConvergenceError   a rigorous solve failed; names the solvent flow
     """
@@ -122,16 +122,14 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
 
     low, high = _bracket(shortfall, math.log(2.0), math.log(MAX_SOLVENT_FACTOR))
     if low is None:
-        raise CaseError(
-            "target",
+        raise TargetNotReached(
             f"{target.describe()} is not reached even with {MAX_SOLVENT_FACTOR:g} times the solvent flow "
             f"({base * MAX_SOLVENT_FACTOR:.6g} mol/s) on {column.n_stages} stages; "
             f"at that flow the column gives {target.describe(target.reached(solve.last))}. "
             "Add stages or relax the target",
         )
     if high is None:
-        raise CaseError(
-            "target",
+        raise TargetNotReached(
             f"{target.describe()} is met even with 1/{MAX_SOLVENT_FACTOR:g} of the solvent flow; "
             "there is nothing to design: tighten the target or check the feeds",
         )
@@ -222,7 +220,7 @@ def cooler_duty_for_limit(column, model, limit, *, stage, settings=SolverSetting
 
     Raises
     ------
-    CaseError          the limit cannot be held by a cooler on that stage alone
+    TargetNotReached   the limit cannot be held by a cooler on that stage alone
     ConvergenceError   a rigorous solve failed; names the duty
     """
     solve = _Solver(model, settings)
@@ -245,8 +243,7 @@ def cooler_duty_for_limit(column, model, limit, *, stage, settings=SolverSetting
                 break
             low, high = high, 2.0 * high
         else:
-            raise CaseError(
-                "limit",
+            raise TargetNotReached(
                 f"{limit.describe()} cannot be held by a cooler on stage {stage} alone (tried up to {high:.6g} W, "
                 f"still {limit.describe(limit.reached(solve.last))}); cool another stage or the feeds",
             )
