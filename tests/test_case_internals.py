@@ -57,3 +57,29 @@ def test_rating_a_too_small_diameter_warns_of_flooding(tmp_path):
     result = CliRunner().invoke(main, ["run", str(case), "--out", str(tmp_path / "out"), "--no-plots"])
     assert result.exit_code == 0, result.output
     assert re.search(r"sizing: stage [0-9, .]+: above 100 % of flood", result.output)
+
+
+def test_tray_spacing_chosen():
+    assert with_internals('tray_type = "sieve"\ntray_spacing = "chosen"\n').internals.internals.tray_spacing is None
+
+
+def test_stage_pressures_from_the_sized_pressure_drop(tmp_path):
+    import json
+
+    case = tmp_path / "fed-back.toml"
+    case.write_text(BASE + '[internals]\ntray_type = "sieve"\npressure_drop_from_sizing = true\n', encoding="utf-8")
+    result = CliRunner().invoke(main, ["run", str(case), "--out", str(tmp_path / "out"), "--no-plots"])
+    assert result.exit_code == 0, result.output
+    record = json.loads((tmp_path / "out" / "results.json").read_text(encoding="utf-8"))
+    n_stages = record["column"]["theoretical_stages"]
+    per_stage = record["column"]["pressure_drop_Pa_per_stage"]
+    # the loop stops when the drop per stage changes by under 1 % between rounds
+    assert per_stage == pytest.approx(record["sizing"]["pressure_drop_Pa"] / n_stages, rel=0.01)
+    assert record["stages"]["pressure_Pa"][-1] - record["stages"]["pressure_Pa"][0] == pytest.approx(per_stage * (n_stages - 1))
+    assert per_stage > 500.0  # the case's own 0.5 kPa per stage was replaced
+
+
+def test_pressure_drop_from_sizing_is_refused_with_a_design():
+    text = (Path(__file__).resolve().parents[1] / "cases" / "ammonia-scrubber-design.toml").read_text(encoding="utf-8")
+    with pytest.raises(CaseError, match="internals.pressure_drop_from_sizing"):
+        parse_case(text + '\n[internals]\ntray_type = "sieve"\npressure_drop_from_sizing = true\n', "designed.toml")

@@ -50,3 +50,15 @@ def test_a_case_error_in_the_table_is_one_line(tmp_path):
     result = CliRunner().invoke(main, ["uncertainty", str(path), "--out", str(tmp_path / "o")])
     assert result.exit_code == 2
     assert "uncertainty.scope" in result.output and "Traceback" not in result.output
+
+
+def test_an_equilibrium_table_is_named_as_not_sampled(tmp_path):
+    case = REPOSITORY / "cases" / "sulfur-dioxide-plant-table.toml"
+    out = tmp_path / "so2"
+    result = CliRunner().invoke(main, ["uncertainty", str(case), "--out", str(out), "--samples", "4", "--processes", "1",
+                                       "--no-plots"])
+    assert result.exit_code == 0, result.output
+    record = json.loads((out / "uncertainty.json").read_text(encoding="utf-8"))
+    assert record["statement"].endswith("; the equilibrium table of sulfur dioxide is not sampled.")
+    assert not any(i["component"] == "sulfur dioxide" and i["quantity"] == "henry_constant" for i in record["inputs"])
+    assert "Not sampled: the equilibrium table of sulfur dioxide" in (out / "uncertainty.md").read_text(encoding="utf-8")

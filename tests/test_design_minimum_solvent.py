@@ -8,6 +8,7 @@ and L_min = m V f (Treybal, Mass-Transfer Operations, 3rd ed. 1980, ch. 8; Seade
 Roper, Separation Process Principles, 3rd ed. 2011, ch. 6).
 """
 
+import importlib
 from dataclasses import replace
 
 import numpy as np
@@ -123,3 +124,36 @@ def test_inert_basis_minimum_takes_k_in_the_solvent_fed():
     in_water = minimum_liquid_to_gas_ratio(mole_ratio_equilibrium(model, "acetone", temperature=t, pressure=p),
                                            gas_ratio_in=design.gas_ratio_in, gas_ratio_out=design.gas_ratio_out)
     assert abs(in_water / result.inert_basis_ratio - 1.0) > 0.05  # the methanol matters: the check can fail
+
+
+def test_the_minimum_is_never_above_a_design_flow_that_meets_the_target(dilute):
+    """A design that meets f = 0.6 with 3 solvent (A = 1.5) on 20 stages; searches on 2 and 4
+    stages need more solvent than that. The minimum reported is at most the design flow, with a
+    note saying why, and no warning that no number of stages meets the target."""
+    from traywise.design import solvent_for_target
+
+    target = SoluteTarget("test solute", "fraction_absorbed", 0.6)
+    design = solvent_for_target(dilute_column(20, 3.0, solute_fraction=Y_IN), dilute, target)
+    result = minimum_solvent(design.column, dilute, target, n_stages=2, max_stages=4, design_solution=design.solution)
+    assert result.solvent_flow == design.value and result.multiple == 1.0
+    assert any("at most the design flow" in w for w in result.warnings)
+    assert not any("no number of stages" in w for w in result.warnings)
+    without = minimum_solvent(design.column, dilute, target, n_stages=2, max_stages=4)
+    assert without.solvent_flow > design.value  # what the cap corrects
+
+
+def test_a_longer_column_that_needs_more_solvent_keeps_the_smaller_flow(dilute, monkeypatch):
+    """More stages never need more solvent: when the search on 2N stages ends higher than on N
+    (a heat-releasing column can settle in another steady state), the flow on N is kept."""
+    module = importlib.import_module("traywise.design.minimum_solvent")
+    target = SoluteTarget("test solute", "fraction_absorbed", 0.6)
+    real = module.solvent_for_target
+    flows = iter([1.30, 1.25, 1.28])  # mol/s found on 20, 40, 80 stages, as if the last were another state
+
+    def scripted(column, model, target, **options):
+        return replace(real(column, model, target, **options), value=next(flows))
+
+    monkeypatch.setattr(module, "solvent_for_target", scripted)
+    result = minimum_solvent(dilute_column(4, 3.0, solute_fraction=Y_IN), dilute, target, n_stages=20, max_stages=160)
+    assert result.n_stages == 40
+    assert any("another steady state" in w for w in result.warnings)

@@ -9,7 +9,7 @@ Treybal, Mass-Transfer Operations, 3rd ed. 1980, ch. 5).
 import numpy as np
 import pytest
 
-from support.columns import dilute_column, ideal_dilute_model
+from support.columns import dilute_column, ideal_dilute_model, library_model, water_column
 from support.design import scrubber_column, scrubber_model
 from traywise.design import (
     SoluteTarget,
@@ -144,3 +144,13 @@ def test_changing_the_stage_count_keeps_only_what_stays_defined(scrubber):
         with_stages(scrubber_column(3, 2.0, murphree=[1.0, 0.8, 0.8]), 4)
     with pytest.raises(InputError, match="whole number"):
         with_stages(column, 2.5)
+
+
+def test_a_solvent_search_that_runs_out_of_solutions_is_target_not_reached():
+    """99.9999 % of a 15 mol % ammonia gas on one stage: the search doubles the water to 640
+    mol/s (99.9 % absorbed) and finds no converged column beyond (the gas vanishes into the
+    liquid). That is a target out of reach, not a failed solve."""
+    model = library_model("water", "ammonia", "nitrogen", "oxygen")
+    column = water_column(model, 1, gas=np.array([0.0, 0.15, 0.85 * 0.79, 0.85 * 0.21]), solvent_flow=5.0)
+    with pytest.raises(TargetNotReached, match="is not reached: up to .* no converged solution was found beyond"):
+        solvent_for_target(column, model, SoluteTarget("ammonia", "fraction_absorbed", 0.999999))

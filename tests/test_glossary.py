@@ -10,8 +10,13 @@ from traywise.glossary import GLOSSARY
 from traywise.inert_basis.design import InertBasisDesign
 from traywise.mesh.solution import ColumnSolution, Convergence, HeatBreakdown
 from traywise.properties.model import StageProperties
+from traywise.sizing.column import ColumnSizing
+from traywise.sizing.packed import PackedHydraulics, PackedInternals
+from traywise.sizing.stage_loads import StageLoads
+from traywise.sizing.trays import TrayHydraulics, TrayInternals
 
-PUBLIC_RECORDS = (Column, Feed, SideDraw, ColumnSolution, Convergence, HeatBreakdown, StageProperties, InertBasisDesign)
+PUBLIC_RECORDS = (Column, Feed, SideDraw, ColumnSolution, Convergence, HeatBreakdown, StageProperties, InertBasisDesign,
+                  ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics)
 
 
 def _public_names(record):

@@ -16,7 +16,6 @@ from support.results import PNG_SIGNATURE, lookup, strict_json
 from traywise.errors import CaseError
 from traywise.mesh.newton import solve_column
 from traywise.report.cautions import SAFETY_CAUTIONS
-from traywise.report.comparison_view import isothermal_comparison
 from traywise.report.folder import write_results_folder
 from traywise.report.markdown import markdown_report
 from traywise.report.outputs import write_outputs
@@ -24,6 +23,7 @@ from traywise.column import actual_trays
 from traywise.report.results import RESULTS_KEYS
 from traywise.report.summary import summary_text
 from traywise.report.tables import concentration, percent, text_table
+from traywise.run import complete_run
 
 N_STAGES = 5
 
@@ -55,8 +55,9 @@ def solved():
 
 @pytest.fixture(scope="module")
 def comparison_record(solved):
+    """The run of the solved column: its comparison and the other side results added."""
     case, solution = solved
-    return isothermal_comparison(case, solution)
+    return complete_run(case, solution)
 
 
 @pytest.fixture(scope="module")
@@ -64,7 +65,7 @@ def written(solved, comparison_record, tmp_path_factory):
     """A results folder with figures, and the record returned."""
     case, solution = solved
     folder = tmp_path_factory.mktemp("outputs") / "scrubber-results"
-    record = write_outputs(folder, case, solution, comparison_record, plots=True)
+    record = write_outputs(folder, comparison_record, plots=True)
     return folder, record
 
 
@@ -152,7 +153,7 @@ def test_summary_levels(written):
 
 def test_without_plots_no_figure_is_listed_or_linked(solved, comparison_record, tmp_path):
     case, solution = solved
-    record = write_outputs(tmp_path / "bare", case, solution, comparison_record, plots=False)
+    record = write_outputs(tmp_path / "bare", comparison_record, plots=False)
     assert not list((tmp_path / "bare").glob("*.png"))
     assert not [name for name in record["files"] if name.endswith(".png")]
     assert "## Figures" not in markdown_report(record)
@@ -194,9 +195,9 @@ def test_a_failed_rewrite_keeps_the_older_complete_folder(written, tmp_path):
 def test_a_rewrite_replaces_the_older_folder_whole(solved, comparison_record, tmp_path):
     case, solution = solved
     target = tmp_path / "again"
-    write_outputs(target, case, solution, comparison_record, plots=True)
+    write_outputs(target, comparison_record, plots=True)
     assert list(target.glob("*.png"))
-    write_outputs(target, case, solution, comparison_record, plots=False)
+    write_outputs(target, comparison_record, plots=False)
     assert not list(target.glob("*.png"))  # stale figures of the older run are gone
 
 

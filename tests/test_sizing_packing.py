@@ -15,7 +15,7 @@ from traywise.sizing.packed import (
 )
 from traywise.sizing.packing_data import Packing, find_packing
 
-from sizing_cases import demo_stage_properties
+from support.sizing_cases import demo_stage_properties
 
 # The packing of Stichlmair, Bravo & Fair's worked example (Gas Sep. Purif. 3 (1989) 19):
 # a = 260 m2/m3, voidage 0.68, C1..C3 = 32, 7, 1, as reproduced in fluids' documentation.

@@ -7,7 +7,7 @@ from traywise.sizing.errors import SizingInputError
 from traywise.sizing.fair import fair_capacity_factor
 from traywise.sizing.trays import TrayInternals, design_diameter, rate_trays, weir_length
 
-from sizing_cases import demo_stage_properties
+from support.sizing_cases import demo_stage_properties
 
 
 @pytest.fixture
@@ -65,10 +65,21 @@ def test_rating_at_the_design_diameter_returns_the_design_fraction(tray_stage_pr
     rating = rate_trays(tray_stage_properties, internals, diameter)
     assert rating.fraction_of_flood.max() == pytest.approx(0.77, abs=1e-6)
     assert int(np.argmax(rating.fraction_of_flood)) + 1 == stage
-    assert np.all(rating.pressure_drop > 0.0)
+    assert np.all(rating.stage_pressure_drop > 0.0)
 
 
 @pytest.mark.parametrize("key, value", [("fraction_of_flood", 1.2), ("tray_spacing", 0.005), ("tray_type", "bubble cap")])
 def test_bad_tray_input_names_the_quantity(key, value):
     with pytest.raises(SizingInputError, match=key):
         TrayInternals(**{key: value})
+
+
+def test_tray_spacing_chosen_from_the_diameter(tray_stage_properties):
+    from traywise.sizing.trays import choose_tray_spacing
+
+    chosen = choose_tray_spacing(tray_stage_properties, TrayInternals(tray_spacing=None))
+    assert chosen.tray_spacing == 0.45  # the demo scrubber is well below 1.5 m across
+    bigger = choose_tray_spacing(tray_stage_properties.scaled(gas=20.0, liquid=20.0), TrayInternals(tray_spacing=None))
+    assert bigger.tray_spacing == 0.6
+    assert design_diameter(tray_stage_properties, TrayInternals(tray_spacing=None))[0] == pytest.approx(
+        design_diameter(tray_stage_properties, TrayInternals(tray_spacing=0.45))[0])

@@ -199,6 +199,7 @@ def test_unit_factors_leave_the_model_as_it_was():
     ('values."test solute".henry_constant = "150 %"', "expected a value in"),
     ('scope = "some"', "scope"),
     ('values."test solute".henry_correlation = 1', "expected a value in"),
+    ('values."test carrier".henry_constant = "10 %"', "has no Henry's constant at 298.15 K that this case uses"),
 ])
 def test_bad_uncertainty_tables_name_the_key(table, found):
     text = DILUTE.split("[uncertainty]")[0] + "[uncertainty]\n" + table + "\n"

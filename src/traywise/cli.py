@@ -23,9 +23,14 @@ Only click is imported at module level: the solver, the unit library and matplot
 imported inside the commands that need them, so ``traywise --help`` returns at once.
 """
 
+import os
 import sys
 
 import click
+
+# One BLAS thread unless the user says otherwise, set before numpy loads: the banded systems
+# here are small, and more threads only spin (1.3 x the CPU time at the same wall time).
+os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")
 
 EXIT_OUTPUT = 1
 EXIT_INPUT = 2
@@ -41,6 +46,8 @@ class _Command(click.Command):
         with warnings.catch_warnings(record=True) as caught:
             warnings.simplefilter("default")  # each distinct warning once
             result = self._invoke_translated(ctx)
+        from .run import library_warnings
+
         for text in library_warnings(caught):
             click.echo(f"traywise: warning: {text}", err=True)
         return result
@@ -68,18 +75,6 @@ class _Command(click.Command):
 class _Group(click.Group):
     command_class = _Command
     group_class = type  # subgroups are _Group too
-
-
-def library_warnings(caught):
-    """Warnings a library raised during a command (a numpy RuntimeWarning, say), each once, as
-    sentences of ours naming where they arose; the results they accompany passed traywise's checks."""
-    texts = []
-    for record in caught:
-        text = (f"a library reported '{' '.join(str(record.message).split())}' ({record.category.__name__} in "
-                f"{record.filename}, line {record.lineno}); traywise's own checks passed, so the results stand")
-        if text not in texts:
-            texts.append(text)
-    return texts
 
 
 def _fail(ctx, message, status):
@@ -129,55 +124,26 @@ def _load(ctx, case_file, quiet, verbose, *, target=None):
     if not Path(case_file).is_file():
         raise CaseError(case_file, "no such case file; give the path of a .toml case (write one with `traywise new FILE`)")
     if target is not None:
-        from .report.folder import check_replaceable
+        from .report.folder import check_replaceable, clear_stale_temporaries, followed
 
+        clear_stale_temporaries(followed(target))  # a killed run's older folder back first, then judged
         check_replaceable(target, protect=(case_file,))
     from .case import load_case
 
     return load_case(case_file)
 
 
-def _solve(ctx, case_file, quiet, verbose, *, target=None):
-    """Load and solve a case, designing it when it has a [design] table: (case, solution,
-    comparison record, design outcome or None)."""
+def _run(ctx, case_file, quiet, verbose, *, target=None, plots=False):
+    """Load and run a case (designed first when it has a [design] table): its CaseRun; the x-y
+    diagram's design only when ``plots`` are drawn."""
     from .errors import ConvergenceError
-    from .report.comparison_view import isothermal_comparison
+    from .run import RunSettings, run_case
 
     case = _load(ctx, case_file, quiet, verbose, target=target)
-    design = None
     try:
-        if case.design is not None:
-            from .design.plan import carry_out_design
-
-            design = carry_out_design(case.column, case.model, case.design, overall_efficiency=case.overall_efficiency)
-            solution = design.result.solution
-        else:
-            from .mesh.newton import solve_column
-
-            solution = solve_column(case.column, case.model)
+        return run_case(case, RunSettings(xy_diagram=plots and case.plots))
     except ConvergenceError as error:
         _fail(ctx, f"no converged solution: {error}", EXIT_CONVERGENCE)
-    try:
-        comparison = isothermal_comparison(case, solution)
-    except ConvergenceError as error:
-        _fail(ctx, f"the stage equations converged, but the isothermal inert-basis comparison did not: {error}", EXIT_CONVERGENCE)
-    return case, solution, comparison, design
-
-
-def _size(case, solution):
-    """The column sized from the solution when the case has an [internals] table, else None;
-    the sizing's input errors are reported against the case file's [internals] keys."""
-    if case.internals is None:
-        return None
-    from .errors import CaseError
-    from .sizing.column import size_column
-    from .sizing.errors import SizingInputError
-
-    try:
-        return size_column(solution, case.model.components, case.internals.internals, key_component=case.key_component,
-                           diameter=case.internals.diameter, overall_efficiency=case.overall_efficiency)
-    except SizingInputError as error:
-        raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
 
 
 def _echo_warnings(record):
@@ -198,13 +164,11 @@ def run(ctx, case_file, out_dir, as_json, no_plots, quiet, verbose):
     from pathlib import Path
 
     target = Path(out_dir) if out_dir else Path.cwd() / f"{Path(case_file).stem}-results"
-    case, solution, comparison, design = _solve(ctx, case_file, quiet, verbose, target=target)
+    case_run = _run(ctx, case_file, quiet, verbose, target=target, plots=not no_plots)
     from .report.outputs import results_json, write_outputs
     from .report.summary import summary_text
 
-    sizing = _size(case, solution)
-    record = write_outputs(target, case, solution, comparison, plots=case.plots and not no_plots, design=design,
-                           sizing=sizing)
+    record = write_outputs(target, case_run, plots=case_run.case.plots and not no_plots)
     if as_json:
         click.echo(results_json(record), nl=False)
     elif not quiet:
@@ -221,16 +185,13 @@ def run(ctx, case_file, out_dir, as_json, no_plots, quiet, verbose):
 def compare(ctx, case_file, as_json, quiet, verbose):
     """Solve CASE (designed first when it has a [design] table) and print the rigorous solution
     beside the isothermal inert-basis design."""
-    case, solution, comparison, design = _solve(ctx, case_file, quiet, verbose)
-    from .report.comparison_view import comparison_json, verdict_line
-    from .report.design_view import design_json
+    case_run = _run(ctx, case_file, quiet, verbose)
+    from .report.comparison_view import verdict_line
     from .report.outputs import results_json
     from .report.results import results_record
     from .report.summary import comparison_text, design_text, sources_text, warnings_text
 
-    record = results_record(case, solution, comparison_json(comparison), [],
-                            design=None if design is None else design_json(design),
-                            design_warnings=() if design is None else design.warnings)
+    record = results_record(case_run, [])
     if as_json:
         click.echo(results_json(record), nl=False)
         _echo_warnings(record)
@@ -243,7 +204,7 @@ def compare(ctx, case_file, as_json, quiet, verbose):
     from .report.tables import text_table
 
     parts = [f"{record['case']['title']} ({case_file})", key_line(record) + "\n" + temperature_line(record)]
-    if design is not None:
+    if case_run.design is not None:
         parts.append(design_text(record))
     parts.append(comparison_text(record))
     if verbose:
@@ -290,18 +251,15 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
     target = Path(out_dir) if out_dir else Path.cwd() / f"{Path(case_file).stem}-sweep"
     case = _load(ctx, case_file, quiet, False, target=target)
     from .case.sweep import sweep_request
-    from .design.sweep import sweep as run_sweep
     from .report.sweep_view import write_sweep, sweep_text
+    from .run import sweep_case
 
     request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
                             cooler_stage=cooler_stage)
     total = len(request.values)
     with _progress(quiet or total < LONG_SWEEP or not sys.stderr.isatty(), total) as bar:
-        table = run_sweep(
-            case.column, case.model, variable=request.design_variable, values=request.values, outputs=request.outputs,
-            stage=request.cooler_stage, processes=processes,
-            progress=None if bar is None else (lambda done, _total: bar.update(done - bar.pos)),
-        )
+        table = sweep_case(case, request, processes=processes,
+                           progress=None if bar is None else (lambda done, _total: bar.update(done - bar.pos)))
     record = write_sweep(target, case, request, table, plots=case.plots and not no_plots)
     if record["failed_points"] == total:
         _fail(ctx, f"no point of the sweep converged (see {target / 'sweep.csv'}); the first failed with: "

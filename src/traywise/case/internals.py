@@ -10,7 +10,7 @@ from dataclasses import dataclass
 TRAY_KEYS = ("tray_type", "tray_spacing", "weir_height", "hole_area_fraction", "hole_diameter", "foaming_factor",
              "orifice_coefficient", "aeration_factor", "downcomer_area_fraction")
 PACKING_KEYS = ("packing", "hetp", "pressure_drop_method", "max_bed_height", "redistributor_space")
-COMMON_KEYS = ("fraction_of_flood", "diameter", "top_space", "bottom_space")
+COMMON_KEYS = ("fraction_of_flood", "diameter", "top_space", "bottom_space", "pressure_drop_from_sizing")
 INTERNALS_KEYS = TRAY_KEYS + PACKING_KEYS + COMMON_KEYS
 LENGTHS = ("tray_spacing", "weir_height", "hole_diameter", "hetp", "max_bed_height", "redistributor_space",
            "top_space", "bottom_space", "diameter")
@@ -21,11 +21,13 @@ FRACTIONS = ("hole_area_fraction", "foaming_factor", "orifice_coefficient", "aer
 @dataclass(frozen=True)
 class InternalsInput:
     """internals : TrayInternals or PackedInternals; diameter : given diameter [m] (rating) or None;
-    echo : the table in SI, units in the key names (for results.json)."""
+    echo : the table in SI, units in the key names (for results.json); pressure_drop_from_sizing :
+    stage pressures from the sized pressure drop (outer loop)."""
 
     internals: object
     diameter: float | None
     echo: dict
+    pressure_drop_from_sizing: bool = False
 
 
 def read_internals(top):
@@ -49,13 +51,21 @@ def read_internals(top):
     for key in INTERNALS_KEYS:
         if key not in section:
             continue
-        if key in LENGTHS:
+        if key == "pressure_drop_from_sizing":
+            values[key] = section.boolean(key)
+        elif key == "tray_spacing" and section.raw(key) == "chosen":
+            values[key] = None
+        elif key in LENGTHS:
             values[key] = section.quantity(key, "length")
         elif key in FRACTIONS:
             values[key] = section.fraction(key, open_high=False, high=10.0)
         else:
             values[key] = section.text(key)
     diameter = values.pop("diameter", None)
+    from_sizing = values.pop("pressure_drop_from_sizing", False)
+    if from_sizing and "design" in top:
+        section.fail("pressure_drop_from_sizing", "cannot be used with a [design] table (the design loop keeps the "
+                     "stage pressures of [column]); give column.pressure_drop_per_stage instead")
     if diameter is not None and not 0.05 <= diameter <= 20.0:
         section.fail("diameter", f"found {diameter:g} m; expected 0.05-20 m")
     try:
@@ -64,4 +74,5 @@ def read_internals(top):
         section.fail(error.quantity if error.quantity in INTERNALS_KEYS else None, error.message)
     echo = {(f"{key}_m" if key in LENGTHS else key): value for key, value in values.items()}
     echo["diameter_m"] = diameter
-    return InternalsInput(internals, diameter, echo)
+    echo["pressure_drop_from_sizing"] = from_sizing
+    return InternalsInput(internals, diameter, echo, from_sizing)

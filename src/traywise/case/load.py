@@ -4,9 +4,10 @@ Order of reading: components (and their model) -> solvent -> column -> streams a
 key component and solutes -> component flows -> checks of the feeds -> Column.
 """
 
+import copy
 import re
 import tomllib
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from pathlib import Path
 
 import numpy as np
@@ -70,6 +71,7 @@ class Case:
     internals : InternalsInput or None   The ``[internals]`` table (case/internals.py): what to size
     source : str                    The case's name in error messages (usually the file name)
     uncertainty : UncertaintyRequest or None   The ``[uncertainty]`` table (case/uncertainty.py)
+    data : dict or None             The tables as read, for ``with_changes`` (case/changes.py)
     """
 
     path: Path | None
@@ -91,6 +93,14 @@ class Case:
     source: str = "<case>"
     internals: object = None
     uncertainty: object = None
+    data: dict | None = None
+
+    def with_changes(self, **changes):
+        """This case with inputs changed, values as written in a case file ("2000 kg/h"); see
+        ``traywise.case.changes.with_changes``."""
+        from .changes import with_changes
+
+        return with_changes(self, **changes)
 
 
 def load_case(path):
@@ -112,9 +122,14 @@ def parse_case(text, where_from="<case>", *, path=None):
     except tomllib.TOMLDecodeError as exc:
         line = re.search(r"at line (\d+)", str(exc))
         raise CaseError(where(where_from, f"line {line.group(1)}" if line else ""), f"not valid TOML: {exc}") from None
+    return build_case(data, where_from, path=path)
+
+
+def build_case(data, where_from="<case>", *, path=None):
+    """Check the tables of a case (a dict laid out as the case file, values as written there)."""
     case = _CaseBuilder(Section(data, "", where_from, TOP_KEYS), path).build()
     check_sweep_table(case)
-    return case
+    return replace(case, data=copy.deepcopy(data))
 
 
 class _CaseBuilder:

@@ -2,7 +2,7 @@
 (cases/README.md). Turned into an ``UncertaintyRequest`` (traywise.uncertainty.inputs)."""
 
 from ..errors import CaseError
-from ..uncertainty.inputs import QUANTITIES, SCOPES, UncertaintyRequest
+from ..uncertainty.inputs import ATTRIBUTES, QUANTITIES, SCOPES, UncertaintyRequest
 from .reader import where
 
 DEFAULT_SAMPLES = 200
@@ -31,16 +31,26 @@ def read_uncertainty(top, components):
         i = components.find(written)
         if i is None:
             values.fail(written, f"'{written}' is not a component of this case; its components are {components.names()}")
-        name = components.model.names[i]
-        for quantity in QUANTITIES:
-            if quantity in section:
-                relative[(name, quantity)] = section.fraction(quantity, low=0.0, high=1.0, open_low=False)
+        name, kind = components.model.names[i], components.model.equilibrium[i]
+        for quantity, (what, kinds, _, _) in QUANTITIES.items():
+            if quantity not in section:
+                continue
+            if kind not in kinds or getattr(components.model.components[i], ATTRIBUTES[quantity]) is None:
+                section.fail(quantity, f"{name} (equilibrium '{kind}') has no {what} that this case uses; the "
+                             f"quantities it uses: {', '.join(_used(components.model, i)) or 'none'}")
+            relative[(name, quantity)] = section.fraction(quantity, low=0.0, high=1.0, open_low=False)
         if CORRELATION_KEY in section:
             correlations[name] = section.fraction(CORRELATION_KEY, low=-1.0, high=1.0, open_high=True)
     if scope == "listed" and not relative:
         table.fail("scope", "is 'listed' but [uncertainty.values] lists no uncertainty; list some, e.g. "
                    "values.ammonia.henry_constant = \"10 %\", or use scope = \"all\"")
     return UncertaintyRequest(samples=samples, seed=seed, scope=scope, relative=relative, correlations=correlations)
+
+
+def _used(model, i):
+    """The quantities of component i that the model uses."""
+    kind, component = model.equilibrium[i], model.components[i]
+    return [q for q, (_, kinds, _, _) in QUANTITIES.items() if kind in kinds and getattr(component, ATTRIBUTES[q]) is not None]
 
 
 def uncertainty_settings(case, *, samples=None, seed=None):

@@ -133,6 +133,7 @@ def minimum_solvent(
     max_stages=320,
     tolerance=0.005,
     inert_basis_temperature=None,
+    design_solution=None,
     settings=SolverSettings(),
 ):
     """Minimum solvent flow that meets a solute target with infinitely many stages.
@@ -149,6 +150,10 @@ def minimum_solvent(
                                     converged [-]
     inert_basis_temperature : float, optional   Isothermal temperature of the inert-basis
                                     check [K]; defaults to the solvent feed temperature
+    design_solution : ColumnSolution, optional   The converged ``column`` when it meets the
+                                    target (a design): the minimum is never reported above
+                                    its flow (searches on longer columns can settle in another
+                                    steady state of a heat-releasing column; a warning says so)
     settings : SolverSettings
 
     Returns
@@ -165,16 +170,32 @@ def minimum_solvent(
     target = target.for_model(model)
     n, previous, start = n_stages, None, column
     solves = iterations = 0
+    notes = []
     while True:
         found = solvent_for_target(_longer(start, n), model, target, settings=settings)
         solves, iterations = solves + found.solves, iterations + found.iterations
+        if previous is not None and found.value > previous.value:
+            # more stages never need more solvent: the longer column settled in another state
+            notes.append(
+                f"on {n} stages the search ended at {found.value:.6g} mol/s, above the {previous.value:.6g} mol/s "
+                f"found on {n // 2}: the longer column settled in another steady state; the smaller flow is kept"
+            )
+            found, n, resolution = previous, n // 2, 0.0
+            break
         resolution = np.inf if previous is None else (previous.value - found.value) / found.value
         if abs(resolution) <= tolerance or 2 * n > max_stages:
             break
         previous, start, n = found, found.column, 2 * n
+    design = column.solvent.flow
+    if design_solution is not None and design < found.value:
+        notes.append(
+            f"the search on {n} stages ended at {found.value:.6g} mol/s, above the design flow, which meets the "
+            f"target on {column.n_stages} stages: the minimum is at most the design flow, which is kept"
+        )
+        found = replace(found, value=design, column=column, solution=design_solution)
+        n, resolution = column.n_stages, 0.0
     pinch = find_pinch(found.solution, target.key)
     ratio, ib_flow, t_ib, p_ib = _inert_basis_minimum(column, model, target, inert_basis_temperature)
-    design = column.solvent.flow
     multiple = design / found.value
     return MinimumSolvent(
         target=target,
@@ -192,7 +213,7 @@ def minimum_solvent(
         inert_basis_multiple=design / ib_flow,
         solves=solves,
         iterations=iterations,
-        warnings=tuple(_warnings(multiple, resolution, tolerance, n, pinch)),
+        warnings=tuple(notes) + tuple(_warnings(multiple, resolution, tolerance, n, pinch)),
     )
 
 

@@ -111,7 +111,10 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
     if request.minimum_solvent:
         n = max(MINIMUM_SOLVENT_STAGES, result.column.n_stages)  # never fewer stages than the design
         with _step("minimum solvent"):
-            minimum = minimum_solvent(result.column, model, target, n_stages=n, max_stages=8 * n, settings=settings)
+            minimum = minimum_solvent(
+                result.column, model, target, n_stages=n, max_stages=8 * n, settings=settings,
+                design_solution=solution if target_met else None,
+            )
         warnings.extend(minimum.warnings)
     trays, routes = [], []
     if target is not None and overall_efficiency is not None:

@@ -11,9 +11,9 @@ count is an integer and is bracketed and bisected instead.
 import math
 from dataclasses import dataclass
 
-from scipy.optimize import brentq
 
 from ..errors import ConvergenceError, PinchError, TargetNotReached, UnphysicalSolution
+from ..numerics import brent_root
 from ..mesh.newton import SolverSettings, solve_column
 from .variables import UNITS, with_cooler_duty, with_solvent_flow, with_stages
 
@@ -110,17 +110,36 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
     ------
     TargetNotReached   the target is not met even with 2**14 times the solvent (or is met with
                        1/2**14 of it: nothing to design)
+    TargetNotReached   the search for more solvent found no converged solution beyond a flow
+                       still short of the target
     ConvergenceError   a rigorous solve failed; names the solvent flow
     """
     target = target.for_model(model)
     solve = _Solver(model, settings)
     base = column.solvent.flow
 
+    short = {}  # converged flows that fall short of the target [mol/s] -> the solution
+
     def shortfall(u):
         flow = base * math.exp(u)
-        return target.shortfall(solve(with_solvent_flow(column, flow), f"solvent flow {flow:.6g} mol/s"))
+        solution = solve(with_solvent_flow(column, flow), f"solvent flow {flow:.6g} mol/s")
+        value = target.shortfall(solution)
+        if value > 0.0:
+            short[flow] = solution
+        return value
 
-    low, high = _bracket(shortfall, math.log(2.0), math.log(MAX_SOLVENT_FACTOR))
+    try:
+        low, high = _bracket(shortfall, math.log(2.0), math.log(MAX_SOLVENT_FACTOR))
+    except ConvergenceError as failure:
+        if not short:
+            raise
+        # still short at every flow that converged, and no solution at a larger one
+        reached = max(short)
+        raise TargetNotReached(
+            f"{target.describe()} is not reached: up to {reached:.6g} mol/s of solvent on {column.n_stages} stages "
+            f"the column gives {target.describe(target.reached(short[reached]))}, and no converged solution was "
+            f"found beyond ({failure.reason}); add stages or relax the target"
+        ) from failure
     if low is None:
         raise TargetNotReached(
             f"{target.describe()} is not reached even with {MAX_SOLVENT_FACTOR:g} times the solvent flow "
@@ -133,7 +152,7 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
             f"{target.describe()} is met even with 1/{MAX_SOLVENT_FACTOR:g} of the solvent flow; "
             "there is nothing to design: tighten the target or check the feeds",
         )
-    u = low if low == high else brentq(shortfall, low, high, xtol=X_TOLERANCE, rtol=X_TOLERANCE, maxiter=200)
+    u = low if low == high else brent_root(shortfall, low, high, xtol=X_TOLERANCE, rtol=X_TOLERANCE, maxiter=200)
     flow = base * math.exp(u)
     designed = with_solvent_flow(column, flow)
     solution = solve(designed, f"solvent flow {flow:.6g} mol/s")
@@ -247,7 +266,7 @@ def cooler_duty_for_limit(column, model, limit, *, stage, settings=SolverSetting
                 f"{limit.describe()} cannot be held by a cooler on stage {stage} alone (tried up to {high:.6g} W, "
                 f"still {limit.describe(limit.reached(solve.last))}); cool another stage or the feeds",
             )
-        duty = brentq(shortfall, low, high, xtol=X_TOLERANCE * high, rtol=X_TOLERANCE, maxiter=200)
+        duty = brent_root(shortfall, low, high, xtol=X_TOLERANCE * high, rtol=X_TOLERANCE, maxiter=200)
     designed = with_cooler_duty(column, duty, stage=stage)
     solution = solve(designed, f"{duty:.6g} W on stage {stage}")
     return _result(limit, "cooler_duty", duty, designed, solution, solve)

@@ -25,9 +25,9 @@ R. E. Treybal, Mass-Transfer Operations, 3rd ed., McGraw-Hill (1980), ch. 5 and 
 """
 
 import numpy as np
-from scipy.optimize import brentq
 
 from ..errors import InputError
+from ..numerics import brent_root
 
 _LARGEST_LN_A = 700.0  # ln A searched up to here (A about 1e304), the float range
 
@@ -198,7 +198,7 @@ def _absorption_factor(n, phi):
                 f"{phi!r} in {n:g} stages needs an absorption factor beyond 1e304; use more stages or a lower target",
             )
         high *= 2.0
-    return float(np.exp(brentq(residual, low, high, xtol=1e-15, rtol=4.0 * np.finfo(float).eps, maxiter=200)))
+    return float(np.exp(brent_root(residual, low, high, xtol=1e-15, rtol=4.0 * np.finfo(float).eps, maxiter=200)))
 
 
 def _require(condition, name, expected, values):

@@ -13,9 +13,9 @@ import math
 from dataclasses import dataclass
 
 import numpy as np
-from scipy.optimize import brentq, minimize_scalar
 
 from ..errors import ConvergenceError, InputError, PinchError
+from ..numerics import brent_minimum, brent_root
 
 
 MAX_STAGES = 1000  # a staircase still short of its terminal after this many stages is taken as pinched
@@ -187,10 +187,8 @@ def minimum_liquid_to_gas_ratio(equilibrium, *, gas_ratio_in, gas_ratio_out, liq
     if best == slopes.size - 1:
         return float(slopes[-1])
     low = x[best - 1] if best > 0 else 0.5 * (liquid_in + x[0])
-    refined = minimize_scalar(
-        lambda xi: -slope(xi), bounds=(low, x[best + 1]), method="bounded", options={"xatol": 1e-12 * (x_end - liquid_in)}
-    )
-    return float(max(slopes[best], -refined.fun))
+    _, least = brent_minimum(lambda xi: -slope(xi), low, x[best + 1], xatol=1e-12 * (x_end - liquid_in))
+    return float(max(slopes[best], -least))
 
 
 def outlet_for_stages(equilibrium, ratio, gas_in, liquid_in, n_stages, start):
@@ -228,7 +226,7 @@ def outlet_for_stages(equilibrium, ratio, gas_in, liquid_in, n_stages, start):
             many, count = middle, middle_count
     else:
         raise ConvergenceError("no outlet found that steps off the requested stages", iterations=iteration + 1, residual=math.inf)
-    u = brentq(lambda s: stages(s) - n_stages, many, few, xtol=1e-13, rtol=_RTOL)
+    u = brent_root(lambda s: stages(s) - n_stages, many, few, xtol=1e-13, rtol=_RTOL)
     return floor + (gas_in - floor) * math.exp(u)
 
 
@@ -335,7 +333,7 @@ def _liquid_in_equilibrium(equilibrium, gas_ratio, low, high=None):
         guess = estimate(gas_ratio)
         near = (max(low, guess * (1.0 - ESTIMATE_BRACKET)), guess * (1.0 + ESTIMATE_BRACKET))
         if (high is None or near[1] <= high) and near[0] < near[1] and residual(near[0]) < 0.0 < residual(near[1]):
-            return brentq(residual, *near, xtol=1e-300, rtol=_RTOL, maxiter=500)
+            return brent_root(residual, *near, xtol=1e-300, rtol=_RTOL, maxiter=500)
     if high is None:
         high = low + 1.0
         while residual(high) < 0.0:
@@ -344,4 +342,4 @@ def _liquid_in_equilibrium(equilibrium, gas_ratio, low, high=None):
             high = low + 2.0 * (high - low)
     elif residual(high) <= 0.0:
         return high
-    return brentq(residual, low, high, xtol=1e-300, rtol=_RTOL, maxiter=500)
+    return brent_root(residual, low, high, xtol=1e-300, rtol=_RTOL, maxiter=500)

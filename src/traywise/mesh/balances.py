@@ -13,12 +13,14 @@ RANGE_MARGIN = 50.0  # K; a stage farther than this outside a correlation's vali
 METHOD = "Naphtali-Sandholm Newton with pseudo-transient continuation (Kelley & Keyes 1998)"
 
 
-def build_solution(equations, x, iterations, norm, tolerance):
-    """The ``ColumnSolution`` of a converged iterate, after the physical and closure checks."""
+def build_solution(equations, x, iterations, norm, tolerance, props=None):
+    """The ``ColumnSolution`` of a converged iterate x, after the physical and closure checks;
+    ``props``: the stage properties at x when known (from its residual)."""
     column, model = equations.column, equations.model
     v, l, t = (a.copy() for a in equations.split(x))
-    y = v / np.maximum(v.sum(axis=1, keepdims=True), 1e-300)  # a vapour-free stage is refused below
-    props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True), y)
+    if props is None:
+        y = v / np.maximum(v.sum(axis=1, keepdims=True), 1e-300)  # a vapour-free stage is refused below
+        props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True), y)
     _check_physical(equations, v, l, props, iterations, norm)
     _check_state(model, l, t, iterations, norm)
     heat_removed = equations.heat_removed(v, l, props)
@@ -107,16 +109,18 @@ def _heat_breakdown(equations, v, l, t, heat_removed):
     gas_out, liquid_out, _, _ = _outlets(equations, v, l)
     p_top, p_bottom = equations.pressure[[0]], equations.pressure[[-1]]
 
-    def h(phase, temperature, pressure, flows=None):
-        fractions = None if flows is None else flows[None, :] / flows.sum()
-        if phase == "vapour":
-            return model.evaluate(np.array([temperature]), pressure, vapour_mole_fractions=fractions).h_vapour[0]
-        return model.evaluate(np.array([temperature]), pressure, fractions).h_liquid[0]
-
-    h_v_gas_in = h("vapour", column.gas.temperature, p_bottom, gas_in)
-    h_v_top = h("vapour", t[0], p_top, v[0])
-    h_l_solvent_in = h("liquid", column.solvent.temperature, p_top, solvent_in)
-    h_l_bottom = h("liquid", t[-1], p_bottom, l[-1])
+    # one evaluation for four states: gas in, gas out (top), solvent in, liquid out (bottom);
+    # the vapour enthalpies take the vapour compositions (a real gas), not the liquid's given with them
+    x_solvent = solvent_in / solvent_in.sum()
+    y_in, y_top = gas_in / gas_in.sum(), v[0] / v[0].sum()
+    props = model.evaluate(
+        np.array([column.gas.temperature, t[0], column.solvent.temperature, t[-1]]),
+        np.r_[p_bottom, p_top, p_top, p_bottom],
+        np.array([x_solvent, x_solvent, x_solvent, l[-1] / l[-1].sum()]),
+        np.array([y_in, y_top, y_in, y_in]),
+    )
+    h_v_gas_in, h_v_top = props.h_vapour[0], props.h_vapour[1]
+    h_l_solvent_in, h_l_bottom = props.h_liquid[2], props.h_liquid[3]
     absorbed = gas_in - gas_out
     transfer = absorbed * (h_v_gas_in - h_l_bottom)
     released = float(np.sum(np.where(absorbed > 0.0, transfer, 0.0)))

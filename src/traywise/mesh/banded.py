@@ -4,66 +4,102 @@ The unknowns (and equations) of every stage may be reordered before banding, the
 permutation for rows and columns so that the diagonal stays the diagonal. For the MESH blocks,
 ordering each stage as (v, T, l) against rows (E, H, M) gives band widths of n = 2c+1 below and
 n (n + c - 1 with Murphree efficiencies below one) above, instead of 2n - 1 on both sides:
-about three times fewer operations in the factorisation. LAPACK's dgbsv is called directly
-(scipy.linalg.solve_banded copies its input and costs several times more at these sizes).
+about three times fewer operations in the factorisation.
+
+``BandedSystem`` keeps one Fortran-ordered band storage, right-hand side and pivot array for a
+column and refills them in place each Newton step; LAPACK's dgbsv factorises and solves in that
+storage (``lapack.py``), so nothing is copied or allocated per step beyond the gathered
+block entries (scipy.linalg.solve_banded copies its input, and a fresh C-ordered array is copied
+again to Fortran order by the LAPACK wrapper: at 320 stages that costs as much as the
+factorisation).
 """
 
 import functools
 
 import numpy as np
-from scipy.linalg.lapack import dgbsv
 
 from ..errors import ConvergenceError
+from .lapack import solve_banded_in_place
 
 
-@functools.lru_cache(maxsize=32)
+@functools.lru_cache(maxsize=16)
 def _layout(n_stages, n, below, above, order):
-    """Where each block entry goes in LAPACK band storage.
-
-    Returns (entries, permutation): entries is ((positions, mask) for the lower blocks 1..,
-    the diagonal blocks, the upper blocks ..N-1), masks (n, n) over the blocks' own (unpermuted)
-    entries that lie inside the band, positions flat indices into the (2 below + above + 1, N n)
-    storage ordered like blocks[stages][:, mask].ravel(); permutation maps banded unknown k to
-    the original unknown permutation[k].
-    """
+    """Where the block entries go in LAPACK band storage (2 below + above + 1, N n), flat in
+    Fortran order: ((positions, taken, mask) for the lower, diagonal and upper blocks, unheld,
+    permutation). positions index the storage, taken the (N, n, n) blocks flat, mask (n, n) the
+    block entries inside the band; unheld are the in-band positions no block holds (entries two
+    stages apart: zero, but the factorisation overwrites them); banded unknown k is original
+    unknown permutation[k]. Cached: columns of one shape share it (design loops, sweeps)."""
+    rows, size = 2 * below + above + 1, n_stages * n
     inverse = np.empty(n, dtype=int)
     inverse[list(order)] = np.arange(n)
     a, b = np.meshgrid(inverse, inverse, indexing="ij")  # permuted row, column of entry (a, b)
-    columns = n_stages * n
+    within = np.arange(n * n).reshape(n, n)  # flat index of entry (a, b) inside a block
 
-    def positions(stages, shift):
+    def entries(stages, shift):
         offset = shift * n + b - a  # column minus row in the permuted matrix
         mask = (offset <= above) & (offset >= -below)
-        rows = stages[:, None] * n + a[mask]
-        cols = (stages[:, None] + shift) * n + b[mask]
-        return ((below + above + rows - cols) * columns + cols).ravel(), mask
+        row = stages[:, None] * n + a[mask]
+        col = (stages[:, None] + shift) * n + b[mask]
+        taken = (stages[:, None] * n * n + within[mask]).ravel()
+        return (col * rows + below + above + row - col).ravel(), taken, mask
 
     stages = np.arange(n_stages)
+    blocks = (entries(stages[1:], -1), entries(stages, 0), entries(stages[:-1], 1))
+    col = np.arange(size)[:, None]
+    row = col + np.arange(-above, below + 1)[None, :]
+    inside = (row >= 0) & (row < size)
+    in_band = np.zeros(rows * size, dtype=bool)
+    in_band[(col * rows + below + above + row - col)[inside]] = True
+    in_band[np.concatenate([positions for positions, _, _ in blocks])] = False
     permutation = (stages[:, None] * n + np.asarray(order)[None, :]).ravel()
-    return (positions(stages[1:], -1), positions(stages, 0), positions(stages[:-1], 1)), permutation
+    return blocks, np.flatnonzero(in_band), permutation
 
 
-def solve_block_tridiagonal(lower, diagonal, upper, rhs, diagonal_shift=0.0, *, order, band):
-    """Solve the block-tridiagonal system (blocks (N, n, n)) plus ``diagonal_shift`` * I.
+class BandedSystem:
+    """The block-tridiagonal system of one column in LAPACK band storage.
 
-    lower[j] couples stage j to j-1 (lower[0] unused); upper[j] couples j to j+1. ``order`` is
-    the per-stage permutation applied before banding, ``band`` the (below, above) widths that
-    hold every non-zero entry after it (entries outside are dropped, so they must be zero).
+    Parameters
+    ----------
+    n_stages, n : int            Stages and unknowns per stage (blocks are (N, n, n))
+    band : (int, int)            (below, above) widths that hold every non-zero entry after the
+                                 per-stage permutation (entries outside are dropped, so they
+                                 must be zero)
+    order : sequence of int      Per-stage permutation applied before banding
+    row_scale, unknown_scale : array (n,), optional   The system solved is
+                                 (D_r^-1 J D_u + shift I) y = D_r^-1 rhs, x = D_u y
     """
-    n_stages, n, _ = diagonal.shape
-    below, above = band
-    (low, mid, up), permutation = _layout(n_stages, n, below, above, tuple(order))
-    storage = np.zeros((2 * below + above + 1, n_stages * n))
-    flat = storage.reshape(-1)
-    flat[mid[0]] = diagonal[:, mid[1]].ravel()
-    if n_stages > 1:
-        flat[low[0]] = lower[1:, low[1]].ravel()
-        flat[up[0]] = upper[:-1, up[1]].ravel()
-    if diagonal_shift:
-        storage[below + above] += diagonal_shift
-    _, _, solution, info = dgbsv(below, above, storage, rhs[permutation], overwrite_ab=1, overwrite_b=1)
-    if info > 0:
-        raise ConvergenceError("singular stage Jacobian", iterations=0, residual=np.inf)
-    unpermuted = np.empty_like(solution)
-    unpermuted[permutation] = solution
-    return unpermuted
+
+    def __init__(self, n_stages, n, band, order, row_scale=None, unknown_scale=None):
+        below, above = (int(w) for w in band)
+        self.below, self.above = below, above
+        size = n_stages * n
+        self.storage = np.zeros((2 * below + above + 1, size), order="F")
+        self.rhs = np.empty(size)
+        self.pivots = np.empty(size, dtype=np.int64)
+        self._flat = self.storage.T.reshape(-1)  # a view: flat index = column * rows + row
+        blocks, self._unheld, self.permutation = _layout(n_stages, n, below, above, tuple(int(k) for k in order))
+        row_scale = np.ones(n) if row_scale is None else np.asarray(row_scale, dtype=float)
+        unknown_scale = np.ones(n) if unknown_scale is None else np.asarray(unknown_scale, dtype=float)
+        scale = unknown_scale[None, :] / row_scale[:, None]
+        self._blocks = tuple(
+            (positions, taken, np.tile(scale[mask], taken.size // max(int(mask.sum()), 1))) for positions, taken, mask in blocks
+        )
+        self._row_scale = np.tile(row_scale, n_stages)
+        self._unknown_scale = np.tile(unknown_scale, n_stages)
+
+    def solve(self, lower, diagonal, upper, rhs, diagonal_shift=0.0):
+        """x with (J + shift D_r D_u^-1) x = rhs for the blocks of J (see class docstring):
+        lower[j] couples stage j to j-1 (lower[0] unused), upper[j] stage j to j+1."""
+        flat = self._flat
+        flat[self._unheld] = 0.0
+        for block, (positions, taken, scale) in zip((lower, diagonal, upper), self._blocks):
+            flat[positions] = block.reshape(-1)[taken] * scale
+        if diagonal_shift:
+            self.storage[self.below + self.above] += diagonal_shift
+        self.rhs[:] = (rhs / self._row_scale)[self.permutation]
+        if solve_banded_in_place(self.below, self.above, self.storage, self.rhs, self.pivots) > 0:
+            raise ConvergenceError("singular stage Jacobian", iterations=0, residual=np.inf)
+        solution = np.empty_like(self.rhs)
+        solution[self.permutation] = self.rhs
+        return solution * self._unknown_scale

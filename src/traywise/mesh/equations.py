@@ -46,12 +46,10 @@ class StageEquations:
         self.murphree = column.murphree
         self.isothermal = column.mode == "isothermal"
         self.insoluble = np.array([k == "insoluble" for k in model.equilibrium])
-        self.feed_enthalpy = self._feed_enthalpies()
+        self.feed_enthalpy, mean_cp = self._feed_enthalpies()
         total_feed = self.liquid_feed.sum(axis=0) + self.vapour_feed.sum(axis=0)
         self.flow_scale = np.maximum(total_feed, TRACE * total_feed.sum())
         self.gas_in = column.gas.component_flows / column.gas.flow
-        feeds = column.feeds
-        mean_cp = sum(f.flow * self._mean_cp(f) for f in feeds) / sum(f.flow for f in feeds)
         self.energy_scale = total_feed.sum() * mean_cp  # W per K
         self.row_scale = np.concatenate([self.flow_scale, self.flow_scale, [self.energy_scale]])
         self.unknown_scale = np.concatenate([self.flow_scale, self.flow_scale, [1.0]])
@@ -61,21 +59,25 @@ class StageEquations:
         self.band_order = np.r_[np.arange(c), 2 * c, np.arange(c, 2 * c)]
         self.band = (self.n, self.n + (c - 1 if np.any(self.murphree < 1.0) else 0))
 
-    def _mean_cp(self, feed):
-        t = np.array([feed.temperature])
-        props = self.model.evaluate(t, np.array([self.column.top_pressure]), _liquid_composition(feed))
-        cp = props.dh_vapour_dt if feed.phase == "vapour" else props.dh_liquid_dt
-        return float(cp[0] @ feed.component_flows) / feed.flow
-
     def _feed_enthalpies(self):
-        """Enthalpy fed to each stage (N,) [W], feeds at their own temperature and phase."""
+        """Enthalpy fed to each stage (N,) [W], feeds at their own temperature and phase, and
+        the flow-weighted mean heat capacity of the feeds [J/(mol K)]; one property evaluation
+        for all feeds (a row each, at the pressure of its stage; the vapour enthalpies do not
+        depend on the liquid composition given with them: the solvent's)."""
+        feeds = self.column.feeds
+        flows = np.array([f.component_flows for f in feeds])
+        vapour = np.array([f.phase == "vapour" for f in feeds])[:, None]
+        solvent = self.column.solvent.component_flows / self.column.solvent.flow
+        props = self.model.evaluate(
+            np.array([f.temperature for f in feeds]),
+            self.pressure[[f.stage - 1 for f in feeds]],
+            np.where(vapour, solvent, flows / flows.sum(axis=1, keepdims=True)),
+        )
+        h = np.sum(np.where(vapour, props.h_vapour, props.h_liquid) * flows, axis=1)
+        cp = np.sum(np.where(vapour, props.dh_vapour_dt, props.dh_liquid_dt) * flows, axis=1)
         enthalpy = np.zeros(self.n_stages)
-        for feed in self.column.feeds:
-            j = feed.stage - 1
-            props = self.model.evaluate(np.array([feed.temperature]), self.pressure[j : j + 1], _liquid_composition(feed))
-            h = props.h_vapour if feed.phase == "vapour" else props.h_liquid
-            enthalpy[j] += float(h[0] @ feed.component_flows)
-        return enthalpy
+        np.add.at(enthalpy, [f.stage - 1 for f in feeds], h)
+        return enthalpy, float(cp.sum() / flows.sum())
 
     def split(self, x):
         """Unknown vector (N*n,) -> v (N, c), l (N, c), T (N,)."""
@@ -136,15 +138,19 @@ class StageEquations:
             return -self.enthalpy_surplus(v, l, props)
         return np.array(self.column.heat_removed)
 
-    def jacobian(self, x, props):
+    def empty_jacobian(self):
+        """Zeroed blocks (lower, diagonal, upper), each (N, n, n), to pass to ``jacobian``."""
+        return tuple(np.zeros((self.n_stages, self.n, self.n)) for _ in range(3))
+
+    def jacobian(self, x, props, out=None):
         """Blocks (lower, diagonal, upper), each (N, n, n): d(rows of stage j)/d(unknowns of
-        stage j-1, j, j+1). lower[0] and upper[N-1] are unused (zero)."""
-        c, n, n_stages = self.c, self.n, self.n_stages
+        stage j-1, j, j+1). lower[0] and upper[N-1] are unused (zero). ``out``: blocks from
+        ``empty_jacobian`` or an earlier call of this column, filled in place (every entry
+        that can be non-zero is written on every call)."""
+        c = self.c
         v, l, t = self.split(x)
         big_v, big_l = v.sum(axis=1), l.sum(axis=1)
-        lower = np.zeros((n_stages, n, n))
-        diagonal = np.zeros((n_stages, n, n))
-        upper = np.zeros((n_stages, n, n))
+        lower, diagonal, upper = self.empty_jacobian() if out is None else out
         eye = np.eye(c)
         vs, ls, ts = slice(0, c), slice(c, 2 * c), 2 * c
         es, ms, hs = slice(0, c), slice(c, 2 * c), 2 * c
@@ -196,9 +202,3 @@ class StageEquations:
             upper[:-1, hs, vs] = -pv * props.h_vapour[1:]
             upper[:-1, hs, ts] = -pv[:, 0] * np.sum(v[1:] * props.dh_vapour_dt[1:], axis=1)
         return lower, diagonal, upper
-
-
-def _liquid_composition(feed):
-    """Mole fractions (1, c) of a liquid feed, for composition-dependent liquid models; None
-    for a vapour feed (its enthalpy does not depend on a liquid composition)."""
-    return feed.component_flows[None, :] / feed.flow if feed.phase == "liquid" else None

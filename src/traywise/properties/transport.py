@@ -65,10 +65,15 @@ class TransportData:
 
 def transport_data(component):
     """TransportData of a Component: from its component file, or empty for inline components."""
-    origin = Path(str(component.origin))
-    if origin.suffix != ".toml" or not origin.is_file():
-        return TransportData(component.name)
-    return _read(str(origin), component.name)
+    return _data(str(component.origin), component.name)
+
+
+@functools.cache
+def _data(origin, name):
+    path = Path(origin)
+    if path.suffix != ".toml" or not path.is_file():
+        return TransportData(name)
+    return _read(origin, name)
 
 
 @functools.cache

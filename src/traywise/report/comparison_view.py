@@ -1,35 +1,22 @@
-"""The isothermal inert-basis comparison, rendered for the console, report.md and results.json.
+"""The isothermal inert-basis comparison and Kremser's rating, rendered for the console,
+report.md and results.json.
 
-The comparison is computed one layer down, by ``traywise.inert_basis.comparison.compare``; this module
-runs it for a case and renders the ``Comparison`` record it returns (fields key, temperature,
-pressure, rigorous_stages, isothermal_stages (None when the classic method pinches),
-isothermal_design (an ``InertBasisDesign``, or None), solutes (per-solute outlets both ways),
-max_temperature_rise, hottest_stage, held, verdict).
+Both are computed one layer down (``traywise.run`` calls ``traywise.inert_basis.comparison.compare``
+and ``traywise.inert_basis.kremser_rating.kremser_rating``); this module only renders the
+``Comparison`` record (fields key, temperature, pressure, rigorous_stages, isothermal_stages
+(None when the classic method gives no stage count, ``reason`` saying why), isothermal_design (an
+``InertBasisDesign``, or None), solutes (per-solute outlets both ways), max_temperature_rise,
+hottest_stage, held, verdict) and the ``KremserRating`` beside it.
 """
 
 from .tables import celsius, kilopascal, number, percent
 
 
-def isothermal_comparison(case, solution, key=None):
-    """The comparison record of a solved case for ``key`` (default: the case's key solute)."""
-    from ..inert_basis.comparison import compare
-
-    names = case.model.names
-    return compare(
-        solution, case.model, key or case.key_component, solvent_index=names.index(case.solvent), solutes=case.solutes
-    )
-
-
-def xy_design(case, solution, comparison):
-    """The inert-basis design drawn on the x-y diagram: of the case's ``xy_solute`` (the key
-    solute unless the case chooses another); None when the classic method pinches."""
-    if case.xy_solute == comparison.key:
-        return comparison.isothermal_design
-    return isothermal_comparison(case, solution, case.xy_solute).isothermal_design
-
-
-def comparison_json(record):
-    """The comparison as a JSON-ready dict with units in the keys."""
+def comparison_json(record, kremser=None):
+    """The comparison (and Kremser's rating of the same column, when there is one) as a
+    JSON-ready dict with units in the keys; None without a comparison."""
+    if record is None:
+        return None
     design = record.isothermal_design
     return {
         "key_component": record.key,
@@ -62,31 +49,59 @@ def comparison_json(record):
             "liquid_ratio_out": float(design.liquid_ratio_out),
             "theoretical_stages": float(design.theoretical_stages),
         },
+        "kremser": None if kremser is None else kremser_json(kremser),
+    }
+
+
+def kremser_json(rating):
+    """Kremser's rating as a JSON-ready dict (the absorption factor of each solute it used)."""
+    return {
+        "isothermal_temperature_K": rating.temperature,
+        "isothermal_pressure_Pa": rating.pressure,
+        "theoretical_stages_rated": rating.theoretical_stages,
+        "theoretical_stages_for_rigorous_removal": rating.stages_for_rigorous_removal,
+        "solutes": [
+            {
+                "name": solute.name,
+                "k_value": solute.k_value,
+                "liquid_to_gas_ratio": solute.liquid_to_gas_ratio,
+                "absorption_factor": solute.absorption_factor,
+                "gas_out_mole_fraction": solute.outlet_mole_fraction,
+                "fraction_absorbed": solute.fraction_absorbed,
+            }
+            for solute in rating.solutes
+        ],
     }
 
 
 def comparison_rows(comparison):
-    """Rows (quantity, rigorous, isothermal inert basis) of the comparison table, as text, from
-    the dict of ``comparison_json``."""
+    """Rows (quantity, rigorous, isothermal inert basis, Kremser) of the comparison table, as
+    text, from the dict of ``comparison_json``; Kremser's column is '-' where it rated nothing."""
     stages = comparison["theoretical_stages_isothermal"]
+    kremser = comparison["kremser"] or {"theoretical_stages_for_rigorous_removal": None, "solutes": []}
+    by_name = {solute["name"]: solute for solute in kremser["solutes"]}
     rows = [
         (
             f"theoretical stages for the {comparison['key_component']} removal",
             number(comparison["theoretical_stages_rigorous"]),
             "none (see the verdict)" if stages is None else number(stages),
+            number(kremser["theoretical_stages_for_rigorous_removal"]),
         ),
         (
             "maximum temperature rise [K]",
             f"{comparison['max_temperature_rise_K']:.1f} (stage {comparison['hottest_stage']})",
             "0 (assumed)",
+            "0 (assumed)",
         ),
     ]
     for solute in comparison["solutes"]:
+        rated = by_name.get(solute["name"], {})
         rows.append(
             (
                 f"{solute['name']} in gas out [mol frac]",
                 number(solute["gas_out_mole_fraction_rigorous"]),
                 number(solute["gas_out_mole_fraction_isothermal"]),
+                number(rated.get("gas_out_mole_fraction")),
             )
         )
         rows.append(
@@ -94,21 +109,28 @@ def comparison_rows(comparison):
                 f"{solute['name']} absorbed [%]",
                 percent(solute["fraction_absorbed_rigorous"]),
                 percent(solute["fraction_absorbed_isothermal"]),
+                percent(rated.get("fraction_absorbed")),
             )
         )
+        if rated:
+            rows.append((f"{solute['name']} absorption factor A = L'/(K V') [-]", "-", "-",
+                         number(rated["absorption_factor"])))
     return rows
 
 
 def comparison_heading(comparison):
-    """One line: where the isothermal design was taken."""
+    """One line: where the isothermal design and Kremser's rating were taken."""
     return (
         f"isothermal inert-basis design at {celsius(comparison['isothermal_temperature_K'])} degC and "
-        f"{kilopascal(comparison['isothermal_pressure_Pa'])} kPa, every component but one solute inert"
+        f"{kilopascal(comparison['isothermal_pressure_Pa'])} kPa, every component but one solute inert, and "
+        "Kremser's equation there with K at infinite dilution"
     )
 
 
 def verdict_line(comparison):
-    """'Isothermal assumption held: ...' or '... did not hold: ...'."""
+    """'Isothermal assumption held: ...' or '... did not hold: ...' (or why there is no comparison)."""
+    if comparison is None:
+        return "No isothermal inert-basis comparison: it could not be computed (see the warnings)"
     return f"Isothermal assumption {comparison['verdict']}"
 
 

@@ -93,10 +93,13 @@ def _design(results):
 
 
 def _comparison(results):
-    heading, headers, rows, verdict = comparison_table(results)
+    table = comparison_table(results)
+    if table is None:
+        return verdict_line(None) + "."
+    heading, headers, rows, verdict = table
     text = f"Rigorous stage-by-stage solution compared with the {heading}.\n\n{markdown_table(headers, rows)}\n\n**{verdict}.**"
     if any(name.endswith(".png") for name in results["files"]) and "xy_diagram.png" not in results["files"]:
-        text += "\n\nNo x-y diagram: the isothermal design pinches, so there are no stages to step."
+        text += "\n\nNo x-y diagram: the isothermal design gives no stages to step (see the verdict)."
     return text
 
 

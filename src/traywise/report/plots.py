@@ -30,7 +30,8 @@ def write_plots(folder, solution, comparison, design):
     ----------
     folder : pathlib.Path
     solution : ColumnSolution
-    comparison : traywise.inert_basis.comparison.Comparison   (its temperature is marked on the profile)
+    comparison : traywise.inert_basis.comparison.Comparison or None   (its temperature is marked
+        on the profile when there is one)
     design : InertBasisDesign or None   Drawn on the x-y diagram; without one (the classic
         method pinches) the diagram is not drawn and the report says so.
     """
@@ -75,7 +76,8 @@ def _temperature_profile(figure, solution, comparison):
     column = solution.column
     axes.plot([column.solvent.temperature - ZERO_CELSIUS], [0], "v", color="tab:blue", label="solvent in (above stage 1)")
     axes.plot([column.gas.temperature - ZERO_CELSIUS], [solution.n_stages + 1], "^", color="tab:red", label="gas in (below stage N)")
-    axes.axvline(comparison.temperature - ZERO_CELSIUS, color="grey", ls="--", label="isothermal design")
+    if comparison is not None:
+        axes.axvline(comparison.temperature - ZERO_CELSIUS, color="grey", ls="--", label="isothermal design")
     _stage_axis(axes, solution.n_stages, feeds=True)
     axes.set_xlabel("temperature [degC]")
     axes.set_title("Temperature profile")

@@ -99,7 +99,7 @@ RESULTS_KEYS = {
     "convergence.component_closure": "per component name: |in - out| / in over the column [-]",
     "convergence.energy_closure": "|enthalpy in - out - heat removed| / enthalpy throughput [-]",
     "convergence.method": "iteration method in words",
-    "isothermal_comparison": "the isothermal inert-basis design beside the rigorous one",
+    "isothermal_comparison": "the isothermal inert-basis design and Kremser's rating beside the rigorous one, or null when it could not be computed (the warnings say why)",
     "isothermal_comparison.key_component": "the solute the stage counts refer to",
     "isothermal_comparison.isothermal_temperature_K": "temperature of the isothermal design [K]",
     "isothermal_comparison.isothermal_pressure_Pa": "pressure of the isothermal design [Pa]",
@@ -117,6 +117,18 @@ RESULTS_KEYS = {
     "isothermal_comparison.verdict": "one sentence saying why",
     "isothermal_comparison.reason": "why the isothermal method gives no stage count for the rigorous removal (a pinch, or why it cannot be applied: the key absorbed completely or stripped, an equilibrium curve that never reaches the gas inlet), or null when it gives one",
     "isothermal_comparison.inert_basis_design": "the isothermal design for the rigorous removal of the key solute (K-value, L'/V', its minimum, terminal mole ratios, stages), or null when it pinches",
+    "isothermal_comparison.kremser": "Kremser's equation at the same temperature and pressure, each solute on its own inert basis with K at infinite dilution, or null when it rates nothing",
+    "isothermal_comparison.kremser.isothermal_temperature_K": "temperature of K [K]",
+    "isothermal_comparison.kremser.isothermal_pressure_Pa": "pressure of K [Pa]",
+    "isothermal_comparison.kremser.theoretical_stages_rated": "theoretical stages N of the rigorous column, rated [-]",
+    "isothermal_comparison.kremser.theoretical_stages_for_rigorous_removal": "stages Kremser's equation needs for the rigorous removal of the key solute [-]; null where no number of stages reaches it",
+    "isothermal_comparison.kremser.solutes": "one entry per solute rated",
+    "isothermal_comparison.kremser.solutes[].name": "solute name",
+    "isothermal_comparison.kremser.solutes[].k_value": "K = y*/x at infinite dilution, the slope of Y* = K X [-]",
+    "isothermal_comparison.kremser.solutes[].liquid_to_gas_ratio": "L'/V' on the solute's inert basis [mol/mol]",
+    "isothermal_comparison.kremser.solutes[].absorption_factor": "A = L'/(K V') [-]",
+    "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction": "Kremser's outlet, solute over solute and inert gas [-]",
+    "isothermal_comparison.kremser.solutes[].fraction_absorbed": "1 - Y_out / Y_in [-]",
     "design": "the design of a case with a [design] table (cases/README.md); null without one",
     "design.solve_for": "the input solved for: 'solvent_flow', 'stages' or 'cooler_duty'",
     "design.solvent_flow_mol_per_s": "solvent feed of the designed column [mol/s]",
@@ -175,20 +187,22 @@ RESULTS_KEYS = {
 }
 
 
-def results_record(case, solution, comparison_json, files, *, design=None, design_warnings=(), sizing=None):
-    """The results record (a JSON-ready dict) of one solved case.
+def results_record(run, files):
+    """The results record (a JSON-ready dict) of one run.
 
     Parameters
     ----------
-    case : traywise case (fields path, title, notes, components, model, column, solvent,
-        key_component, overall_efficiency, warnings, echo)
-    solution : traywise.mesh.solution.ColumnSolution
-    comparison_json : dict           From ``comparison_view.comparison_json``
+    run : traywise.run.CaseRun       The case (fields path, title, notes, components, model,
+        column, solvent, key_component, overall_efficiency, warnings, echo), its solution and
+        side results
     files : list of str              File names of the results folder
-    design : dict, optional          From ``design_view.design_json``, when the case was designed
-    design_warnings : sequence of str   The design's warnings, added to the record's
-    sizing : dict, optional          From ``sizing_view.sizing_json``, when the case has [internals]
     """
+    from .comparison_view import comparison_json
+    from .design_view import design_json
+    from .sizing_view import sizing_json
+
+    case, solution = run.case, run.solution
+    sizing = None if run.sizing is None else sizing_json(run.sizing)
     names = list(solution.component_names)
     column = solution.column
     return {
@@ -250,13 +264,12 @@ def results_record(case, solution, comparison_json, files, *, design=None, desig
             "energy_closure": solution.convergence.energy_closure,
             "method": solution.convergence.method,
         },
-        "isothermal_comparison": comparison_json,
-        "design": design,
+        "isothermal_comparison": comparison_json(run.comparison, run.kremser),
+        "design": None if run.design is None else design_json(run.design),
         "sizing": sizing,
         "property_sources": {c.name: property_sources(c, kind, **_liquid_data(case.model, c.name))
                              for c, kind in zip(case.model.components, case.model.equilibrium)},
-        "warnings": [*case.warnings, *solution.warnings, *design_warnings,
-                     *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))],
+        "warnings": [*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))],
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }

@@ -131,9 +131,12 @@ def key_line(results):
 
 
 def comparison_table(results):
-    """(heading, headers, rows, verdict line) of the isothermal comparison."""
+    """(heading, headers, rows, verdict line) of the isothermal comparison and Kremser's rating;
+    None without a comparison."""
     comparison = results["isothermal_comparison"]
-    headers = ["", "rigorous (MESH)", "isothermal inert basis"]
+    if comparison is None:
+        return None
+    headers = ["", "rigorous (MESH)", "isothermal inert basis", "Kremser"]
     return comparison_heading(comparison), headers, comparison_rows(comparison), verdict_line(comparison)
 
 

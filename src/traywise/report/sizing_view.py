@@ -59,7 +59,7 @@ def sizing_json(sizing):
                          source=data.source, note=data.note)
     stages = {
         "fraction_of_flood": _list(h.fraction_of_flood),
-        "pressure_drop_Pa": _list(h.pressure_drop),
+        "pressure_drop_Pa": _list(h.stage_pressure_drop),
         "gas_density_kg_per_m3": _list(p.gas_density),
         "liquid_density_kg_per_m3": _list(p.liquid_density),
         "liquid_viscosity_Pa_s": _list(p.liquid_viscosity),
@@ -85,7 +85,7 @@ def sizing_json(sizing):
         "bed_height_m": sizing.bed_height,
         "beds": sizing.beds,
         "column_height_m": sizing.column_height,
-        "pressure_drop_Pa": sizing.pressure_drop,
+        "pressure_drop_Pa": sizing.total_pressure_drop,
         "stages": stages,
         "methods": list(_methods(sizing)),
         "warnings": list(sizing.warnings),
@@ -93,6 +93,7 @@ def sizing_json(sizing):
 
 
 def _methods(sizing):
+    yield from sizing.notes
     if sizing.kind == "trays":
         yield ("flooding: Fair, Petro/Chem Eng. 33(10) (1961) 45, curve fit of Lygeros & Magoulas, Hydrocarbon "
                "Proc. 65(12) (1986) 43, with surface-tension, foaming and hole-area factors")
@@ -195,7 +196,7 @@ def write_hydraulics_csv(path, sizing):
     columns = {
         "stage": np.arange(1, p.temperature.size + 1),
         "fraction_of_flood": h.fraction_of_flood,
-        "pressure_drop_Pa": h.pressure_drop,
+        "pressure_drop_Pa": h.stage_pressure_drop,
         "gas_mass_flow_kg_per_s": p.gas_mass_flow,
         "liquid_mass_flow_kg_per_s": p.liquid_mass_flow,
         "gas_density_kg_per_m3": p.gas_density,
@@ -232,7 +233,7 @@ def write_hydraulics_plot(path, sizing):
         flood.axvline(100 * sizing.internals.fraction_of_flood, linestyle="--", color="grey", label="design")
         flood.set_xlabel("percent of flood [%]")
         flood.legend(loc="best")
-        drop.plot(h.pressure_drop / 1e3, stages, marker="s", color="tab:red")
+        drop.plot(h.stage_pressure_drop / 1e3, stages, marker="s", color="tab:red")
         drop.set_xlabel("pressure drop per tray [kPa]" if sizing.kind == "trays" else "pressure drop per stage's bed [kPa]")
         _stage_axis(flood, stages.size)
         drop.grid(True, alpha=0.3)

@@ -6,6 +6,7 @@ property sources).
 """
 
 from .cautions import SAFETY_ONE_LINE
+from .comparison_view import verdict_line
 from .design_view import design_lines, trays_table
 from .sizing_view import sizing_lines
 from .sections import (
@@ -54,8 +55,11 @@ def design_text(results):
 
 
 def comparison_text(results):
-    """The isothermal check as a small table and its verdict."""
-    heading, headers, rows, verdict = comparison_table(results)
+    """The isothermal check and Kremser's rating as a small table, and the verdict."""
+    table = comparison_table(results)
+    if table is None:
+        return verdict_line(None) + "."
+    heading, headers, rows, verdict = table
     return f"Compared with the {heading}:\n{text_table(headers, rows)}\n{verdict}."
 
 

@@ -12,7 +12,7 @@ TORNADO_BARS = 8  # inputs shown per output
 WIDTH = 6.4  # inches
 
 
-def write_histograms(path, title, result):
+def write_histograms(path, result):
     """uncertainty_histograms.png: one panel per output."""
     from matplotlib.backends.backend_agg import FigureCanvasAgg
     from matplotlib.figure import Figure
@@ -32,12 +32,12 @@ def write_histograms(path, title, result):
         axes.set_xlabel(f"{name} [{shown_unit}]")
         axes.set_ylabel("samples")
         axes.legend(fontsize=7)
-    figure.suptitle(f"{title}: {result.n_samples} samples, {failed} failed", fontsize=9)
+    figure.suptitle(f"{result.n_samples} samples, {failed} failed (not shown)", fontsize=9)
     figure.tight_layout()
     figure.savefig(path)
 
 
-def write_tornado(path, title, result):
+def write_tornado(path, result):
     """uncertainty_tornado.png: one panel per output."""
     from matplotlib.backends.backend_agg import FigureCanvasAgg
     from matplotlib.figure import Figure
@@ -55,10 +55,11 @@ def write_tornado(path, title, result):
             axes.barh(row, swing * scale, color="tab:red", label="+1 u" if row == 0 else None)
             axes.barh(row, -swing * scale, color="tab:blue", label="-1 u" if row == 0 else None)
         if drivers:
-            axes.legend(fontsize=7)
+            axes.legend(fontsize=7, loc="best", framealpha=0.6)
         axes.set_yticks(range(len(drivers)), [f"{d[0]} ({d[1]:+.2f})" for d in drivers], fontsize=7)
         axes.axvline(0.0, color="black", linewidth=0.8)
-        axes.set_xlabel(f"change of {name} for -1/+1 standard uncertainty [{shown_unit}]")
-    figure.suptitle(f"{title}: what drives each output (Spearman rho in brackets)", fontsize=9)
+        axes.set_title(name, fontsize=8)
+        axes.set_xlabel(f"change for -1/+1 standard uncertainty of the input [{shown_unit}]", fontsize=8)
+    figure.suptitle("What drives each output (Spearman's rho in brackets)", fontsize=9)
     figure.tight_layout()
     figure.savefig(path)

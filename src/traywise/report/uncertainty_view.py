@@ -43,11 +43,19 @@ def uncertainty_record(case, result, files=()):
                     "basis": e.basis, "default": e.default} for e in result.inputs],
         "correlations": [{"inputs": [result.inputs[i].name, result.inputs[j].name], "coefficient": rho}
                          for i, j, rho in result.correlations],
+        "not_sampled": not_sampled(case.model),
         "outputs": [_summary_json(s) for s in result.summaries],
         "seconds": result.seconds,
         "files": list(files),
         "cautions": list(SAFETY_CAUTIONS),
     }
+
+
+def not_sampled(model):
+    """What the samples leave out, each in one line: the equilibrium tables a case brings."""
+    return [f"the equilibrium table of {model.names[i]} (the case's own data, with no uncertainty stated): the "
+            "figures here leave its uncertainty out"
+            for i, kind in enumerate(model.equilibrium) if kind == "table"]
 
 
 def _summary_json(s):
@@ -76,8 +84,8 @@ def write_uncertainty(target, case, result, *, plots=True):
         if plots:
             from .uncertainty_plot import write_histograms, write_tornado
 
-            write_histograms(folder / "uncertainty_histograms.png", case.title, result)
-            write_tornado(folder / "uncertainty_tornado.png", case.title, result)
+            write_histograms(folder / "uncertainty_histograms.png", result)
+            write_tornado(folder / "uncertainty_tornado.png", result)
         (folder / "uncertainty.json").write_text(json.dumps(record, indent=2, allow_nan=False) + "\n", encoding="utf-8")
 
     write_results_folder(target, write_files, protect=() if case.path is None else (case.path,))
@@ -130,6 +138,8 @@ def uncertainty_markdown(record):
     if record["correlations"]:
         parts.append("Correlated inputs: " + "; ".join(f"{' and '.join(c['inputs'])}: {c['coefficient']:+.2f}"
                                                        for c in record["correlations"]))
+    if record["not_sampled"]:
+        parts.append("Not sampled: " + "; ".join(record["not_sampled"]) + ".")
     if failed:
         parts.append("## Failed samples\n\nKept in samples.csv with their reason:\n\n"
                      + "\n".join(f"- {f['samples']} x {f['reason']}" for f in record["failure_reasons"]))
@@ -155,6 +165,8 @@ def uncertainty_text(record, folder=None):
             lines.append("    driven by " + ", ".join(f"{d['input']} ({d['spearman']:+.2f})" for d in top))
     for f in record["failure_reasons"]:
         lines.append(f"  failed: {f['samples']} x {f['reason']}")
+    for line in record["not_sampled"]:
+        lines.append(f"  not sampled: {line}")
     if folder is not None:
         lines += ["", f"Results in {folder}", safety_one_line(folder / "uncertainty.md")]
     return "\n".join(lines)

@@ -5,10 +5,10 @@ from dataclasses import dataclass
 import numpy as np
 
 from .errors import SizingInputError
-from .packed import PackedInternals, packed_column_height, rate_packing
+from .packed import PackedInternals, design_and_rate, packed_column_height, rate_packing
 from .packed import design_diameter as packed_design_diameter
-from .stage_properties import MIXING_RULES, stage_properties
-from .trays import TrayInternals, rate_trays, tray_column_height
+from .stage_loads import MIXING_RULES, stage_loads
+from .trays import TrayInternals, choose_tray_spacing, rate_trays, tray_column_height
 from .trays import design_diameter as tray_design_diameter
 
 
@@ -26,9 +26,10 @@ class ColumnSizing:
     trays : actual trays (trays) or None
     bed_height : total packed height [m] (packing) or None; beds : number of beds
     column_height : tangent to tangent [m], allowances in ``internals``
-    pressure_drop : over all trays or the whole bed [Pa]
-    properties : StageProperties the sizing used
+    total_pressure_drop : over all trays or the whole bed [Pa]
+    properties : StageLoads the sizing used
     warnings : tuple of str
+    notes : tuple of str            choices made for the user (tray spacing)
     """
 
     kind: str
@@ -42,9 +43,10 @@ class ColumnSizing:
     bed_height: float | None
     beds: int | None
     column_height: float
-    pressure_drop: float
+    total_pressure_drop: float
     properties: object
     warnings: tuple = ()
+    notes: tuple = ()
     mixing_rules: tuple = MIXING_RULES
 
     @property
@@ -69,21 +71,29 @@ def size_column(solution, components, internals, *, key_component, diameter=None
     diameter : float or None           given diameter [m] for rating
     overall_efficiency : float or None   trays = ceil(stages / efficiency) (trays only)
     """
-    properties = stage_properties(solution, components, key_component)
-    n_stages = solution.n_stages
+    properties = stage_loads(solution, components, key_component)
+    n_stages, notes = solution.n_stages, ()
     if isinstance(internals, TrayInternals):
+        chosen = internals.tray_spacing is None
+        internals = choose_tray_spacing(properties, internals, diameter)
+        if chosen:
+            notes += (f"tray spacing {internals.tray_spacing * 1e3:.0f} mm chosen for the diameter (450 mm below "
+                      "1.5 m across, else 600 mm; common practice)",)
         designed, stage = tray_design_diameter(properties, internals)
         hydraulics = rate_trays(properties, internals, designed if diameter is None else diameter)
         trays = n_stages if overall_efficiency is None else int(np.ceil(n_stages / overall_efficiency - 1e-9))
         # each theoretical stage's drop stands for the trays it represents
-        pressure_drop = float(hydraulics.pressure_drop.sum() * trays / n_stages)
+        pressure_drop = float(hydraulics.stage_pressure_drop.sum() * trays / n_stages)
         height, bed, beds, kind = tray_column_height(trays, internals), None, None, "trays"
     elif isinstance(internals, PackedInternals):
-        designed, stage = packed_design_diameter(properties, internals)
-        hydraulics = rate_packing(properties, internals, designed if diameter is None else diameter)
+        if diameter is None:
+            designed, stage, hydraulics = design_and_rate(properties, internals)
+        else:
+            designed, stage = packed_design_diameter(properties, internals)
+            hydraulics = rate_packing(properties, internals, diameter)
         trays, bed = None, hydraulics.bed_height
         height, beds = packed_column_height(bed, internals)
-        pressure_drop, kind = float(hydraulics.pressure_drop.sum()), "packing"
+        pressure_drop, kind = float(hydraulics.stage_pressure_drop.sum()), "packing"
     else:
         raise SizingInputError("internals", f"must be TrayInternals or PackedInternals, found {type(internals).__name__}")
     warnings = properties.warnings + hydraulics.warnings
@@ -93,5 +103,6 @@ def size_column(solution, components, internals, *, key_component, diameter=None
     return ColumnSizing(
         kind=kind, internals=internals, diameter=float(designed if diameter is None else diameter),
         rated=diameter is not None, design_diameter=float(designed), design_stage=stage, hydraulics=hydraulics, trays=trays, bed_height=bed,
-        beds=beds, column_height=float(height), pressure_drop=pressure_drop, properties=properties, warnings=warnings,
+        beds=beds, column_height=float(height), total_pressure_drop=pressure_drop, properties=properties, warnings=warnings,
+        notes=notes,
     )

@@ -11,8 +11,8 @@ a bed section of its own HETP (given, or from Onda's coefficients, ``onda.py``).
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.optimize import brentq
 
+from ..numerics import brent_root
 from .errors import SizingInputError
 from .onda import hetp_from_transfer_units, onda_gas_coefficient, onda_liquid_coefficient, onda_wetted_area
 from .packing_data import find_packing
@@ -80,7 +80,7 @@ class PackedHydraulics:
     liquid_velocity: np.ndarray  # superficial [m/s]
     pressure_drop_per_height: np.ndarray  # [Pa/m]
     hetp: np.ndarray  # [m]
-    pressure_drop: np.ndarray  # over each stage's bed section [Pa]
+    stage_pressure_drop: np.ndarray  # over each stage's bed section [Pa]
     wetting_rate: np.ndarray  # [m3/(m s)]
     wetted_area: np.ndarray | None = None  # Onda [m2/m3]
     liquid_coefficient: np.ndarray | None = None  # Onda k_L [m/s]
@@ -129,37 +129,79 @@ def _flooding_velocity(packing, liquid_velocity, properties, j):
 
 
 def flooding_fraction(properties, internals, diameter):
-    """(fraction of flood, flooding gas velocity [m/s]) of every stage at ``diameter`` [m]."""
+    """(fraction of flood, flooding gas velocity [m/s]) of every stage at ``diameter`` [m]; a stage
+    whose flooding model has no solution (deep in flood) gets a fraction of ``FLOODED``."""
     packing, area = internals.data, np.pi * diameter ** 2 / 4.0
     liquid = properties.liquid_volume_flow / area
-    flood = np.array([_flooding_velocity(packing, liquid[j], properties, j) for j in range(liquid.size)])
-    return properties.gas_volume_flow / area / flood, flood
+    flood = np.empty(liquid.size)
+    for j in range(liquid.size):
+        try:
+            flood[j] = _flooding_velocity(packing, liquid[j], properties, j)
+        except (ArithmeticError, ValueError, UnboundLocalError):
+            flood[j] = np.nan
+    fraction = properties.gas_volume_flow / area / flood
+    return np.where(np.isfinite(fraction) & (flood > 0.0), fraction, FLOODED), flood
 
 
 def design_diameter(properties, internals):
-    """(diameter [m], 1-based stage that sets it): each stage's diameter at ``fraction_of_flood``
-    (a root in D of the fraction of flood, which falls monotonically as D grows), the largest wins."""
+    """(diameter [m], 1-based stage that sets it): the smallest diameter at which no stage exceeds
+    ``fraction_of_flood``. Each stage's fraction of flood falls monotonically as D grows, so the
+    answer is the root, in D, of the stage loaded most there: solve the root of the stage with the
+    largest Souders-Brown load Q_G (rho_G/rho_L)^0.5, check every stage at that diameter, and repeat
+    for any stage still above the target (each stage's flooding velocity is one call to fluids)."""
+    diameter, stage, _ = _design(properties, internals)
+    return diameter, stage
+
+
+def _design(properties, internals):
+    """(diameter, 1-based stage, (fraction of flood, flooding velocity) of every stage there)."""
+    target = internals.fraction_of_flood
+    stage = int(np.argmax(properties.gas_volume_flow * np.sqrt(properties.gas_density / properties.liquid_density)))
+    diameter = _stage_root(properties, internals, stage, _first_diameter(properties, internals, stage))
+    for _ in range(properties.temperature.size):
+        flooding = flooding_fraction(properties, internals, diameter)
+        stage = int(np.argmax(flooding[0]))
+        if flooding[0][stage] <= target * (1.0 + 1e-9):
+            return diameter, stage + 1, flooding
+        diameter = _stage_root(properties, internals, stage, diameter)
+    raise SizingInputError("diameter", "the packed diameter did not settle on one stage")
+
+
+def design_and_rate(properties, internals):
+    """(diameter [m], 1-based stage that sets it, PackedHydraulics there): ``design_diameter``
+    then ``rate_packing``, reusing the flooding velocities the design found."""
+    diameter, stage, flooding = _design(properties, internals)
+    return diameter, stage, rate_packing(properties, internals, diameter, flooding=flooding)
+
+
+def _first_diameter(properties, internals, j):
+    """A trial diameter for stage ``j``: its gas at the target fraction of the flooding velocity
+    found at a small liquid load."""
+    flood = _flooding_velocity(internals.data, 1e-4, properties, j)
+    return float(np.sqrt(4.0 * properties.gas_volume_flow[j] / (np.pi * internals.fraction_of_flood * flood)))
+
+
+def _stage_root(properties, internals, j, start):
+    """Diameter [m] at which stage ``j`` runs at ``fraction_of_flood``, bracketed from ``start``."""
     packing, target = internals.data, internals.fraction_of_flood
-    diameters = np.empty(properties.temperature.size)
-    for j in range(diameters.size):
-        def excess(diameter):
-            area = np.pi * diameter ** 2 / 4.0
-            try:
-                flood = _flooding_velocity(packing, properties.liquid_volume_flow[j] / area, properties, j)
-            except (ArithmeticError, ValueError, UnboundLocalError):  # fluids' Newton fails deep in flood
-                return FLOODED
-            fraction = properties.gas_volume_flow[j] / area / flood - target
-            return fraction if np.isfinite(fraction) and flood > 0.0 else FLOODED
-        low = high = 1.0
-        while excess(high) > 0.0:
-            high *= 1.5
-            if high > 100.0:
-                raise SizingInputError("diameter", f"stage {j + 1} would need a packed column above 100 m across")
-        while excess(low) < 0.0:
-            low /= 1.5
-        diameters[j] = brentq(excess, low, high, xtol=1e-13, rtol=1e-13)
-    worst = int(np.argmax(diameters))
-    return float(diameters[worst]), worst + 1
+
+    def excess(diameter):
+        area = np.pi * diameter ** 2 / 4.0
+        try:
+            flood = _flooding_velocity(packing, properties.liquid_volume_flow[j] / area, properties, j)
+        except (ArithmeticError, ValueError, UnboundLocalError):  # fluids' Newton fails deep in flood
+            return FLOODED
+        fraction = properties.gas_volume_flow[j] / area / flood - target
+        return fraction if np.isfinite(fraction) and flood > 0.0 else FLOODED
+
+    low = high = start
+    while excess(high) > 0.0:
+        high *= 1.25
+        if high > 100.0:
+            raise SizingInputError("diameter", f"stage {j + 1} would need a packed column above 100 m across")
+    while excess(low) < 0.0:
+        low /= 1.25
+    return brent_root(excess, low, high, xtol=1e-13, rtol=1e-13)
 
 
 def _hetp(properties, packing, liquid_flux, gas_flux, area):
@@ -178,12 +220,13 @@ def _hetp(properties, packing, liquid_flux, gas_flux, area):
     return hetp_from_transfer_units(gas_height, liquid_height, stripping), wetted, k_l, k_g
 
 
-def rate_packing(properties, internals, diameter):
-    """PackedHydraulics of every stage at ``diameter`` [m]."""
+def rate_packing(properties, internals, diameter, *, flooding=None):
+    """PackedHydraulics of every stage at ``diameter`` [m] (``flooding``: ``flooding_fraction``
+    at this diameter when already known)."""
     if not diameter > 0.0:
         raise SizingInputError("diameter", f"must be positive, found {diameter:g}")
     packing, area = internals.data, np.pi * diameter ** 2 / 4.0
-    fraction, flood = flooding_fraction(properties, internals, diameter)
+    fraction, flood = flooding_fraction(properties, internals, diameter) if flooding is None else flooding
     gas, liquid = properties.gas_volume_flow / area, properties.liquid_volume_flow / area
     gas_flux, liquid_flux = properties.gas_mass_flow / area, properties.liquid_mass_flow / area
     per_height = np.array([pressure_drop_per_height(
@@ -200,7 +243,7 @@ def rate_packing(properties, internals, diameter):
     hydraulics = PackedHydraulics(
         internals=internals, diameter=float(diameter), fraction_of_flood=fraction, flooding_velocity=flood,
         gas_velocity=gas, liquid_velocity=liquid, pressure_drop_per_height=per_height, hetp=hetp,
-        pressure_drop=per_height * hetp, wetting_rate=wetting, wetted_area=wetted, liquid_coefficient=k_l,
+        stage_pressure_drop=per_height * hetp, wetting_rate=wetting, wetted_area=wetted, liquid_coefficient=k_l,
         gas_coefficient=k_g,
     )
     return _with_warnings(hydraulics)

@@ -13,8 +13,8 @@ below 80-85 % of flood, the range where that chart gives little entrainment (com
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.optimize import brentq
 
+from ..numerics import brent_root
 from .errors import SizingInputError
 from .fair import (
     FLOW_PARAMETER_RANGE,
@@ -41,7 +41,8 @@ class TrayInternals:
     """Tray choices, SI. Defaults are common practice, not optimised.
 
     tray_type : 'sieve' or 'valve'
-    tray_spacing : [m], 0.15-0.9 (Fair's chart)
+    tray_spacing : [m], 0.15-0.9 (Fair's chart); None: chosen from the diameter (``choose_tray_spacing``;
+        the choice steps from 450 to 600 mm at 1.5 m, so near that size more gas can give a smaller column)
     fraction_of_flood : design approach to flood [-], 0 < f < 1
     foaming_factor : F_F [-], 1 for non-foaming, 0.75 moderate, 0.5-0.6 heavy foaming
     hole_area_fraction : holes (or open valve slots) over active area [-], >= 0.06
@@ -54,7 +55,7 @@ class TrayInternals:
     """
 
     tray_type: str = "sieve"
-    tray_spacing: float = 0.6
+    tray_spacing: float | None = 0.6
     fraction_of_flood: float = 0.8
     foaming_factor: float = 1.0
     hole_area_fraction: float = 0.10
@@ -70,7 +71,7 @@ class TrayInternals:
         if self.tray_type not in TRAY_TYPES:
             raise SizingInputError("tray_type", f"must be one of {TRAY_TYPES}, found {self.tray_type!r}")
         low, high = TRAY_SPACING_RANGE
-        if not low <= self.tray_spacing <= high:
+        if self.tray_spacing is not None and not low <= self.tray_spacing <= high:
             raise SizingInputError("tray_spacing", f"{self.tray_spacing:g} m is outside Fair's chart ({low}-{high} m)")
         if not 0.0 < self.fraction_of_flood < 1.0:
             raise SizingInputError("fraction_of_flood", f"must lie between 0 and 1 (0.8 is common), found {self.fraction_of_flood:g}")
@@ -98,7 +99,7 @@ class TrayHydraulics:
     fraction_of_flood: np.ndarray
     flooding_velocity: np.ndarray  # net area [m/s]
     net_velocity: np.ndarray  # [m/s]
-    pressure_drop: np.ndarray  # per tray [Pa]
+    stage_pressure_drop: np.ndarray  # per tray [Pa]
     dry_head: np.ndarray  # [m liquid]
     liquid_head: np.ndarray  # clear liquid [m]
     weir_crest: np.ndarray  # [m]
@@ -111,6 +112,24 @@ class TrayHydraulics:
     @property
     def area(self):
         return np.pi * self.diameter ** 2 / 4.0
+
+
+# Tray spacing chosen from the diameter (common practice, recalled from memory: smaller columns
+# are entered from above and take 450 mm; from about 1.5 m across a worker must reach every tray
+# through manways, which asks for 600 mm).
+SPACING_SMALL, SPACING_LARGE, SPACING_DIAMETER = 0.45, 0.6, 1.5  # m
+
+
+def choose_tray_spacing(properties, internals, diameter=None):
+    """``internals`` with its tray spacing set: as given, or 450 mm when the column (the given
+    ``diameter`` [m], or the design at 450 mm) is below 1.5 m across, else 600 mm."""
+    from dataclasses import replace
+
+    if internals.tray_spacing is not None:
+        return internals
+    small = replace(internals, tray_spacing=SPACING_SMALL)
+    across = design_diameter(properties, small)[0] if diameter is None else diameter
+    return small if across < SPACING_DIAMETER else replace(internals, tray_spacing=SPACING_LARGE)
 
 
 def capacity(properties, internals):
@@ -131,6 +150,7 @@ def column_downcomer_fraction(properties, internals):
 def design_diameter(properties, internals):
     """(diameter [m], 1-based stage that sets it): the smallest diameter at which no stage
     exceeds ``fraction_of_flood``."""
+    internals = choose_tray_spacing(properties, internals)
     downcomer = column_downcomer_fraction(properties, internals)
     needed_area = properties.gas_volume_flow / (internals.fraction_of_flood * capacity(properties, internals) * (1.0 - downcomer))
     diameters = np.sqrt(4.0 * needed_area / np.pi)
@@ -141,7 +161,7 @@ def design_diameter(properties, internals):
 def weir_length(diameter, downcomer_fraction):
     """Chord of a segmental downcomer taking ``downcomer_fraction`` of the column area [m]:
     segment area fraction (theta - sin theta)/(2 pi), chord D sin(theta/2)."""
-    theta = brentq(lambda a: (a - np.sin(a)) / (2.0 * np.pi) - downcomer_fraction, 1e-6, np.pi, xtol=1e-14)
+    theta = brent_root(lambda a: (a - np.sin(a)) / (2.0 * np.pi) - downcomer_fraction, 1e-6, np.pi, xtol=1e-14)
     return float(diameter * np.sin(theta / 2.0))
 
 
@@ -149,6 +169,7 @@ def rate_trays(properties, internals, diameter):
     """TrayHydraulics of every stage at ``diameter`` [m]."""
     if not diameter > 0.0:
         raise SizingInputError("diameter", f"must be positive, found {diameter:g}")
+    internals = choose_tray_spacing(properties, internals, diameter)
     downcomer = column_downcomer_fraction(properties, internals)
     area = np.pi * diameter ** 2 / 4.0
     net_area, active_area = area * (1.0 - downcomer), area * (1.0 - 2.0 * downcomer)
@@ -173,7 +194,7 @@ def rate_trays(properties, internals, diameter):
     hydraulics = TrayHydraulics(
         internals=internals, diameter=float(diameter), downcomer_area_fraction=downcomer, weir_length=weir,
         fraction_of_flood=net_velocity / flood, flooding_velocity=flood, net_velocity=net_velocity,
-        pressure_drop=head * rho_l * GRAVITY, dry_head=dry, liquid_head=clear, weir_crest=crest,
+        stage_pressure_drop=head * rho_l * GRAVITY, dry_head=dry, liquid_head=clear, weir_crest=crest,
         weir_loading=loading, downcomer_backup=backup, downcomer_residence=residence, weep_froude=froude,
     )
     return _with_warnings(hydraulics, properties)

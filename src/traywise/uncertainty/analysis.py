@@ -81,7 +81,8 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     correlations : sequence of (i, j, rho)
     design : design request, optional            Re-solved to its target in every sample
     n_samples : int; seed : int
-    processes : int                              Local worker processes (engine 'local')
+    processes : int                              Worker processes (engine 'local', or the local
+                                                 dask cluster started without a scheduler)
     engine : 'local' or 'dask'; scheduler : str, optional   Address of a dask scheduler; None
                                                  starts a local cluster on 127.0.0.1
     progress : callable, optional                progress(done, total)
@@ -110,7 +111,7 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     else:
         from .distributed import run_dask
 
-        results = run_dask(job, factors, scheduler=scheduler, progress=progress)
+        results = run_dask(job, factors, scheduler=scheduler, progress=progress, workers=processes)
     seconds = time.perf_counter() - began
     data = np.array([r[0] for r in results], dtype=float).reshape(n_samples, len(job.outputs))
     converged = np.array([r[1] for r in results], dtype=bool)
@@ -121,6 +122,9 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     lead = design_output or f"outlet_ppmv:{model.names[key]}"
     column_of = [name for name, _ in job.outputs].index(lead)
     sentence = confidence_sentence(data[:, column_of], converged, design_output=design_output, key=model.names[key])
+    tables = [name for name, kind in zip(model.names, model.equilibrium) if kind == "table"]
+    if tables:
+        sentence = f"{sentence[:-1]}; the equilibrium table of {' and '.join(tables)} is not sampled."
     return UncertaintyResult(inputs, tuple(correlations), seed, n_samples, engine, scores, factors, job.outputs,
                              np.array(nominal, dtype=float), data, converged, tuple(r[2] for r in results),
                              summaries, design_output, model.names[key], sentence, seconds)

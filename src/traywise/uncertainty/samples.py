@@ -13,7 +13,7 @@ Outputs (name, unit), per case:
   outlet_ppmv:KEY [ppmv]               the key solute in the gas leaving (not for a solvent
                                        design, which holds it at the target)
   max_temperature [K]                  the hottest stage
-  heat_removed [W]                     all coolers together (when the case has any)
+  heat_removed [W]                     an isothermal column: the duty that holds its temperatures
 """
 
 import math
@@ -68,7 +68,7 @@ def sample_job(column, model, inputs, *, key, design=None, start=None, settings=
     if design is None or _solved_for(design) != "solvent_flow":  # a solvent design fixes the outlet at its target
         outputs.append((f"outlet_ppmv:{model.names[key]}", "ppmv"))
     outputs.append(("max_temperature", "K"))
-    if np.any(column.heat_removed != 0.0) or (design is not None and _solved_for(design) == "cooler_duty"):
+    if column.mode == "isothermal":  # the duty that holds the stage temperatures (fixed coolers are inputs)
         outputs.append(("heat_removed", "W"))
     return SampleJob(column, model, tuple(inputs), key, design, start, tuple(outputs), settings)
 

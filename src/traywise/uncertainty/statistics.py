@@ -5,8 +5,9 @@ Percentiles are of the converged samples (failed ones are counted apart, never d
 silently). P90 is the value the output stays at or below in 90 % of the samples. Drivers are
 ranked by Spearman's rank correlation between an input's sampled score and the output
 (C. Spearman, Am. J. Psychol. 15 (1904) 72; scipy.stats.spearmanr); the swing is the output's
-change for one standard uncertainty of the input, from a least-squares line in all scores
-(a first-order estimate, beside the rank correlation that needs no linearity).
+change for one standard uncertainty of the input, the slope of the output against that input's
+score alone (a first-order estimate that the other, independent inputs only add noise to;
+beside the rank correlation, which needs no linearity).
 """
 
 import math
@@ -57,8 +58,8 @@ def summarise(name, unit, nominal, values, scores, input_names):
     p10, p50, p90 = percentiles(values)
     drivers = []
     if values.size > 2 and scores.shape[1] and np.ptp(values) > 0.0:
-        design = np.column_stack([np.ones(values.size), scores])
-        slopes = np.linalg.lstsq(design, values, rcond=None)[0][1:]
+        centred = values - values.mean()
+        slopes = (scores - scores.mean(axis=0)).T @ centred / np.maximum(np.sum((scores - scores.mean(axis=0)) ** 2, axis=0), 1e-300)
         for j, input_name in enumerate(input_names):
             rho = spearmanr(scores[:, j], values).statistic
             drivers.append((input_name, float(rho), float(slopes[j])))

@@ -5,9 +5,9 @@ from pathlib import Path
 
 from traywise.case.load import load_case
 from traywise.mesh.newton import solve_column
-from traywise.sizing.stage_properties import stage_properties
+from traywise.sizing.stage_loads import stage_loads
 
-CASES = Path(__file__).resolve().parents[1] / "cases"
+CASES = Path(__file__).resolve().parents[2] / "cases"
 
 
 @functools.cache
@@ -20,4 +20,4 @@ def solved(name):
 @functools.cache
 def demo_stage_properties(name="acid-gas-vent-scrubber.toml"):
     case, solution = solved(name)
-    return stage_properties(solution, case.components, case.key_component)
+    return stage_loads(solution, case.components, case.key_component)

@@ -3,7 +3,7 @@
 Each stage's vapour and liquid are the streams leaving it, at its temperature and pressure.
 Mixing rules (named in ``MIXING_RULES``):
 - gas density: ideal gas, rho = P M / (R T) (absorbers run near atmospheric pressure);
-- gas viscosity: Wilke (J. Chem. Phys. 18 (1950) 517), via chemicals.Wilke;
+- gas viscosity: Wilke (J. Chem. Phys. 18 (1950) 517), via chemicals.Wilke_prefactored;
 - liquid density: ideal mixing of the pure liquids' volumes over the components that have liquid
   data (the solvent and other condensables); dissolved gases add mass but no volume;
 - liquid viscosity: ln mu = sum x_j ln mu_j over the same components (Arrhenius, the
@@ -40,7 +40,7 @@ MIXING_RULES = (
 
 
 @dataclass(frozen=True)
-class StageProperties:
+class StageLoads:
     """Arrays (N,), stage 1 at the top, SI.
 
     gas_mass_flow, liquid_mass_flow [kg/s]; gas_molar_flow, liquid_molar_flow [mol/s];
@@ -91,9 +91,9 @@ class StageProperties:
         return self.liquid_mass_flow / self.gas_mass_flow * np.sqrt(self.gas_density / self.liquid_density)
 
 
-def stage_properties(solution, components, key_component):
-    """StageProperties of a converged ``ColumnSolution``; ``components`` in the solution's order."""
-    from chemicals import Wilke
+def stage_loads(solution, components, key_component):
+    """StageLoads of a converged ``ColumnSolution``; ``components`` in the solution's order."""
+    from chemicals import Wilke_prefactored, Wilke_prefactors
 
     names = list(solution.component_names)
     if key_component not in names:
@@ -131,8 +131,9 @@ def stage_properties(solution, components, key_component):
         warnings.append(f"no gas viscosity for {', '.join(missing)}: left out of the gas viscosity mixing")
     has_gas = np.array(gas_data)
     gas_mu = np.column_stack([d.gas_viscosity(t) for d in data if d.gas_viscosity is not None])
-    gas_viscosity = np.array([Wilke(list(y[j, has_gas] / y[j, has_gas].sum()), list(gas_mu[j]),
-                                    list(1e3 * molar_mass[has_gas])) for j in range(t.size)])
+    prefactors = Wilke_prefactors(list(1e3 * molar_mass[has_gas]))
+    gas_viscosity = np.array([Wilke_prefactored(list(y[j, has_gas] / y[j, has_gas].sum()), list(gas_mu[j]), *prefactors)
+                              for j in range(t.size)])
     gas_density = p * gas_molar_mass / (GAS_CONSTANT * t)
 
     volumes = np.array([np.nan if d.diffusion_volume is None else d.diffusion_volume for d in data])
@@ -150,7 +151,7 @@ def stage_properties(solution, components, key_component):
     association = share @ (factors * molar_mass[liquid])
     liquid_diffusivity = wilke_chang_liquid_diffusivity(t, liquid_viscosity, association, boiling_volume)
 
-    return StageProperties(
+    return StageLoads(
         temperature=t, pressure=p,
         gas_molar_flow=solution.vapour_flow, liquid_molar_flow=solution.liquid_flow,
         gas_mass_flow=solution.vapour_flow * gas_molar_mass, liquid_mass_flow=solution.liquid_flow * liquid_molar_mass,

@@ -1,0 +1,138 @@
+"""Kremser's absorption-factor rating of a column, beside the rigorous and the stepped result.
+
+Each solute on its own inert basis, as in the stepped design (``design``): V' the gas feed less
+the solute, L' the solvent feed less the solute, Y_in and X_in the solute over these. Its
+equilibrium line is straight, Y* = K X with K = y*/x at infinite dilution in the solvent, at
+the isothermal temperature and pressure of the comparison; the absorption factor is
+A = (L'/V') / K. With the rigorous column's theoretical stages N, Kremser's equation gives the
+gas leaving the top, Y_out = Y_in - phi(A, N) (Y_in - K X_in); for the key solute it also gives
+the stages that reach the rigorous removal (None where no number of stages can). Exact for a
+dilute solute and constant flows; how far the rigorous result lies from it measures the heat
+effects, the curvature of the equilibrium line and the changing flows together.
+
+References
+----------
+A. Kremser, Natl. Petroleum News 22 (1930) 43; M. Souders, G. G. Brown, Ind. Eng. Chem. 24
+(1932) 519; Seader, Henley & Roper, Separation Process Principles, 3rd ed., Wiley 2011, ch. 6.
+"""
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from ..errors import TraywiseError
+from .equilibrium_curve import mole_ratio_equilibrium
+from .kremser import approach_to_equilibrium, kremser_gas_outlet, kremser_stages
+
+
+@dataclass(frozen=True)
+class KremserSolute:
+    """Kremser's result for one solute (mole ratios on its inert basis [mol/mol]).
+
+    name : str
+    k_value : float             K = y*/x at infinite dilution, the slope of Y* = K X [-]
+    liquid_to_gas_ratio : float L'/V' [mol/mol]
+    absorption_factor : float   A = (L'/V') / K [-]
+    gas_ratio_in, gas_ratio_out, liquid_ratio_in : float   Y_in, Y_out, X_in [mol/mol]
+    """
+
+    name: str
+    k_value: float
+    liquid_to_gas_ratio: float
+    absorption_factor: float
+    gas_ratio_in: float
+    gas_ratio_out: float
+    liquid_ratio_in: float
+
+    @property
+    def fraction_absorbed(self):
+        """1 - Y_out / Y_in [-]."""
+        return 1.0 - self.gas_ratio_out / self.gas_ratio_in
+
+    @property
+    def outlet_mole_fraction(self):
+        """Solute over solute and inert gas at the top, Y_out / (1 + Y_out) [-]."""
+        return self.gas_ratio_out / (1.0 + self.gas_ratio_out)
+
+
+@dataclass(frozen=True)
+class KremserRating:
+    """Kremser's rating of the rigorous column.
+
+    key : str                        The key solute
+    temperature, pressure : float    Where K was taken [K], [Pa]
+    theoretical_stages : float       N rated [-]
+    solutes : tuple of KremserSolute
+    stages_for_rigorous_removal : float or None   Stages Kremser's equation needs for the key's
+        rigorous removal [-]; None where no number of stages reaches it
+    """
+
+    key: str
+    temperature: float
+    pressure: float
+    theoretical_stages: float
+    solutes: tuple
+    stages_for_rigorous_removal: float | None
+
+
+def kremser_rating(model, key, solutes, *, gas_flows, solvent_flows, temperature, pressure, n_stages,
+                   key_fraction_absorbed):
+    """Rate a column by Kremser's equation, solute by solute.
+
+    Parameters
+    ----------
+    model : PropertyModel
+    key : str                       The key solute
+    solutes : sequence of str       The solutes to rate (the key among them or not)
+    gas_flows, solvent_flows : array_like (c,)   Feeds in model order [mol/s]
+    temperature : float             [K]
+    pressure : float                [Pa]
+    n_stages : float                Theoretical stages N > 0 [-]
+    key_fraction_absorbed : float   The key's rigorous fraction absorbed [-]
+
+    Returns
+    -------
+    KremserRating   Solutes Kremser's equation cannot rate (no gas feed of them, a K that is
+    not finite and positive) are left out.
+    """
+    gas, solvent = np.asarray(gas_flows, dtype=float), np.asarray(solvent_flows, dtype=float)
+    rated = []
+    for name in solutes:
+        solute = _rate(model, name, gas, solvent, temperature, pressure, n_stages)
+        if solute is not None:
+            rated.append(solute)
+    stages = None
+    key_solute = next((s for s in rated if s.name == key), None)
+    if key_solute is not None and 0.0 < key_fraction_absorbed < 1.0:
+        stages = _stages_for(key_solute, key_fraction_absorbed)
+    return KremserRating(key, float(temperature), float(pressure), float(n_stages), tuple(rated), stages)
+
+
+def _rate(model, name, gas, solvent, temperature, pressure, n_stages):
+    i = model.names.index(name)
+    inert_gas, solvent_free = gas.sum() - gas[i], solvent.sum() - solvent[i]
+    if not (gas[i] > 0.0 and inert_gas > 0.0 and solvent_free > 0.0):
+        return None
+    try:
+        k_value = mole_ratio_equilibrium(model, name, temperature=temperature, pressure=pressure,
+                                         solvent_mole_fractions=solvent).k_value
+    except TraywiseError:  # no finite K > 0 (an insoluble gas): nothing for Kremser to rate
+        return None
+    ratio = solvent_free / inert_gas
+    absorption = ratio / k_value
+    gas_in, liquid_in = gas[i] / inert_gas, solvent[i] / solvent_free
+    gas_out = kremser_gas_outlet(gas_in, liquid_in, equilibrium_slope=k_value, absorption_factor=absorption,
+                                 n_stages=n_stages)
+    return KremserSolute(name, float(k_value), float(ratio), float(absorption), float(gas_in), float(gas_out),
+                         float(liquid_in))
+
+
+def _stages_for(solute, fraction_absorbed):
+    """Kremser's stages for a fraction absorbed of the solute, or None where unreachable."""
+    gas_out = solute.gas_ratio_in * (1.0 - fraction_absorbed)
+    try:
+        phi = approach_to_equilibrium(solute.gas_ratio_in, gas_out, liquid_ratio_in=solute.liquid_ratio_in,
+                                      equilibrium_slope=solute.k_value)
+        return float(kremser_stages(solute.absorption_factor, phi))
+    except TraywiseError:  # the gas leaves richer than equilibrium with the solvent allows, or a pinch
+        return None

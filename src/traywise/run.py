@@ -1,0 +1,213 @@
+"""One run of a case, the only orchestration step: solve (designed first when the case has a
+``[design]`` table), then every side result beside the solution, each computed once.
+
+``run_case(case, settings) -> CaseRun`` is what ``traywise run``, ``traywise compare`` and the
+Python API (``traywise.api``) call; the reports and the command line only read the frozen
+``CaseRun`` it returns. A run stands or falls by its rigorous column alone: a solve that does
+not converge raises ``ConvergenceError`` and an unreachable design target ``TargetNotReached``;
+a side result (the isothermal comparison, Kremser's rating, the x-y diagram's design) that
+cannot be had is None with its reason among ``CaseRun.notes``, and never fails the run.
+Library warnings raised on the way (a numpy RuntimeWarning, say) are told in our words among
+the notes instead of reaching the terminal.
+
+To add a side result: give ``CaseRun`` a field with the default None, compute it in
+``complete_run`` through ``_side`` (which turns its failure into a note), and let a report module
+render it. ``sweep_case`` runs the solver over a range of one input for ``traywise sweep``.
+
+Only the standard library is imported at module level, so that the command line stays fast.
+"""
+
+import warnings
+from dataclasses import dataclass
+
+
+@dataclass(frozen=True)
+class RunSettings:
+    """What a run computes besides the rigorous column.
+
+    solver : SolverSettings or None   Iteration settings (None: traywise.mesh.newton's defaults)
+    side_results : bool               The comparison and Kremser's rating (outer loops that read
+                                      only the solution switch them off)
+    xy_diagram : bool                 The inert-basis design of the case's ``xy_solute``, drawn
+                                      on the x-y diagram (needed only when plots are drawn)
+    """
+
+    solver: object = None
+    side_results: bool = True
+    xy_diagram: bool = True
+
+
+@dataclass(frozen=True)
+class CaseRun:
+    """Everything one run of a case computed; read by the reports, the CLI and the API.
+
+    case : Case                   The case as loaded (or as changed, ``Case.with_changes``)
+    solution : ColumnSolution     The converged rigorous column (of the designed column, with
+                                  a design)
+    design : DesignOutcome or None     With a ``[design]`` table
+    comparison : Comparison or None    The isothermal inert-basis comparison (its ``reason``
+                                       says why it gives no stage count, when it gives none)
+    kremser : KremserRating or None    Kremser's rating of the same column
+    sizing : ColumnSizing or None      The column sized from the solution, when the case has
+                                       an ``[internals]`` table
+    xy_design : InertBasisDesign or None   Drawn on the x-y diagram (the classic design of
+                                           ``case.xy_solute``)
+    notes : tuple of str          Why a side result is missing; library warnings in our words
+    """
+
+    case: object
+    solution: object
+    design: object = None
+    comparison: object = None
+    kremser: object = None
+    xy_design: object = None
+    notes: tuple = ()
+    sizing: object = None
+
+    @property
+    def warnings(self):
+        """Every warning of the run: the case's, the solution's, the design's, then the notes."""
+        design = () if self.design is None else tuple(self.design.warnings)
+        return (*self.case.warnings, *self.solution.warnings, *design, *self.notes)
+
+
+def run_case(case, settings=RunSettings()):
+    """Solve ``case`` (designing it first when it has a ``[design]`` table) and add the side results.
+
+    Returns
+    -------
+    CaseRun
+
+    Raises
+    ------
+    ConvergenceError   the rigorous column did not converge
+    TargetNotReached   a design target cannot be met by adjusting the chosen input
+    """
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("default")
+        solver = _solver_settings(settings)
+        design = None
+        if case.design is not None:
+            from .design.plan import carry_out_design
+
+            design = carry_out_design(case.column, case.model, case.design, overall_efficiency=case.overall_efficiency,
+                                      settings=solver)
+            solution = design.result.solution
+        else:
+            from .mesh.newton import solve_column
+
+            solution = solve_column(case.column, case.model, settings=solver)
+    run = complete_run(case, solution, design=design, settings=settings)
+    notes = tuple(note for note in library_warnings(caught) if note not in run.notes)
+    return CaseRun(**{**run.__dict__, "notes": run.notes + notes})
+
+
+def complete_run(case, solution, *, design=None, settings=RunSettings()):
+    """The ``CaseRun`` of a converged ``solution`` of ``case``: the sizing (when the case has an
+    ``[internals]`` table; its input errors are the case's, ``CaseError``) and the side results."""
+    sizing, resized = _size(case, solution)
+    if resized is not None:  # stage pressures from the sized pressure drop: a new solution
+        solution = resized
+    notes = []
+    comparison = kremser = xy = None
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("default")
+        if settings.side_results:
+            comparison = _side("the isothermal inert-basis comparison", notes,
+                               lambda: _comparison(case, solution, case.key_component))
+        if comparison is not None:
+            kremser = _side("Kremser's rating", notes, lambda: _kremser(case, solution, comparison))
+        if comparison is not None and settings.xy_diagram:
+            if case.xy_solute == comparison.key:
+                xy = comparison.isothermal_design
+            else:
+                other = _side(f"the x-y diagram's design of {case.xy_solute}", notes,
+                              lambda: _comparison(case, solution, case.xy_solute))
+                xy = None if other is None else other.isothermal_design
+    notes.extend(note for note in library_warnings(caught) if note not in notes)
+    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing)
+
+
+def sweep_case(case, request, *, processes=1, progress=None, settings=RunSettings()):
+    """Solve the column of ``case`` at every point of ``request`` (a ``traywise.case.sweep``
+    SweepRequest); return the SweepTable of ``traywise.design.sweep`` (failed points marked)."""
+    from .design.sweep import sweep
+
+    return sweep(case.column, case.model, variable=request.design_variable, values=request.values,
+                 outputs=request.outputs, stage=request.cooler_stage, processes=processes, progress=progress,
+                 settings=_solver_settings(settings))
+
+
+def library_warnings(caught):
+    """Warnings a library raised (``warnings.catch_warnings(record=True)``), each once, as
+    sentences of ours naming where they arose; they accompany results that passed traywise's
+    own checks (a result that fails them is never returned)."""
+    texts = []
+    for record in caught:
+        text = (f"a library reported '{' '.join(str(record.message).split())}' ({record.category.__name__} in "
+                f"{record.filename}, line {record.lineno}); traywise's own checks passed, so the results stand")
+        if text not in texts:
+            texts.append(text)
+    return texts
+
+
+def _side(what, notes, compute):
+    """``compute()``, or None with a note saying why: a side result never fails a converged run,
+    whatever goes wrong in it (the note names the error so that a fault is still seen)."""
+    try:
+        return compute()
+    except Exception as error:  # noqa: BLE001 -- deliberately broad: the rigorous result must stand
+        notes.append(f"{what} could not be computed ({type(error).__name__}: {error}); the rigorous results stand")
+        return None
+
+
+def _size(case, solution):
+    """(sizing, new solution or None): the column sized from the solution when the case has an
+    [internals] table, else (None, None); with ``pressure_drop_from_sizing`` the column solved again
+    at the stage pressures of its sized pressure drop. The sizing's input errors are reported
+    against the case file's [internals] keys."""
+    given = getattr(case, "internals", None)
+    if given is None:
+        return None, None
+    from .errors import CaseError
+    from .sizing.column import size_column
+    from .sizing.errors import SizingInputError
+
+    arguments = {"key_component": case.key_component, "diameter": given.diameter,
+                 "overall_efficiency": case.overall_efficiency}
+    try:
+        if given.pressure_drop_from_sizing:
+            from .sizing.pressure_loop import size_with_stage_pressures
+
+            loop = size_with_stage_pressures(case.column, case.model, given.internals, start=solution, **arguments)
+            return loop.sizing, loop.solution
+        return size_column(solution, case.model.components, given.internals, **arguments), None
+    except SizingInputError as error:
+        raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
+
+
+def _comparison(case, solution, key):
+    from .inert_basis.comparison import compare
+
+    return compare(solution, case.model, key, solvent_index=case.model.names.index(case.solvent), solutes=case.solutes)
+
+
+def _kremser(case, solution, comparison):
+    from .inert_basis.kremser_rating import kremser_rating
+
+    column = solution.column
+    key = comparison.key
+    return kremser_rating(
+        case.model, key, [solute.name for solute in comparison.solutes], gas_flows=column.gas.component_flows,
+        solvent_flows=column.solvent.component_flows, temperature=comparison.temperature,
+        pressure=comparison.pressure, n_stages=comparison.rigorous_stages,
+        key_fraction_absorbed=float(solution.fraction_absorbed[case.model.names.index(key)]),
+    )
+
+
+def _solver_settings(settings):
+    if settings.solver is not None:
+        return settings.solver
+    from .mesh.newton import SolverSettings
+
+    return SolverSettings()
