@@ -414,6 +414,7 @@ def test_the_readme_lists_every_key():
     from traywise.case.design import DESIGN_KEYS
     from traywise.case.equilibrium_tables import ISOTHERM_KEYS, TABLE_KEYS
     from traywise.case.feeds import STREAM_KEYS
+    from traywise.case.gas_model import GAS_MODEL_KEYS
     from traywise.case.internals import INTERNALS_KEYS
     from traywise.case.liquid_model import LIQUID_MODEL_KEYS
     from traywise.case.load import REPORT_KEYS, TOP_KEYS
@@ -421,7 +422,7 @@ def test_the_readme_lists_every_key():
 
     text = README.read_text(encoding="utf-8")
     tables = (TOP_KEYS, COMPONENT_KEYS, STREAM_KEYS, COLUMN_KEYS, COOLER_KEYS, SIDE_DRAW_KEYS, REPORT_KEYS, DESIGN_KEYS,
-              SWEEP_KEYS, TABLE_KEYS, ISOTHERM_KEYS, LIQUID_MODEL_KEYS, INTERNALS_KEYS)
+              SWEEP_KEYS, TABLE_KEYS, ISOTHERM_KEYS, LIQUID_MODEL_KEYS, INTERNALS_KEYS, GAS_MODEL_KEYS)
     for key in {key for table in tables for key in table}:
         assert re.search(rf"`[^`\n]*\b{key}\b[^`\n]*`", text), key  # `key`, or in a heading `[[column.key]]`
 

@@ -3,6 +3,7 @@ components can be added by name or CAS number."""
 
 import pytest
 
+from traywise.databank import binary
 from traywise.databank.build import DEFAULT_COMPONENTS, build_component, default_directory, identify
 from traywise.properties.library import load_component
 
@@ -12,6 +13,12 @@ def test_library_file_is_reproduced_by_the_build_script(name):
     # A difference means the file was edited by hand, or the libraries' data changed: rebuild and review.
     file_name, text = build_component(name)
     assert (default_directory() / file_name).read_text(encoding="utf-8") == text
+
+
+def test_binary_parameter_file_is_reproduced_by_the_build_script():
+    directory = default_directory()
+    text = binary.kij_text(sorted(directory.glob("*.toml")))
+    assert (directory / binary.FILE).read_text(encoding="utf-8") == text
 
 
 def test_component_by_cas_number_is_named_like_by_name():

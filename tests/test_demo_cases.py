@@ -30,6 +30,7 @@ DEMOS = {
     "acid-gas-vent-scrubber",
     "ammonia-recovery",
     "ammonia-scrubber-design",
+    "lean-oil-absorber",
     "solvent-recovery-dryer-air",
     "sour-gas-water-wash",
     "sulfur-dioxide-plant-table",

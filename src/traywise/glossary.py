@@ -76,6 +76,7 @@ GLOSSARY = {
     "k_value": ("-", "K of the key used by the inert-basis design"),
     "dlnk_dt": ("1/K", "d ln K / dT at fixed composition, (N, c)"),
     "dlnk_dx": ("-", "d ln K_i / d x_j at fixed T, (N, c, c), or None"),
+    "dlnk_dy": ("-", "d ln K_i / d y_j at fixed T (a real gas at given vapour mole fractions), (N, c, c), or None"),
     "h_vapour": ("J/mol", "partial molar enthalpy in the vapour, reference ideal gas at 298.15 K, (N, c)"),
     "h_liquid": ("J/mol", "partial molar enthalpy in the liquid, same reference, (N, c)"),
     "dh_vapour_dt": ("J/(mol K)", "temperature derivative of h_vapour"),

@@ -5,6 +5,7 @@ objects point by point (what the solver would do without stored coefficients).
 Run: python tests/benchmarks/bench_properties.py
 """
 
+import math
 import time
 
 import numpy as np
@@ -46,6 +47,17 @@ class PointByPoint:
         self.liquid_at = {i: self._liquid_reference(i) for i in model.index["raoult"]}
 
     @staticmethod
+    def _henry(henry, t):
+        """H [Pa] at t [K]: chemicals' Henry_pressure for the 'ln_h' form; the IAPWS guideline's
+        form point by point with the IAPWS-95 saturation pressure of chemicals (IAPWS G7-04)."""
+        if henry.form == "ln_h":
+            return Henry_pressure(t, *henry.coefficients)
+        a, b, c = henry.coefficients
+        tr = t / 647.096
+        tau = 1.0 - tr
+        return Psat_IAPWS(t) * math.exp(a / tr + b * tau**0.355 / tr + c * tr**-0.41 * math.exp(tau))
+
+    @staticmethod
     def _vapour_pressure(component):
         """Psat(T) [Pa] by the file's equation: IAPWS-IF97 (chemicals) or DIPPR 101 (thermo)."""
         if component.vapour_pressure.form == "iapws_if97":
@@ -71,7 +83,7 @@ class PointByPoint:
                     h_l[j, i] = h_at_t_v + self.liquid[i].T_dependent_property_integral(t_v, t)
                     cp_l[j, i] = self.liquid[i].T_dependent_property(t)
                 else:
-                    k[j, i] = Henry_pressure(t, *component.henry_in_water.coefficients) / p
+                    k[j, i] = self._henry(component.henry_in_water, t) / p
                     h_l[j, i] = h_v[j, i] + component.henry_in_water.solution_enthalpy(t)
                     henry = component.henry_in_water  # d(dH_sol)/dT by central difference
                     cp_l[j, i] = cp_v[j, i] + (henry.solution_enthalpy(t + 1e-3) - henry.solution_enthalpy(t - 1e-3)) / 2e-3

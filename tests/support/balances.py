@@ -11,9 +11,10 @@ def _stream_enthalpy(model, phase, temperature, pressure, flows):
     total = flows.sum()
     if total <= 0.0:
         return 0.0
-    props = model.evaluate(np.array([temperature]), np.array([pressure]), (flows / total)[None, :])
-    h = props.h_vapour if phase == "vapour" else props.h_liquid
-    return float(h[0] @ flows)
+    t, p, fractions = np.array([temperature]), np.array([pressure]), (flows / total)[None, :]
+    if phase == "vapour":  # a real gas's enthalpy depends on the vapour composition
+        return float(model.evaluate(t, p, vapour_mole_fractions=fractions).h_vapour[0] @ flows)
+    return float(model.evaluate(t, p, fractions).h_liquid[0] @ flows)
 
 
 def recomputed_closure(solution, model):

@@ -60,6 +60,7 @@ NEEDS = {
         ("vapour_pressure", "vapour_pressure (at vapour_pressure_temperature) or normal_boiling_point"),
     ),
     "table": (),
+    "eos": (("critical_temperature", "a library component (critical constants and acentric factor)"),),
 }
 
 

@@ -18,6 +18,7 @@ from .column import read_column
 from .components import read_components
 from .design import read_design
 from .feeds import STREAM_KEYS, read_stream
+from .gas_model import read_gas_model
 from .internals import read_internals
 from .quantities import case_error
 from .reader import Section, where
@@ -30,6 +31,7 @@ TOP_KEYS = (
     "components",
     "component",
     "liquid_model",
+    "gas_model",
     "solvent",
     "key_component",
     "solutes",
@@ -44,8 +46,8 @@ TOP_KEYS = (
 )
 REPORT_KEYS = ("plots", "xy_solute")
 LONGEST_INTEGER = 4301  # digits: Python refuses to turn a longer text into an int (sys.get_int_max_str_digits)
-LIQUID_KINDS = ("raoult", "nonvolatile")  # equilibrium models of components that can be the solvent
-SOLUBLE_KINDS = ("henry", "raoult", "activity", "table")  # models with a finite, non-zero K: candidates for the key
+LIQUID_KINDS = ("raoult", "nonvolatile", "eos")  # equilibrium models of components that can be the solvent
+SOLUBLE_KINDS = ("henry", "raoult", "activity", "table", "eos")  # models with a finite, non-zero K: candidates for the key
 
 
 @dataclass(frozen=True, eq=False)
@@ -187,6 +189,8 @@ class _CaseBuilder:
         for (_, _, stream), side_flow in zip(column_input.side_feeds, side_flows):
             stream.check_total(side_flow)
         column = self._column(column_input, gas, liquid, flows, side_flows)
+        gas_model, gas_warnings = read_gas_model(top, model, flows["gas_feed"], column.pressures, gas.temperature)
+        self.warnings.extend(gas_warnings)
         self._pressure_warnings(gas, liquid, column)
         self._other_warnings(solvent, column_input, column)
         report = top.table("report", REPORT_KEYS) or Section({}, "report", top.file)
@@ -213,6 +217,7 @@ class _CaseBuilder:
         }
         if components.liquid_model is not None:
             echo["liquid_model"] = components.liquid_model
+        echo["gas_model"] = gas_model
         if design is not None:
             echo["design"] = design.echo()
         if internals is not None:

@@ -1,8 +1,11 @@
 """Generate the component library: one TOML file per component in components/.
 
-    python -m traywise.databank.build                  rebuild the 13 default components
+    python -m traywise.databank.build                  rebuild the 22 default components
     python -m traywise.databank.build "1-butanol" 71-43-2   add or rebuild components by name or CAS
     python -m traywise.databank.build --output DIR ...      write somewhere else (for audits)
+
+Each run also rewrites binary/peng-robinson-kij.toml for the component files in the folder
+(``traywise.databank.binary``).
 
 Each file names, per value, the library that shipped it and the publication behind it; see
 ``traywise.databank.tables`` for the choices and checks. Default equilibrium model with water as
@@ -21,21 +24,27 @@ from chemicals.identifiers import search_chemical
 
 from ..properties.constants import T_REFERENCE
 from ..properties.library import library_directory
+from . import binary as binary_kij
 from . import tables, transport
+from .critical import critical_tables
+from .partial_volumes import partial_volume_fields
 from .toml_text import component_text
 
 DEFAULT_COMPONENTS = (
     "water", "nitrogen", "oxygen", "argon", "carbon dioxide", "sulfur dioxide", "hydrogen sulfide",
     "ammonia", "hydrogen chloride", "methane", "acetone", "methanol", "ethanol",
+    "hydrogen", "carbon monoxide", "ethane", "propane", "n-butane", "chlorine", "benzene", "toluene",
+    "n-hexadecane",
 )
 # Formulas as engineers write them (chemicals gives Hill order, e.g. 'O2S'), by CAS number.
 FORMULAS = {
     "7446-09-5": "SO2", "7664-41-7": "NH3", "7647-01-0": "HCl", "7783-06-4": "H2S",
-    "67-64-1": "CH3COCH3", "67-56-1": "CH3OH", "64-17-5": "C2H5OH",
+    "67-64-1": "CH3COCH3", "67-56-1": "CH3OH", "64-17-5": "C2H5OH", "108-88-3": "C6H5CH3",
 }
 ALIASES = {
     "7446-09-5": ["sulphur dioxide"], "7783-06-4": ["hydrogen sulphide"], "67-64-1": ["propanone"],
     "67-56-1": ["methyl alcohol"], "64-17-5": ["ethyl alcohol"], "7440-37-1": ["Ar"],
+    "106-97-8": ["butane"], "108-88-3": ["methylbenzene"],
 }
 HEADER = (
     "traywise component file: {name} ({formula}, CAS {cas}).",
@@ -43,8 +52,9 @@ HEADER = (
     "libraries and publications named in [sources]. Do not edit: change the build script and rebuild.",
     "SI units; every number has its unit beside it (K, Pa, J/mol, J/(mol K), kg/mol). Format: components/README.md.",
 )
-TABLE_ORDER = ("molar_mass", "melting_point", "ideal_gas_cp", "liquid_cp", "vapour_pressure",
-               "heat_of_vaporisation", "henry_in_water") + transport.TABLE_ORDER
+TABLE_ORDER = ("molar_mass", "melting_point", "critical_temperature", "critical_pressure", "acentric_factor",
+               "ideal_gas_cp", "liquid_cp", "vapour_pressure", "heat_of_vaporisation", "henry_in_water",
+               "partial_molar_volume_in_water") + transport.TABLE_ORDER
 
 
 def default_directory():
@@ -80,6 +90,10 @@ def build_component(text):
         found["henry_in_water"] = tables.henry_in_water(cas)
     found.update(transport.transport_tables(cas, hill, liquid_at_25c))  # for sizing only
     equilibrium = _equilibrium(name, cas, found)
+    found.update({key: tables.Table(*table) for key, table in critical_tables(cas).items()})
+    volume = partial_volume_fields(cas) if found.get("henry_in_water") is not None else None
+    if volume is not None:
+        found["partial_molar_volume_in_water"] = tables.Table(*volume)
     found = {key: found[key] for key in TABLE_ORDER if found.get(key) is not None}
     aliases = ALIASES.get(cas, []) + ([hill] if hill != formula else [])
     identity = {"name": name, "formula": formula, "cas": cas}
@@ -106,7 +120,7 @@ def _equilibrium(name, cas, found):
 
 
 def main(argv=None):
-    """Command line: build the named components (default: the 13 of the standard library)."""
+    """Command line: build the named components (default: the standard library)."""
     parser = argparse.ArgumentParser(prog="python -m traywise.databank.build", description=__doc__.split("\n")[0])
     parser.add_argument("components", nargs="*", help="names or CAS numbers (default: the standard library)")
     parser.add_argument("--output", type=Path, default=None, help="folder to write (default: components/)")
@@ -117,6 +131,10 @@ def main(argv=None):
         name, content = build_component(text)
         (directory / name).write_text(content, encoding="utf-8")
         print(f"wrote {directory / name}")
+    binary = directory / binary_kij.FILE
+    binary.parent.mkdir(exist_ok=True)
+    binary.write_text(binary_kij.kij_text(sorted(directory.glob("*.toml"))), encoding="utf-8")
+    print(f"wrote {binary}")
     return 0
 
 

@@ -28,6 +28,7 @@ from ..properties.constants import T_REFERENCE, ZERO_CELSIUS
 from ..properties.correlations import dippr101
 from . import citations
 from .fits import fit_stable_polynomial
+from .iapws_henry import iapws_henry_fields
 
 WATER = WATER_CAS
 HENRY_RANGE = (273.15, 353.15)  # K; judgement, see HENRY_RANGE_NOTE
@@ -84,6 +85,9 @@ DISSOCIATION_NOTES = {
     "included.",
     "7783-06-4": "Physical Henry's constant of molecular H2S; dissociation is small in pure water but not "
     "included.",
+    "7782-50-5": "Physical Henry's constant of molecular Cl2; in water chlorine hydrolyses to HOCl and HCl, "
+    "which raises its apparent solubility several-fold in dilute solution; that reaction is not included "
+    "(limitation).",
 }
 
 
@@ -277,7 +281,14 @@ def heat_of_vaporisation(cas):
 
 
 def henry_in_water(cas):
-    """Henry's constant (volatility form, Pa): Sander's, or a measurement paper's (PUBLISHED_HENRY)."""
+    """Henry's constant (volatility form, Pa): the IAPWS guideline's where it covers the gas, else
+    Sander's, or a measurement paper's (PUBLISHED_HENRY)."""
+    guideline = iapws_henry_fields(cas, sander_coefficients(cas))
+    if guideline is not None:
+        fields, sources = guideline
+        if cas in DISSOCIATION_NOTES:
+            fields["note"] += " " + DISSOCIATION_NOTES[cas]
+        return Table(fields, sources)
     t_range, notes = HENRY_RANGE, [HENRY_RANGE_NOTE]
     if cas in PUBLISHED_HENRY:
         coefficients, t_range, source, citation, note = PUBLISHED_HENRY[cas]

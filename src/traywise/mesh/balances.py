@@ -19,7 +19,8 @@ def build_solution(equations, x, iterations, norm, tolerance, props=None):
     column, model = equations.column, equations.model
     v, l, t = (a.copy() for a in equations.split(x))
     if props is None:
-        props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True))
+        y = v / np.maximum(v.sum(axis=1, keepdims=True), 1e-300)  # a vapour-free stage is refused below
+        props = model.evaluate(t, equations.pressure, l / l.sum(axis=1, keepdims=True), y)
     _check_physical(equations, v, l, props, iterations, norm)
     _check_state(model, l, t, iterations, norm)
     heat_removed = equations.heat_removed(v, l, props)
@@ -109,12 +110,14 @@ def _heat_breakdown(equations, v, l, t, heat_removed):
     p_top, p_bottom = equations.pressure[[0]], equations.pressure[[-1]]
 
     # one evaluation for four states: gas in, gas out (top), solvent in, liquid out (bottom);
-    # the vapour enthalpies do not depend on the liquid composition given with them
+    # the vapour enthalpies take the vapour compositions (a real gas), not the liquid's given with them
     x_solvent = solvent_in / solvent_in.sum()
+    y_in, y_top = gas_in / gas_in.sum(), v[0] / v[0].sum()
     props = model.evaluate(
         np.array([column.gas.temperature, t[0], column.solvent.temperature, t[-1]]),
         np.r_[p_bottom, p_top, p_top, p_bottom],
         np.array([x_solvent, x_solvent, x_solvent, l[-1] / l[-1].sum()]),
+        np.array([y_in, y_top, y_in, y_in]),
     )
     h_v_gas_in, h_v_top = props.h_vapour[0], props.h_vapour[1]
     h_l_solvent_in, h_l_bottom = props.h_liquid[2], props.h_liquid[3]

@@ -107,7 +107,7 @@ class StageEquations:
         v, l, t = self.split(x)
         big_v, big_l = v.sum(axis=1), l.sum(axis=1)
         if props is None:
-            props = self.model.evaluate(t, self.pressure, l / big_l[:, None])
+            props = self.model.evaluate(t, self.pressure, l / big_l[:, None], v / big_v[:, None])
         liquid_in, vapour_in = self._entering(v, l)
         material = l + v - liquid_in - vapour_in - self.liquid_feed - self.vapour_feed
         eta = self.murphree[:, None]
@@ -174,6 +174,10 @@ class StageEquations:
             # K_i(x): dK_i/dl_k = K_i sum_m dlnK_i/dx_m (delta_mk - x_m) / L
             dlnk_dl = (props.dlnk_dx - np.einsum("sim,sm->si", props.dlnk_dx, x_l)[:, :, None]) / big_l[:, None, None]
             de_dl -= (big_v[:, None] * eta * k * x_l)[:, :, None] * dlnk_dl
+        if props.dlnk_dy is not None:  # a real gas: K_i(y), y = v / V, as for x above
+            y_v = v / big_v[:, None]
+            dlnk_dv = (props.dlnk_dy - np.einsum("sim,sm->si", props.dlnk_dy, y_v)[:, :, None]) / big_v[:, None, None]
+            diagonal[:, es, vs] -= (big_v[:, None] * eta * k * x_l)[:, :, None] * dlnk_dv
         diagonal[:, es, ls] = de_dl
         diagonal[:, es, ts] = de_dt
         v_below = v[1:].sum(axis=1)

@@ -5,17 +5,20 @@ A ``Component`` holds SI numbers and the source of each; it is built from a libr
 another component with some properties replaced (``dataclasses.replace``).
 """
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 
 import numpy as np
 
 from .constants import GAS_CONSTANT, T_REFERENCE
 from .correlations import (
+    WATER_CRITICAL_TEMPERATURE,
     dippr101,
     henry_solution_enthalpy,
+    iapws_henry,
     iapws_if97_saturation_pressure,
     ln_henry,
     offset_scale,
+    solution_enthalpy_from_slope,
     stable_polynomial,
     stable_polynomial_antiderivative,
 )
@@ -24,7 +27,7 @@ WATER_CAS = "7732-18-5"
 EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a component's own default model
 # Models a property model can also give a component: they need more than the component's data
 # (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
-MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table")
+MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos")
 
 
 @dataclass(frozen=True)
@@ -81,23 +84,49 @@ class VapourPressure:
         return dippr101(temperature, *self.coefficients)[:2]
 
 
+HENRY_FORMS = ("ln_h", "iapws_2004")
+
+
 @dataclass(frozen=True)
 class HenryConstant:
-    """Henry's-law constant in water, volatility form H = p_i/x_i [Pa]:
-    ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2 (coefficients a..f)."""
+    """Henry's-law constant in water, volatility form H = p_i/x_i [Pa], in one of two forms:
+
+    'ln_h'        ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2 (coefficients a..f);
+    'iapws_2004'  the IAPWS guideline's ln(H/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau)
+                  (+ offset): coefficients (A, B, C, offset), ``correlations.iapws_henry``.
+    """
 
     coefficients: tuple
     t_min: float
     t_max: float
     source: str
+    form: str = "ln_h"
+
+    def terms(self, temperature):
+        """(ln(H/Pa), dln(H)/dT [1/K], dH_sol/R [K], d(dH_sol/R)/dT [-]) at temperature [K]."""
+        if self.form == "iapws_2004":
+            ln_h, dln_h, d2ln_h = iapws_henry(temperature, *self.coefficients)
+            return ln_h, dln_h, *solution_enthalpy_from_slope(temperature, dln_h, d2ln_h)
+        return (*ln_henry(temperature, *self.coefficients), *henry_solution_enthalpy(temperature, *self.coefficients))
 
     def ln_constant(self, temperature):
         """(ln(H/Pa), dln(H)/dT [1/K])."""
-        return ln_henry(temperature, *self.coefficients)
+        return self.terms(temperature)[:2]
+
+    def scaled(self, value_factor, enthalpy_factor, t0):
+        """The same constant with H(t0) times value_factor and the enthalpy of solution at t0 [K]
+        times enthalpy_factor: ln H + ln(value_factor) + extra (1/T - 1/t0), extra = (f - 1) dH_sol(t0)/R."""
+        extra = (enthalpy_factor - 1.0) * float(self.terms(t0)[2])
+        shift = float(np.log(value_factor)) - extra / t0
+        if self.form == "iapws_2004":  # A/Tr = A Tc/T carries the 1/T term
+            a, b, c, offset = self.coefficients
+            return replace(self, coefficients=(a + extra / WATER_CRITICAL_TEMPERATURE, b, c, offset + shift))
+        a, b, *rest = self.coefficients
+        return replace(self, coefficients=(a + shift, b + extra, *rest))
 
     def solution_enthalpy(self, temperature):
         """Enthalpy of solution implied by the temperature dependence (van 't Hoff) [J/mol]."""
-        return GAS_CONSTANT * henry_solution_enthalpy(temperature, *self.coefficients)[0]
+        return GAS_CONSTANT * self.terms(temperature)[2]
 
 
 @dataclass(frozen=True)
@@ -130,6 +159,10 @@ class Component:
     heat_of_vaporisation: Quantity | None = None  # J/mol at its temperature
     henry_in_water: HenryConstant | None = None
     melting_point: Quantity | None = None  # K
+    critical_temperature: Quantity | None = None  # K
+    critical_pressure: Quantity | None = None  # Pa
+    acentric_factor: Quantity | None = None  # -
+    partial_molar_volume: Quantity | None = None  # m3/mol at infinite dilution in water, at its temperature
     sources: dict = field(default_factory=dict, compare=False)
     notes: dict = field(default_factory=dict, compare=False)
     origin: str = "library"

@@ -224,3 +224,108 @@ def iapws_if97_saturation_pressure(temperature):
     ln_p = 4.0 * np.log(2.0 * c / denominator) + np.log(1.0e6)
     dln_p_dt = 4.0 * (dc / c - d_denominator / denominator) * dtheta_dt
     return ln_p, dln_p_dt
+
+
+# Saturation pressure of water, auxiliary equation of Wagner and Pruss: (a_i, exponent_i).
+# Source: W. Wagner, A. Pruss, J. Phys. Chem. Ref. Data 22 (1993) 783-787, eq. 1 (IAPWS Revised
+# Supplementary Release on Saturation Properties of Ordinary Water Substance, 1992).
+WAGNER_PRUSS_SATURATION = (
+    (-7.85951783, 1.0), (1.84408259, 1.5), (-11.7866497, 3.0),
+    (22.6807411, 3.5), (-15.9618719, 4.0), (1.80122502, 7.5),
+)
+WATER_CRITICAL_TEMPERATURE = 647.096  # K, IAPWS R6-95(2018)
+WATER_CRITICAL_PRESSURE = 22.064e6  # Pa, IAPWS R6-95(2018)
+
+
+def wagner_pruss_saturation_pressure(temperature):
+    """Saturation pressure of water, ln(p/pc) = (Tc/T) sum a_i tau**e_i, with two derivatives.
+
+    The equation the IAPWS Henry's-constant guideline uses for the solvent's vapour pressure p1*.
+
+    Returns (ln_p [-] with p in Pa, dln_p_dt [1/K], d2ln_p_dt2 [1/K**2]).
+
+    References
+    ----------
+    W. Wagner, A. Pruss, J. Phys. Chem. Ref. Data 22 (1993) 783, eq. 1.
+    """
+    t = np.asarray(temperature, dtype=float)
+    tc = WATER_CRITICAL_TEMPERATURE
+    tau = 1.0 - t / tc
+    root = np.sqrt(tau)
+    tau2 = tau * tau
+    powers = {0.5: root, 1.0: tau, 1.5: tau * root, 2.0: tau2, 2.5: tau2 * root, 3.0: tau2 * tau}
+    powers.update({3.5: powers[3.0] * root, 4.0: tau2 * tau2, 5.5: tau2 * tau2 * tau * root})
+    powers[6.5] = powers[5.5] * tau
+    powers[7.5] = powers[6.5] * tau
+    powers.update({0.0: 1.0, -0.5: 1.0 / root})
+    s = ds = d2s = 0.0  # sum and its derivatives with respect to tau, by powers built by products
+    for a, e in WAGNER_PRUSS_SATURATION:
+        s = s + a * powers[e]
+        ds = ds + a * e * powers[e - 1.0]
+        if e != 1.0:
+            d2s = d2s + a * e * (e - 1.0) * powers[e - 2.0]
+    # ln(p/pc) = u s with u = tc/T; d/dT = -(1/tc) d/dtau for s; du/dT = -u/T
+    u = tc / t
+    ln_p = np.log(WATER_CRITICAL_PRESSURE) + u * s
+    dln_p = -u * s / t - u * ds / tc
+    d2ln_p = 2.0 * u * s / t**2 + 2.0 * u * ds / (t * tc) + u * d2s / tc**2
+    return ln_p, dln_p, d2ln_p
+
+
+# Above this temperature [K] (the equation ends at water's critical point, 647.096 K) the Henry's
+# constant continues with constant enthalpy of solution, so a solver probing hot trial profiles
+# gets finite values; any use above the component's t_max is warned anyway.
+IAPWS_HENRY_CAP = 640.0
+
+
+def iapws_henry(temperature, a, b, c, offset=0.0):
+    """Henry's constant of a gas in water from the IAPWS guideline, with derivatives.
+
+    ln(kH/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau), Tr = T/Tc1, tau = 1 - Tr,
+    p1* the saturation pressure of water (Wagner and Pruss), kH = lim f_i/x_i (volatility form).
+
+    Parameters
+    ----------
+    temperature : array_like   Liquid temperature [K]; above IAPWS_HENRY_CAP continued with the
+        enthalpy of solution there (the equation itself ends at the critical point of water)
+    a, b, c : float or array   The guideline's A, B, C [-]
+    offset : float or array    Added to ln kH (0 for the guideline; a perturbed or refitted constant) [-]
+
+    Returns
+    -------
+    (ln_h, dln_h_dt, d2ln_h_dt2) : ndarrays   ln(kH/Pa) [-] and its first and second
+        temperature derivatives [1/K], [1/K**2] (enthalpy of solution: ``solution_enthalpy_from_slope``).
+
+    References
+    ----------
+    R. Fernandez-Prini, J. L. Alvarez, A. H. Harvey, J. Phys. Chem. Ref. Data 32 (2003) 903-916,
+    eq. 15; IAPWS G7-04, Guideline on the Henry's constant and vapor-liquid distribution constant
+    for gases in H2O and D2O at high temperatures (2004).
+    """
+    t_given = np.asarray(temperature, dtype=float)
+    t = np.minimum(t_given, IAPWS_HENRY_CAP)
+    tc = WATER_CRITICAL_TEMPERATURE
+    tr = t / tc
+    tau = 1.0 - tr
+    inverse = 1.0 / tr
+    tau_a = tau**0.355  # and tau**-0.645, tau**-1.645 from it
+    tau_b = tau_a / tau
+    tau_c = tau_b / tau
+    g = tr**-0.41 * np.exp(tau)  # and tr**-1.41, tr**-2.41 times exp(tau)
+    g1, g2 = g * inverse, g * inverse * inverse
+    f = a * inverse + b * tau_a * inverse + c * g
+    df = -a * inverse**2 + b * (-0.355 * tau_b * inverse - tau_a * inverse**2) + c * (-0.41 * g1 - g)
+    d2f = (2.0 * a * inverse**3
+           + b * (-0.355 * 0.645 * tau_c * inverse + 0.71 * tau_b * inverse**2 + 2.0 * tau_a * inverse**3)
+           + c * (0.41 * 1.41 * g2 + 0.82 * g1 + g))
+    ln_p, dln_p, d2ln_p = wagner_pruss_saturation_pressure(t)
+    ln_h = ln_p + f + offset
+    dln_h = dln_p + df / tc
+    d2ln_h = d2ln_p + d2f / tc**2
+    above = t_given > IAPWS_HENRY_CAP  # van 't Hoff continuation with the slope at the cap
+    if np.any(above):
+        slope = -t * t * dln_h  # d ln H/d(1/T) at the cap, held
+        ln_h = np.where(above, ln_h + slope * (1.0 / t_given - 1.0 / t), ln_h)
+        dln_h = np.where(above, -slope / t_given**2, dln_h)
+        d2ln_h = np.where(above, 2.0 * slope / t_given**3, d2ln_h)
+    return ln_h, dln_h, d2ln_h

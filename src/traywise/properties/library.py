@@ -11,11 +11,11 @@ from importlib import resources
 from pathlib import Path
 
 from ..errors import ComponentDataError
-from .component import EQUILIBRIUM_KINDS, Component, HeatCapacity, HenryConstant, Quantity, VapourPressure
+from .component import EQUILIBRIUM_KINDS, HENRY_FORMS, Component, HeatCapacity, HenryConstant, Quantity, VapourPressure
 
 HEAT_CAPACITY_FORMS = ("stable_polynomial", "polynomial")
 VAPOUR_PRESSURE_FORMS = {"iapws_if97": (), "dippr101": ("a", "b", "c", "d", "e")}
-HENRY_KEYS = ("a", "b", "c", "d", "e", "f")
+HENRY_KEYS = {"ln_h": ("a", "b", "c", "d", "e", "f"), "iapws_2004": ("A", "B", "C")}
 
 
 def library_directory():
@@ -134,13 +134,17 @@ class _FileReader:
         table = self.table(key)
         if table is None:
             return None
-        if table.get("form") != "ln_h":
-            self.fail(f"{key}.form", f"must be 'ln_h', found {table.get('form')!r}")
+        form = table.get("form")
+        if form not in HENRY_FORMS:
+            self.fail(f"{key}.form", f"must be one of {HENRY_FORMS}, found {form!r}")
         if table.get("unit") != "Pa":
             self.fail(f"{key}.unit", f"must be 'Pa', found {table.get('unit')!r}")
-        coefficients = tuple(self.number(table, key, k) if k in table else 0.0 for k in HENRY_KEYS)
+        if form == "ln_h":
+            coefficients = tuple(self.number(table, key, k) if k in table else 0.0 for k in HENRY_KEYS[form])
+        else:
+            coefficients = (*(self.number(table, key, k) for k in HENRY_KEYS[form]), 0.0)  # offset 0
         t_min, t_max = self.number(table, key, "t_min"), self.number(table, key, "t_max")
-        return HenryConstant(coefficients, t_min, t_max, self.source(table, key))
+        return HenryConstant(coefficients, t_min, t_max, self.source(table, key), form)
 
     def text(self, key):
         value = self.data.get(key)
@@ -167,6 +171,10 @@ class _FileReader:
             heat_of_vaporisation=self.quantity("heat_of_vaporisation", "J/mol", with_temperature=True),
             henry_in_water=self.henry(),
             melting_point=self.quantity("melting_point", "K"),
+            critical_temperature=self.quantity("critical_temperature", "K"),
+            critical_pressure=self.quantity("critical_pressure", "Pa"),
+            acentric_factor=self.quantity("acentric_factor", "-"),
+            partial_molar_volume=self.quantity("partial_molar_volume_in_water", "m3/mol", with_temperature=True),
             sources=dict(sources),
             notes=notes,
             origin=self.where,

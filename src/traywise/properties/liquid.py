@@ -42,7 +42,7 @@ the liquid's amounts is followed exactly.
 
 import numpy as np
 
-from ..errors import InputError
+from ..errors import ComponentDataError, InputError
 from .correlations import dippr101, ln_henry_terms
 
 
@@ -67,6 +67,9 @@ class AnchoredLiquid:
                 "activity", "anchoring a solute to its Henry's constant in water needs water in the liquid model"
             )
         self.water = water
+        forms = [henry.form for _, henry, _ in anchored if henry.form != "ln_h"]
+        if forms:
+            raise ComponentDataError("activity", f"an anchored solute needs an 'ln_h' Henry's constant, not '{forms[0]}'")
         self._henry = np.array([henry.coefficients for _, henry, _ in anchored]).reshape(-1, 6).T  # (6, a)
         self._henry_terms = [j for j in range(6) if np.any(self._henry[j])]
         pressures = [pressure for _, _, pressure in anchored]

@@ -11,6 +11,8 @@ Equilibrium (K_i = y_i / x_i), per component:
   activity     K = gamma(x, T) Psat(T) / P          (organic solute, gamma from the activity model,
                                                      anchored to its Henry's constant in water)
   table        K = p(u, T) / (x P)                  (user equilibrium table, u = solute/solvent)
+  eos          K = phi_L(x, T, P) / phi_V             (hydrocarbon oils, ``eos_liquid``; h_L = h_V + h_res,L)
+A real gas (``gas_phase``) divides every K by phi_V and adds the residual enthalpy to h_V.
 With an activity model (``activity=``), 'raoult' members get gamma(x, T) too and 'nonvolatile'
 members their excess enthalpy. A 'henry' gas keeps its Henry's constant in water whatever the
 liquid (see ``PropertyModel``).
@@ -33,8 +35,10 @@ import numpy as np
 
 from ..errors import InputError
 from .component import MODEL_KINDS
+from .binary import kij_matrix
 from .constants import GAS_CONSTANT, T_REFERENCE
-from .correlations import ln_henry_terms, solution_enthalpy_from_slope, stable_polynomial_antiderivative
+from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope, stable_polynomial_antiderivative
+from .eos_liquid import EosLiquid
 from .equilibrium_table import TINY
 from .liquid import AnchoredLiquid
 
@@ -44,9 +48,8 @@ class StageProperties:
     """Properties on each stage, arrays (n_stages, n_components).
 
     k [-], dlnk_dt [1/K], h_vapour and h_liquid (partial molar enthalpies) [J/mol] and their
-    temperature derivatives [J/(mol K)]. ``dlnk_dx`` (n_stages, n_components, n_components)
-    [-] is the composition dependence of ln K at fixed T (None when K does not depend on x).
-    """
+    temperature derivatives [J/(mol K)]. ``dlnk_dx`` and ``dlnk_dy`` (n_stages, n_components,
+    n_components) [-]: ln K against liquid and vapour mole fractions at fixed T (or None)."""
 
     k: np.ndarray
     dlnk_dt: np.ndarray
@@ -55,6 +58,7 @@ class StageProperties:
     h_liquid: np.ndarray
     dh_liquid_dt: np.ndarray
     dlnk_dx: np.ndarray | None = None
+    dlnk_dy: np.ndarray | None = None
 
 
 @dataclass
@@ -126,10 +130,11 @@ class PropertyModel:
         'raoult', 'activity' or 'nonvolatile' components, and every 'activity' component one
         of them; anchoring to Henry's constants needs water among them.
     tables : dict, optional   Name -> ``EquilibriumTable`` for every 'table' component.
+    gas_phase : gas_phase.GasPhase, optional   The real gas (None: ideal gas); also settable.
 
     Without liquid mole fractions, ``evaluate`` takes the reference liquid: the first 'raoult'
-    or 'nonvolatile' component, pure, with every solute at infinite dilution in it (where an
-    anchored solute's K is its Henry's constant over P).
+    or 'nonvolatile' component (else the heaviest 'eos' one), pure, every solute at infinite
+    dilution in it (where an anchored solute's K is its Henry's constant over P).
 
     Gases ('henry') keep their Henry's constant in water whatever else the liquid holds. That
     is right while water is most of the liquid (organics below about 10 mol %, common
@@ -138,7 +143,7 @@ class PropertyModel:
     the liquid, are understated.
     """
 
-    def __init__(self, components, equilibrium=None, *, activity=None, tables=None):
+    def __init__(self, components, equilibrium=None, *, activity=None, tables=None, gas_phase=None):
         self.components = tuple(components)
         kinds = tuple(equilibrium) if equilibrium is not None else tuple(c.equilibrium for c in components)
         if len(kinds) != len(self.components):
@@ -157,7 +162,11 @@ class PropertyModel:
         self._cp = _StackedPolynomials(
             [c.ideal_gas_cp for c in self.components] + [self.components[i].liquid_cp for i in liquid]
         )
-        henry = np.array([self.components[i].henry_in_water.coefficients for i in index["henry"]]).reshape(-1, 6).T
+        forms = np.array([self.components[i].henry_in_water.form for i in index["henry"]], dtype=object)
+        self._henry_polynomial = index["henry"][forms == "ln_h"]
+        self._henry_iapws = index["henry"][forms == "iapws_2004"]
+        self._iapws = np.array([self.components[i].henry_in_water.coefficients for i in self._henry_iapws]).reshape(-1, 4).T
+        henry = np.array([self.components[i].henry_in_water.coefficients for i in self._henry_polynomial]).reshape(-1, 6).T
         self._henry_terms = tuple(k for k in range(6) if k < 2 or np.any(henry[k]))  # a, b and any non-zero
         self._henry = henry[list(self._henry_terms)]
         self._liquid_offset = self._liquid_enthalpy_offsets(liquid)
@@ -169,7 +178,12 @@ class PropertyModel:
         self.tables = dict(tables or {})
         self._activity_liquid = self._anchored_liquid(activity)
         self._table_models = self._prepared_tables()
-        self.composition_dependent = self._activity_liquid is not None or bool(self._table_models)
+        self._eos_liquid = _eos_liquid(self.components, index["eos"])
+        if self._eos_liquid is not None and not liquid:
+            self.reference_liquid[self._eos_liquid.heaviest] = 1.0
+        self.composition_dependent = (self._activity_liquid is not None or bool(self._table_models)
+                                      or self._eos_liquid is not None)
+        self.gas_phase = gas_phase
 
     @staticmethod
     def _check(component, kind):
@@ -182,6 +196,7 @@ class PropertyModel:
             "insoluble": (),
             "activity": ("henry_in_water", "vapour_pressure"),
             "table": (),
+            "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
         }[kind]
         missing = [key for key in needs if getattr(component, key) is None]
         if missing:
@@ -261,10 +276,11 @@ class PropertyModel:
         h, cp = self._cp.enthalpy(np.asarray(temperature, dtype=float))
         return h[:, : self.n_components], cp[:, : self.n_components]
 
-    def evaluate(self, temperature, pressure, liquid_mole_fractions=None):
+    def evaluate(self, temperature, pressure, liquid_mole_fractions=None, vapour_mole_fractions=None):
         """All stage properties for temperature (n,) [K], pressure (n,) [Pa] and, for the
         composition-dependent models, liquid mole fractions (n, c) [-] (default: the reference
-        liquid, see the class docstring; ignored by the ideal-solution models)."""
+        liquid, see the class docstring; ignored by the ideal-solution models); for a real gas,
+        vapour mole fractions (n, c) (default: the gas phase's reference composition)."""
         t = np.asarray(temperature, dtype=float).reshape(-1)
         p = np.broadcast_to(np.asarray(pressure, dtype=float).reshape(-1), t.shape)
         n, m, idx = t.size, self.n_components, self.index
@@ -275,13 +291,14 @@ class PropertyModel:
         h_liquid = h_vapour.copy()
         dh_liquid_dt = cp_vapour.copy()
         ln_p = np.log(p)[:, None]
-        if idx["henry"].size:
-            ln_h, dln_h, d2ln_h = ln_henry_terms(t, self._henry_terms).transpose(0, 2, 1) @ self._henry
-            dh_sol, ddh_sol = solution_enthalpy_from_slope(t[:, None], dln_h, d2ln_h)
-            ln_k[:, idx["henry"]] = ln_h - ln_p
-            dlnk_dt[:, idx["henry"]] = dln_h
-            h_liquid[:, idx["henry"]] += GAS_CONSTANT * dh_sol
-            dh_liquid_dt[:, idx["henry"]] += GAS_CONSTANT * ddh_sol
+        for henry, terms in ((self._henry_polynomial, self._polynomial_henry), (self._henry_iapws, self._iapws_henry)):
+            if henry.size:
+                ln_h, dln_h, d2ln_h = terms(t)
+                dh_sol, ddh_sol = solution_enthalpy_from_slope(t[:, None], dln_h, d2ln_h)
+                ln_k[:, henry] = ln_h - ln_p
+                dlnk_dt[:, henry] = dln_h
+                h_liquid[:, henry] += GAS_CONSTANT * dh_sol
+                dh_liquid_dt[:, henry] += GAS_CONSTANT * ddh_sol
         for j, i in enumerate(idx["raoult"]):
             ln_psat, dln_psat = self._vapour_pressures[j].ln_pressure(t)
             ln_k[:, i] = ln_psat - ln_p[:, 0]
@@ -301,10 +318,22 @@ class PropertyModel:
                 self._add_activity(props, t, ln_p, x)
             for i, (s, table) in self._table_models.items():
                 _add_table(props, t, ln_p, x, i, s, table)
+            if self._eos_liquid is not None:
+                self._eos_liquid.apply(props, t, p, x)
+        dlnk_dy = None if self.gas_phase is None else self.gas_phase.apply(
+            t, p, (ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt), vapour_mole_fractions)
         k = np.exp(ln_k)
         k[:, idx["nonvolatile"]] = 0.0
         k[:, idx["insoluble"]] = np.inf
-        return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
+        return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx, dlnk_dy)
+
+    def _polynomial_henry(self, t):
+        """ln H and its first two temperature derivatives of the 'ln_h' gases, each (n, g)."""
+        return ln_henry_terms(t, self._henry_terms).transpose(0, 2, 1) @ self._henry
+
+    def _iapws_henry(self, t):
+        """The same for the gases whose Henry's constant is the IAPWS guideline's, each (n, g)."""
+        return iapws_henry(t[:, None], *self._iapws)
 
     def _add_activity(self, props, t, ln_p, x):
         """Activity coefficients into ln K, excess enthalpies into h_liquid (in place)."""
@@ -357,7 +386,15 @@ class PropertyModel:
                 x = np.asarray(liquid_mole_fractions, dtype=float).reshape(-1, self.n_components)
                 ratios = x[:, i] / np.maximum(x[:, s], TINY)
             warnings.extend(table.range_warnings(self.names[i], temperatures, ratios))
+        if self.gas_phase is not None:
+            warnings.extend(self.gas_phase.range_warnings(temperatures))
         return warnings
+
+
+def _eos_liquid(components, members):
+    """The Peng-Robinson liquid of the 'eos' components (``eos_liquid.EosLiquid``), or None."""
+    chosen = [components[i] for i in members]
+    return EosLiquid(members, chosen, kij_matrix(chosen)[0]) if chosen else None
 
 
 def _add_table(props, t, ln_p, x, i, s, table):

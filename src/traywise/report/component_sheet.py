@@ -66,6 +66,11 @@ def _properties(component):
     found = [("molar_mass", "molar mass", [f"{1000.0 * c.molar_mass.value:.5f} g/mol"], c.molar_mass.source)]
     if c.melting_point is not None:
         found.append(("melting_point", "melting point", [f"{c.melting_point.value:.2f} K"], c.melting_point.source))
+    for key, heading, unit in (("critical_temperature", "critical temperature", "K"),
+                               ("critical_pressure", "critical pressure", "Pa"), ("acentric_factor", "acentric factor", "-")):
+        record = getattr(c, key)
+        if record is not None:
+            found.append((key, heading, [f"{record.value:.6g} {unit}"], record.source))
     found.append(("ideal_gas_cp", "ideal-gas heat capacity", _heat_capacity(c.ideal_gas_cp), c.ideal_gas_cp.source))
     if c.liquid_cp is not None:
         found.append(("liquid_cp", "liquid heat capacity", _heat_capacity(c.liquid_cp), c.liquid_cp.source))
@@ -85,12 +90,22 @@ def _properties(component):
     if c.henry_in_water is not None:
         record = c.henry_in_water
         h_reference = math.exp(float(record.ln_constant(T_REFERENCE)[0]))
-        body = ["ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2, H = p/x (mole-fraction basis)",
-                f"a..f: {_coefficients(record.coefficients)}", _valid(record),
+        if record.form == "iapws_2004":
+            form = ["ln(H/p1*) = A/Tr + B tau**0.355/Tr + C Tr**-0.41 exp(tau), Tr = T/647.096 K, tau = 1 - Tr, "
+                    "p1* the vapour pressure of water, H = f/x (mole-fraction basis)",
+                    f"A, B, C: {_coefficients(record.coefficients[:3])}"]
+        else:
+            form = ["ln(H/Pa) = a + b/T + c ln T + d T + e/T**2 + f T**2, H = p/x (mole-fraction basis)",
+                    f"a..f: {_coefficients(record.coefficients)}"]
+        body = [*form, _valid(record),
                 f"H(298.15 K) = {h_reference:.5g} Pa; enthalpy of solution at 298.15 K = "
                 f"{float(record.solution_enthalpy(T_REFERENCE)) / 1000.0:.2f} kJ/mol "
                 f"(d ln H/d(1/T) = {float(record.solution_enthalpy(T_REFERENCE)) / GAS_CONSTANT:.1f} K)"]
         found.append(("henry_in_water", "Henry's constant in water", body, record.source))
+    if c.partial_molar_volume is not None:
+        record = c.partial_molar_volume
+        found.append(("partial_molar_volume_in_water", "partial molar volume at infinite dilution in water",
+                      [f"{record.value * 1e6:.1f} cm3/mol at {record.temperature:.2f} K"], record.source))
     return found + _transport(component)
 
 

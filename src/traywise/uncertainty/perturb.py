@@ -16,7 +16,6 @@ import math
 from dataclasses import dataclass, replace
 
 from ..properties.component import VapourPressure
-from ..properties.constants import GAS_CONSTANT
 from ..properties.model import PropertyModel
 from .inputs import HENRY, REFERENCE_TEMPERATURE, SOLUTION
 
@@ -76,8 +75,4 @@ def perturbed_component(component, factors):
 
 def _scaled_henry(henry, value_factor, enthalpy_factor):
     """Henry's-law coefficients with H(T0) times value_factor and dH_sol(T0) times enthalpy_factor."""
-    t0 = REFERENCE_TEMPERATURE
-    q0 = float(henry.solution_enthalpy(t0)) / GAS_CONSTANT  # dH_sol(T0)/R [K]
-    extra = (enthalpy_factor - 1.0) * q0
-    a, b, *rest = henry.coefficients
-    return replace(henry, coefficients=(a + math.log(value_factor) - extra / t0, b + extra, *rest))
+    return henry.scaled(value_factor, enthalpy_factor, REFERENCE_TEMPERATURE)  # either form of the constant
