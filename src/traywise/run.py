@@ -52,6 +52,10 @@ class CaseRun:
                                        an ``[internals]`` table
     xy_design : InertBasisDesign or None   Drawn on the x-y diagram (the classic design of
                                            ``case.xy_solute``)
+    solvent_balance : SolventBalance or None   The solvent evaporated, condensed and the make-up
+                                               it needs (``traywise.mesh.phase_transfer``)
+    liquid_volume_flows : dict or None   'solvent_in' and 'liquid_out' -> volume flow [m3/s] or
+                                         None (``traywise.properties.liquid_volume``)
     notes : tuple of str          Why a side result is missing; library warnings in our words
     """
 
@@ -63,6 +67,8 @@ class CaseRun:
     xy_design: object = None
     notes: tuple = ()
     sizing: object = None
+    solvent_balance: object = None
+    liquid_volume_flows: dict | None = None
 
     @property
     def warnings(self):
@@ -124,8 +130,10 @@ def complete_run(case, solution, *, design=None, settings=RunSettings()):
                 other = _side(f"the x-y diagram's design of {case.xy_solute}", notes,
                               lambda: _comparison(case, solution, case.xy_solute))
                 xy = None if other is None else other.isothermal_design
+        balance = _side("the solvent balance", notes, lambda: _solvent_balance(case, solution))
+        volumes = _side("the liquid volume flows", notes, lambda: _liquid_volumes(case, solution))
     notes.extend(note for note in library_warnings(caught) if note not in notes)
-    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing)
+    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing, balance, volumes)
 
 
 def sweep_case(case, request, *, processes=1, progress=None, settings=RunSettings()):
@@ -184,6 +192,20 @@ def _size(case, solution):
         return size_column(solution, case.model.components, given.internals, **arguments), None
     except SizingInputError as error:
         raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
+
+
+def _solvent_balance(case, solution):
+    from .mesh.phase_transfer import solvent_balance
+
+    return solvent_balance(solution, case.model.names.index(case.solvent))
+
+
+def _liquid_volumes(case, solution):
+    from .properties.liquid_volume import liquid_volume_flow
+
+    components, solvent = case.model.components, solution.column.solvent
+    return {"solvent_in": liquid_volume_flow(components, solvent.component_flows, solvent.temperature),
+            "liquid_out": liquid_volume_flow(components, solution.liquid_out, solution.liquid_out_temperature)}
 
 
 def _comparison(case, solution, key):

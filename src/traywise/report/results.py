@@ -255,7 +255,7 @@ def results_record(run, files):
             "gas_out_temperature_K": solution.gas_out_temperature,
             "liquid_out_temperature_K": solution.liquid_out_temperature,
         },
-        "heat": {f"{field}_W": plain(value) for field, value in vars(solution.heat).items()},
+        "heat": {f"{field}_W": plain(value) for field, value in vars(solution.heat).items() if field != "by_component"},
         "convergence": {
             "iterations": solution.convergence.iterations,
             "scaled_residual": solution.convergence.residual,
