@@ -8,27 +8,40 @@ used for valve trays too (common practice; vendor data supersede it).
 References
 ----------
 J. R. Fair, How to predict sieve tray entrainment and flooding, Petro/Chem Eng. 33(10) (1961) 45-52.
-J. Lygeros, K. G. Magoulas, Hydrocarbon Processing 65(12) (1986) 43: the curve fit used here,
-C_SB [m/s] = 0.0105 + 8.127e-4 TS^0.755 exp(-1.463 F_LV^0.842), TS in mm, as quoted in Perry's
-Chemical Engineers' Handbook, 7th ed. (1997), section 14 (form and constants recalled from memory).
+The curve fit used here: Fair's chart as printed in D. W. Green, R. H. Perry (eds.), Perry's Chemical
+Engineers' Handbook, 7th ed. (1997), Fig. 14-26, digitized (384 points) and fitted by libpf.com,
+"Sieve tray flooding correlation" (2012-03-05): a cubic in ln F_LV whose coefficients are linear
+in the tray spacing, average deviation 2.9 % from the digitized points (7.1 % on the 600 mm
+curve, 2.2 % on the others). It replaces the Lygeros-Magoulas fit quoted in the same handbook
+(Hydrocarbon Processing 65(12) (1986) 43), which departs from the chart by up to 19 % at the
+chart's edges (F_LV 0.01 and 0.5-1.0) and falls where the chart rises (F_LV below about 0.03).
 """
 
 import numpy as np
 
 FLOW_PARAMETER_RANGE = (0.01, 1.0)  # the chart's abscissa [-]
 TRAY_SPACING_RANGE = (0.15, 0.9)  # the chart's curves, 6 to 36 in [m]
+# libpf.com (2012) coefficients: C_SB [m/s] = (((a1 S + a2) x + (b1 S + b2)) x + (c1 S + c2)) x + (d1 S + d2),
+# x = ln F_LV, S = tray spacing [mm]
+FIT_SLOPES = (1.10748e-06, 4.04865e-06, -3.09381e-05, 3.00232e-05)  # a1, b1, c1, d1 [m/s per mm]
+FIT_INTERCEPTS = (0.00045284, 0.000799395, -0.00625024, 0.0140453)  # a2, b2, c2, d2 [m/s]
 
 
 def fair_capacity_factor(flow_parameter, tray_spacing):
-    """C_SB at flood [m/s] from the Lygeros-Magoulas fit of Fair's chart.
+    """C_SB at flood [m/s] from the libpf fit of Fair's chart (module docstring).
+
+    Outside the chart's abscissa (0.01-1.0) the flow parameter is held at the nearer edge, where the
+    chart's curves end, instead of extrapolating the cubic; the tray design warns there.
 
     Parameters
     ----------
     flow_parameter : array_like   F_LV = (L/G)(rho_G/rho_L)^0.5, mass flows [-]
-    tray_spacing : float          [m]
+    tray_spacing : float          [m], 0.15-0.9 (the chart's curves)
     """
-    flow_parameter = np.asarray(flow_parameter, dtype=float)
-    return 0.0105 + 8.127e-4 * (1e3 * tray_spacing) ** 0.755 * np.exp(-1.463 * flow_parameter ** 0.842)
+    x = np.log(np.clip(np.asarray(flow_parameter, dtype=float), *FLOW_PARAMETER_RANGE))
+    spacing = 1e3 * tray_spacing
+    a, b, c, d = (slope * spacing + intercept for slope, intercept in zip(FIT_SLOPES, FIT_INTERCEPTS))
+    return ((a * x + b) * x + c) * x + d
 
 
 def surface_tension_factor(surface_tension):

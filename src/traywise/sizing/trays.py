@@ -212,7 +212,7 @@ def _with_warnings(h, properties):
         (h.fraction_of_flood > 1.0, "above 100 % of flood: the trays flood"),
         (h.fraction_of_flood > 0.85, "above 85 % of flood: entrainment may be significant (Fair's entrainment chart, not evaluated)"),
         ((properties.flow_parameter < FLOW_PARAMETER_RANGE[0]) | (properties.flow_parameter > FLOW_PARAMETER_RANGE[1]),
-         "flow parameter outside Fair's chart (0.01-1.0): flooding extrapolated"),
+         "flow parameter outside Fair's chart (0.01-1.0): flooding taken at the chart's edge"),
         (h.weir_loading < WEIR_LOADING_RANGE[0], "weir loading below 2 m3/(h m): poor liquid distribution; consider a picket-fence weir"),
         (h.weir_loading > WEIR_LOADING_RANGE[1], "weir loading above 90 m3/(h m): consider more liquid passes"),
         (h.downcomer_backup > BACKUP_LIMIT * (internals.tray_spacing + internals.weir_height),
