@@ -98,3 +98,34 @@ def test_tray_spacing_chosen_from_the_diameter(tray_stage_properties):
     assert bigger.tray_spacing == 0.6
     assert design_diameter(tray_stage_properties, TrayInternals(tray_spacing=None))[0] == pytest.approx(
         design_diameter(tray_stage_properties, TrayInternals(tray_spacing=0.45))[0])
+
+
+def test_entrainment_follows_the_shape_of_fairs_entrainment_chart():
+    # The chart's readings (fair.py, recalled from memory) are returned at its grid points, and psi
+    # rises with the fraction of flood and falls with the flow parameter between them.
+    from traywise.sizing.fair import (
+        ENTRAINMENT_FLOW_PARAMETERS,
+        ENTRAINMENT_FRACTIONS_OF_FLOOD,
+        ENTRAINMENT_READINGS,
+        fractional_entrainment,
+    )
+
+    for fraction, row in zip(ENTRAINMENT_FRACTIONS_OF_FLOOD, ENTRAINMENT_READINGS):
+        found = fractional_entrainment(np.array(ENTRAINMENT_FLOW_PARAMETERS), np.full(7, fraction))
+        assert found == pytest.approx(row, rel=1e-12)
+    flow = np.geomspace(0.01, 1.0, 40)
+    grid = np.array([fractional_entrainment(flow, np.full(flow.size, f)) for f in np.linspace(0.3, 0.95, 27)])
+    assert np.all(np.diff(grid, axis=0) > 0.0) and np.all(np.diff(grid, axis=1) < 0.0)
+
+
+def test_entrainment_is_warned_above_the_limit(tray_stage_properties):
+    # Low flow parameter (more gas) at 95 % of flood: psi well above 0.1 on Fair's chart.
+    lean = tray_stage_properties.scaled(liquid=0.05)
+    internals = TrayInternals(fraction_of_flood=0.95)
+    rating = rate_trays(lean, internals, design_diameter(lean, internals)[0])
+    assert rating.entrainment.max() > 0.1
+    assert any("fractional entrainment above 0.1" in w for w in rating.warnings)
+    calm = rate_trays(tray_stage_properties, TrayInternals(fraction_of_flood=0.5),
+                      design_diameter(tray_stage_properties, TrayInternals(fraction_of_flood=0.5))[0])
+    assert calm.entrainment.max() < 0.1
+    assert not any("entrainment" in w for w in calm.warnings)
