@@ -92,17 +92,24 @@ def test_more_gas_never_gives_a_smaller_packed_diameter(stages):
         assert design_diameter(stages.scaled(gas=factor), internals)[0] >= base
 
 
+def test_more_gas_never_gives_a_smaller_packed_diameter_over_a_sweep(stages):
+    internals = PackedInternals("ceramic berl saddles 25 mm", hetp=0.5)
+    found = [design_diameter(stages.scaled(gas=g), internals)[0] for g in np.geomspace(0.3, 10.0, 25)]
+    assert np.all(np.diff(found) > 0.0)
+
+
 def test_a_larger_fraction_of_flood_gives_a_smaller_packed_diameter(stages):
     found = [design_diameter(stages, PackedInternals("ceramic raschig rings 25 mm", fraction_of_flood=f))[0]
              for f in (0.5, 0.6, 0.7, 0.8)]
     assert all(b < a for a, b in zip(found, found[1:]))
 
 
-def test_rating_at_the_packed_design_returns_the_design_fraction(stages):
-    internals = PackedInternals("ceramic berl saddles 25 mm", fraction_of_flood=0.65)
+@pytest.mark.parametrize("fraction", [0.4, 0.65, 0.9])
+def test_rating_at_the_packed_design_returns_the_design_fraction(stages, fraction):
+    internals = PackedInternals("ceramic berl saddles 25 mm", fraction_of_flood=fraction)
     diameter, stage = design_diameter(stages, internals)
     rating = rate_packing(stages, internals, diameter)
-    assert rating.fraction_of_flood.max() == pytest.approx(0.65, abs=1e-6)
+    assert rating.fraction_of_flood.max() == pytest.approx(fraction, abs=1e-6)
     assert int(np.argmax(rating.fraction_of_flood)) + 1 == stage
     # Onda's wetted area lies between 0 and the packing's area, and the HETP is that of H_OG
     assert np.all((rating.wetted_area > 0.0) & (rating.wetted_area < EXAMPLE.specific_area))

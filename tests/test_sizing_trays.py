@@ -69,16 +69,25 @@ def test_more_gas_never_gives_a_smaller_diameter(tray_stage_properties):
         assert design_diameter(scaled, internals)[0] >= base
 
 
+@pytest.mark.parametrize("tray_spacing", [0.15, 0.45, 0.9])
+def test_more_gas_never_gives_a_smaller_diameter_over_a_fine_sweep(tray_stage_properties, tray_spacing):
+    # Gas from 0.2 to 20 times the demo's (flow parameter across and beyond Fair's chart).
+    internals = TrayInternals(tray_spacing=tray_spacing)
+    found = [design_diameter(tray_stage_properties.scaled(gas=g), internals)[0] for g in np.geomspace(0.2, 20.0, 80)]
+    assert np.all(np.diff(found) > 0.0)
+
+
 def test_a_larger_fraction_of_flood_gives_a_smaller_diameter(tray_stage_properties):
     diameters = [design_diameter(tray_stage_properties, TrayInternals(fraction_of_flood=f))[0] for f in (0.6, 0.7, 0.8, 0.9)]
     assert all(b < a for a, b in zip(diameters, diameters[1:]))
 
 
-def test_rating_at_the_design_diameter_returns_the_design_fraction(tray_stage_properties):
-    internals = TrayInternals(fraction_of_flood=0.77)
+@pytest.mark.parametrize("fraction", [0.5, 0.77, 0.95])
+def test_rating_at_the_design_diameter_returns_the_design_fraction(tray_stage_properties, fraction):
+    internals = TrayInternals(fraction_of_flood=fraction)
     diameter, stage = design_diameter(tray_stage_properties, internals)
     rating = rate_trays(tray_stage_properties, internals, diameter)
-    assert rating.fraction_of_flood.max() == pytest.approx(0.77, abs=1e-6)
+    assert rating.fraction_of_flood.max() == pytest.approx(fraction, abs=1e-6)
     assert int(np.argmax(rating.fraction_of_flood)) + 1 == stage
     assert np.all(rating.stage_pressure_drop > 0.0)
 
