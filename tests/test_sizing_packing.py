@@ -138,3 +138,12 @@ def test_wetted_area_grows_with_the_liquid_rate():
 def test_bad_packing_input_names_the_quantity(kwargs, key):
     with pytest.raises(SizingInputError, match=key):
         PackedInternals(**kwargs)
+
+
+def test_secant_root_and_its_bracketed_fallback_agree(stages):
+    from traywise.sizing.packed import _bracketed_root, _stage_root
+
+    internals = PackedInternals("ceramic raschig rings 25 mm", hetp=0.5)
+    for j in (0, stages.temperature.size - 1):
+        for start in (0.05, 0.3, 3.0):  # from well inside flood to far below it
+            assert _stage_root(stages, internals, j, start) == pytest.approx(_bracketed_root(stages, internals, j, 0.3), rel=1e-9)
