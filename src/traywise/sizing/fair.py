@@ -13,8 +13,9 @@ Engineers' Handbook, 7th ed. (1997), Fig. 14-26, digitized (384 points) and fitt
 "Sieve tray flooding correlation" (2012-03-05): a cubic in ln F_LV whose coefficients are linear
 in the tray spacing, average deviation 2.9 % from the digitized points (7.1 % on the 600 mm
 curve, 2.2 % on the others). It replaces the Lygeros-Magoulas fit quoted in the same handbook
-(Hydrocarbon Processing 65(12) (1986) 43), which departs from the chart by up to 19 % at the
-chart's edges (F_LV 0.01 and 0.5-1.0) and falls where the chart rises (F_LV below about 0.03).
+(Hydrocarbon Processing 65(12) (1986) 43), which departs from the digitized chart by up to 19 %
+at its edges (F_LV 0.01; 10 % at F_LV 0.3-0.5) and falls where the chart rises (F_LV below about
+0.03, as that page notes).
 """
 
 import numpy as np
