@@ -15,7 +15,7 @@ from traywise.sizing.packed import (
 )
 from traywise.sizing.packing_data import Packing, find_packing
 
-from support.sizing_cases import demo_stage_properties
+from support.sizing_cases import demo_stage_properties, given_loads
 
 # The packing of Stichlmair, Bravo & Fair's worked example (Gas Sep. Purif. 3 (1989) 19):
 # a = 260 m2/m3, voidage 0.68, C1..C3 = 32, 7, 1, as reproduced in fluids' documentation.
@@ -47,20 +47,6 @@ def test_robbins_example_through_the_wrapper():
     assert 2.0 * per_height == pytest.approx(619.6624593438102, rel=1e-9)
 
 
-def one_stage(gas_mass_flow, liquid_mass_flow, *, gas_density, liquid_density, gas_viscosity, liquid_viscosity):
-    """A one-stage StageLoads with the given loads and properties (the rest plausible, unused with a given HETP)."""
-    from traywise.sizing.stage_loads import StageLoads
-
-    one = lambda value: np.array([float(value)])  # noqa: E731
-    return StageLoads(temperature=one(300.0), pressure=one(101325.0), gas_molar_flow=one(gas_mass_flow / 0.029),
-                      liquid_molar_flow=one(liquid_mass_flow / 0.018), gas_mass_flow=one(gas_mass_flow),
-                      liquid_mass_flow=one(liquid_mass_flow), gas_density=one(gas_density),
-                      liquid_density=one(liquid_density), gas_viscosity=one(gas_viscosity),
-                      liquid_viscosity=one(liquid_viscosity), surface_tension=one(0.07),
-                      liquid_molar_density=one(liquid_density / 0.018), gas_diffusivity=one(1.5e-5),
-                      liquid_diffusivity=one(1.5e-9), slope=one(1.0), key_component="solute")
-
-
 def test_stichlmair_worked_example_through_the_column_rating():
     # The worked example of Stichlmair, Bravo & Fair, Gas Sep. Purif. 3 (1989) 19 (as reproduced in
     # the documentation of fluids.packed_tower, which states that it matches the paper): packing
@@ -68,8 +54,8 @@ def test_stichlmair_worked_example_through_the_column_rating():
     # 5e-5 Pa s. Paper: flooding gas velocity 0.6394 m/s; irrigated pressure drop 539.9 Pa/m at
     # 0.4 m/s. A column of 1 m2 carrying those loads, rated by traywise, must give both within 10 %.
     diameter = float(np.sqrt(4.0 / np.pi))
-    loads = one_stage(0.4 * 5.0, 5e-3 * 1200.0, gas_density=5.0, liquid_density=1200.0, gas_viscosity=5e-5,
-                      liquid_viscosity=1e-3)
+    loads = given_loads([0.4 * 5.0], [5e-3 * 1200.0], gas_density=[5.0], liquid_density=[1200.0], gas_viscosity=[5e-5],
+                        liquid_viscosity=[1e-3])
     rating = rate_packing(loads, PackedInternals("ceramic berl saddles 25 mm", hetp=0.5), diameter)
     assert rating.flooding_velocity[0] == pytest.approx(0.6394, rel=0.10)
     assert rating.pressure_drop_per_height[0] == pytest.approx(539.9, rel=0.10)

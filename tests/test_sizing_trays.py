@@ -7,7 +7,7 @@ from traywise.sizing.errors import SizingInputError
 from traywise.sizing.fair import fair_capacity_factor
 from traywise.sizing.trays import TrayInternals, design_diameter, rate_trays, weir_length
 
-from support.sizing_cases import demo_stage_properties
+from support.sizing_cases import demo_stage_properties, given_loads
 
 
 @pytest.fixture
@@ -25,6 +25,21 @@ WORKED_EXAMPLE_READINGS = [(0.15, 0.5, 0.075), (0.043, 0.5, 0.090)]
 @pytest.mark.parametrize("flow_parameter, tray_spacing, reading", WORKED_EXAMPLE_READINGS)
 def test_fair_fit_reproduces_worked_example_chart_readings(flow_parameter, tray_spacing, reading):
     assert fair_capacity_factor(flow_parameter, tray_spacing) == pytest.approx(reading, rel=0.05)
+
+
+def test_sieve_plate_worked_example_diameters():
+    # R. K. Sinnott, Coulson & Richardson's Chemical Engineering vol. 6, 4th ed. (2005), Example 11.11,
+    # sieve plates of an acetone-water column (example number, data and results recalled from memory):
+    # plate spacing 0.5 m, 85 % of flood, downcomers 12 % of the area; base: vapour 0.83 m3/s at
+    # 0.72 kg/m3, liquid 954 kg/m3, F_LV 0.15, surface tension 57 mN/m; top: vapour 0.31 m3/s at
+    # 2.03 kg/m3, liquid 753 kg/m3, F_LV 0.043, 23 mN/m. Book: diameter 0.65 m (base), 0.54 m (top).
+    internals = TrayInternals(tray_spacing=0.5, fraction_of_flood=0.85, downcomer_area_fraction=0.12)
+    for volume, rho_g, rho_l, flow_parameter, sigma, book in ((0.83, 0.72, 954.0, 0.15, 0.057, 0.65),
+                                                               (0.31, 2.03, 753.0, 0.043, 0.023, 0.54)):
+        gas = volume * rho_g
+        loads = given_loads([gas], [flow_parameter * gas / np.sqrt(rho_g / rho_l)], gas_density=[rho_g],
+                            liquid_density=[rho_l], surface_tension=[sigma])
+        assert design_diameter(loads, internals)[0] == pytest.approx(book, rel=0.05)
 
 
 def lygeros_magoulas(flow_parameter, tray_spacing_mm):
