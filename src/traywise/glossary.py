@@ -150,6 +150,7 @@ GLOSSARY = {
     "downcomer_backup": ("m", "clear liquid in each downcomer, (N,)"),
     "downcomer_residence": ("s", "liquid residence time in each downcomer, (N,)"),
     "weep_froude": ("-", "hole Froude number of each tray (weeping below about 0.5), (N,)"),
+    "entrainment": ("-", "fractional entrainment psi = e/(L + e) of each tray, Fair's chart, (N,)"),
     "area": ("m2", "column cross-section"),
     "packing": ("-", "name of a packing in the packing data file"),
     "hetp": ("m", "height equivalent to a theoretical stage: given, or per stage (N,)"),
