@@ -27,10 +27,9 @@ from ..errors import PinchError, TraywiseError
 from .design import inert_basis_design
 from .equilibrium_curve import mole_ratio_equilibrium
 from .lewis import stage_equivalent
-from .verdict import STAGE_TOLERANCE, ProfileMeasures, judge, tolerance_text
+from .verdict import SAME_TEMPERATURE, STAGE_TOLERANCE, ProfileMeasures, judge, tolerance_text
 
 MIN_ABSORBED = 1e-3  # components absorbed less than this are carriers, not solutes
-SAME_TEMPERATURE = 0.05  # K; bracket temperatures closer than this to the inlet reuse its design
 OUTLET_BASIS = "solvent-free: mole fraction in the gas leaving the top, its solvent vapour left out"
 
 

@@ -32,6 +32,7 @@ STAGE_TOLERANCE = (0.10, 0.5)  # relative, absolute [stages]; our judgement
 FLOW_CHANGE = 0.02  # share of the gas feed changing phase worth naming [-]; our judgement
 CURVATURE = 0.10  # relative bend of Y*(X) worth naming where Lewis's relation was used [-]; our judgement
 TEMPERATURE_SHARE = 1.0 / 3.0  # share of the gap the mean-temperature design must close [-]; our judgement
+SAME_TEMPERATURE = 0.05  # K; a bracket temperature this close to the solvent inlet is not told apart
 NOTABLE_RISE = 5.0  # K; a temperature rise worth a caution in the verdict (our judgement)
 
 
@@ -118,7 +119,8 @@ def judge(key, rigorous_stages, bracket, measures, reason):
 
 def _bracket_text(bracket):
     others = [f"{'none (it pinches)' if point.stages is None else f'{point.stages:.2f}'} at the {point.label} "
-              f"temperature ({point.temperature - 273.15:.1f} degC)" for point in bracket[1:]]
+              f"temperature ({point.temperature - 273.15:.1f} degC)" for point in bracket[1:]
+              if abs(point.temperature - bracket[0].temperature) >= SAME_TEMPERATURE]
     return f"; it asks for {' and '.join(others)}" if others else ""
 
 
