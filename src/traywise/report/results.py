@@ -193,6 +193,8 @@ RESULTS_KEYS = {
     "design.trays[].trays_by_murphree_efficiency": "fewest trays with that E_MV meeting the target, solved rigorously [-]",
     "design.trays[].stripping_factor": "K V / L of the key solute, mean over the theoretical stages [-]",
     "design.trays[].oconnell_group": "K M_L mu_L / rho_L of O'Connell's correlation [cP ft3/lbmol], or null",
+    "design.trays[].recommended_trays": "the tray count to use: the tray-by-tray (Murphree) solution's [-]",
+    "design.trays[].recommendation": "which count to use and why, with the margin or shortfall of ceil(N / E_o)",
     **SIZING_KEYS,
     "property_sources": "per component name: property -> full citation of the data used, the liquid's activity model and equilibrium tables included",
     "warnings": "warnings from the case and the solution (list of text)",
