@@ -273,10 +273,13 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
     case = _load(ctx, case_file, quiet, False, target=target)
     from .case.sweep import sweep_request
     from .report.sweep_view import write_sweep, sweep_text
-    from .run import sweep_case
+    from .run import sweep_case, sweep_feed_warnings
 
     request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
                             cooler_stage=cooler_stage)
+    from dataclasses import replace
+
+    case = replace(case, warnings=(*case.warnings, *sweep_feed_warnings(case, request)))
     total = len(request.values)
     with _progress(quiet or total < LONG_SWEEP or not sys.stderr.isatty(), total) as bar:
         table = sweep_case(case, request, processes=processes,
