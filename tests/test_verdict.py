@@ -104,6 +104,19 @@ def test_cold_solvent_and_humid_gas_make_the_simple_method_conservative(water_mo
     assert "conservative: " in result.verdict and "solvent condensation" in result.verdict
 
 
+@pytest.mark.regression
+def test_a_removal_near_its_limit_is_told_as_sensitive(water_model):
+    """Too little water for the sulfur dioxide (A = L'/(K V') about 0.57 at 25 degC, dry gas at
+    40 degC): the removal lies near its limit A, each stage adds little, and the verdict says so
+    beside its direction."""
+    model = library_model("water", "sulfur dioxide", "nitrogen")
+    column = water_column(model, 5, gas=[0.0, 0.02, 0.98], solvent_flow=20.0, t_gas=313.15)
+    result = compare(solve_column(column, model), model, "sulfur dioxide")
+    assert result.isothermal_design.absorption_factor < 1.0
+    assert result.direction == "unsafe"  # measured: 3.99 stages against 5.00, the water evaporating
+    assert "the removal is near the most this solvent flow can reach" in result.verdict
+
+
 def test_heat_of_absorption_makes_the_simple_method_unsafe(tmp_path):
     """The ammonia demo: the heat of absorption warms the liquid, so the design at the solvent inlet
     temperature asks for too few stages; the bracket rises with temperature and the rigorous

@@ -219,8 +219,8 @@ def _solute(solution, model, i, stages, solvent_index, common):
         return SoluteComparison(name, rigorous_y, None, float(solution.fraction_absorbed[i]), None)
     solute = rating.gas_ratio_out * rating.inert_gas_flow
     others = rating.inert_gas_flow - float(common["gas_flows"][solvent_index])  # V' less the solvent vapour fed
-    return SoluteComparison(name, rigorous_y, solute / (solute + others), float(solution.fraction_absorbed[i]),
-                            rating.fraction_absorbed)
+    return SoluteComparison(name, rigorous_y, float(solute / (solute + others)), float(solution.fraction_absorbed[i]),
+                            float(rating.fraction_absorbed))
 
 
 def _measures(solution, model, key, solvent_index, temperature, pressure, design):
@@ -242,6 +242,7 @@ def _measures(solution, model, key, solvent_index, temperature, pressure, design
         curvature=_curvature(model, key, column, temperature, pressure, design),
         murphree_trays=bool(np.any(column.murphree < 1.0)),
         solvent=solution.component_names[solvent_index],
+        absorption_factor=None if design is None else design.absorption_factor,
     )
 
 

@@ -32,6 +32,7 @@ STAGE_TOLERANCE = (0.10, 0.5)  # relative, absolute [stages]; our judgement
 FLOW_CHANGE = 0.02  # share of the gas feed changing phase worth naming [-]; our judgement
 CURVATURE = 0.10  # relative bend of Y*(X) worth naming where Lewis's relation was used [-]; our judgement
 TEMPERATURE_SHARE = 1.0 / 3.0  # share of the gap the mean-temperature design must close [-]; our judgement
+FLAT_ABSORPTION = 1.0  # below this absorption factor the removal is flat in the stage count (Kremser)
 SAME_TEMPERATURE = 0.05  # K; a bracket temperature this close to the solvent inlet is not told apart
 NOTABLE_RISE = 5.0  # K; a temperature rise worth a caution in the verdict (our judgement)
 
@@ -50,6 +51,8 @@ class ProfileMeasures:
     curvature : Y*(X_out) / (X_out dY*/dX at X = 0) - 1 at the solvent inlet temperature, or None [-]
     murphree_trays : whether Lewis's relation counted the trays (some E_MV below 1)
     solvent : name of the solvent
+    absorption_factor : A = L'/(K V') of the key in the isothermal design at the solvent inlet
+        (K at infinite dilution), or None [-]
     """
 
     mean_rise: float
@@ -60,6 +63,7 @@ class ProfileMeasures:
     curvature: float | None
     murphree_trays: bool
     solvent: str
+    absorption_factor: float | None = None
 
 
 def tolerance_text():
@@ -110,6 +114,10 @@ def judge(key, rigorous_stages, bracket, measures, reason):
     causes = _causes(key, rigorous_stages, bracket, measures, need)
     if any(cause.startswith("temperature") for cause in causes):
         caution = ""  # said in the cause
+    factor = measures.absorption_factor
+    if factor is not None and factor < FLAT_ABSORPTION:
+        caution += (f"; with A = L'/(K V') = {factor:.2f} the removal is near the most this solvent flow can reach, "
+                    "where a stage adds little removal and stage counts differ widely for small differences")
     if need > 0.0:
         return "unsafe", causes, (f"unsafe: {detail}, so a column built to it would fall short of the removal"
                                   f"{spread}{_because(causes)}{caution}")
