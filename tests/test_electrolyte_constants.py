@@ -21,6 +21,13 @@ def test_constant_at_25C_agrees_with_a_second_source(name):
     assert value == pytest.approx(reaction.check_25C, rel=TOLERANCE.get(name, 0.03)), reaction.check_source
 
 
+@pytest.mark.parametrize("solute", list(DATA.henry))
+def test_henry_constant_at_25C_agrees_with_a_second_source(solute):
+    constant = DATA.henry[solute]
+    value = float(np.exp(constant.ln_k(298.15)[0]))
+    assert value == pytest.approx(constant.check_25C, rel=0.07), constant.check_source
+
+
 def test_first_dissociation_constant_of_sulfur_dioxide_falls_with_temperature():
     """K1 = 1.3e-2 mol/kg at 25 degC (Seinfeld & Pandis 2006, Table 7.4, dH/R = -1960 K; recalled
     from memory): dissociation releases heat, so K1 at 40 degC is below K1 at 20 degC."""

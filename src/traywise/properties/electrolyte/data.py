@@ -51,6 +51,7 @@ class ElectrolyteData:
     a_phi_range: tuple  # (t_min, t_max) [K]
     salts: tuple  # ((cation, anion, beta0, beta1), ...)
     neutrals: tuple  # ((molecule, other, a, b, c, t_min, t_max), ...)
+    henry: dict  # solute -> Reaction: ln of its molality-based solubility constant [mol/(kg bar)]
     sources: dict
 
 
@@ -106,8 +107,9 @@ def electrolyte_data(path=None):
     salts = tuple((s["cation"], s["anion"], float(s["beta0"]), float(s["beta1"])) for s in raw["pitzer"]["salt"])
     neutrals = tuple((s["molecule"], s["other"], float(s["a"]), float(s["b"]), float(s["c"]),
                       float(s["t_min"]), float(s["t_max"])) for s in raw["pitzer"].get("neutral", ()))
+    henry = {name: _reaction(name, table, where) for name, table in raw.get("henry", {}).items()}
     return ElectrolyteData(reactions, tuple(dh["coefficients"]), float(dh["b"]), float(dh["alpha"]),
-                           (float(dh["t_min"]), float(dh["t_max"])), salts, neutrals, dict(raw["sources"]))
+                           (float(dh["t_min"]), float(dh["t_max"])), salts, neutrals, henry, dict(raw["sources"]))
 
 
 def a_phi(temperature, coefficients):

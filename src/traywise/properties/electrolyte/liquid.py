@@ -5,7 +5,8 @@ The solver sees apparent components (each solute in all its forms). With T_j = x
 the apparent molality of solute j, and the speciation of ``speciation.SpeciationSystem``:
 
   NH3, CO2, H2S, SO2   p_i = H_m,i(T) a_i(molecular),  H_m,i = H_x,i M_w  (the component's
-                       Henry's constant, mole-fraction basis, brought to molality)
+                       Henry's constant, mole-fraction basis, brought to molality), or the data
+                       file's molality-based constant where it gives one (SO2: Goldberg & Parker)
   HCl                  p_HCl = a(H+) a(Cl-) / K_HCl(T)  (gas-solution constant, data file)
   water                p_w = Psat(T) a_w (the model's 'raoult' K times a_w / x_w)
   NaOH                 non-volatile; mu = mu0(T) + R T ln(a(Na+) a(OH-))
@@ -85,12 +86,13 @@ class AqueousElectrolyte:
         """ln H_m [Pa kg/mol, HCl: Pa kg2/mol2] and its T-derivative of each solute, (n, k)."""
         ln_h, dln_h = np.zeros((t.size, len(self.solutes))), np.zeros((t.size, len(self.solutes)))
         for j, (solute, henry) in enumerate(zip(self.solutes, self.henry)):
-            if henry is not None:
+            own = self.hcl if solute == "HCl" else self.data.henry.get(solute)
+            if own is not None:  # solubility constant [mol/(kg bar)] of the data file
+                value, slope, _ = own.ln_k(t)
+                ln_h[:, j], dln_h[:, j] = np.log(PASCAL_PER_BAR) - value, -slope
+            elif henry is not None:
                 value, slope = henry.ln_constant(t)[:2]
                 ln_h[:, j], dln_h[:, j] = value + np.log(self.water_molar_mass), slope
-            elif solute == "HCl":
-                value, slope, _ = self.hcl.ln_k(t)
-                ln_h[:, j], dln_h[:, j] = np.log(PASCAL_PER_BAR) - value, -slope
         return ln_h, dln_h
 
     def _state(self, t, x):

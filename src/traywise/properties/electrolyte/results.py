@@ -52,7 +52,8 @@ def range_warnings(liquid, speciation, t):
     """Warnings for the ionic strength, the temperature and spent caustic (list of str)."""
     system = liquid.system
     warnings = []
-    ranges = list(system.ranges) + list(system.neutral_ranges) + [liquid.data.a_phi_range]
+    henry = [(c.t_min, c.t_max) for solute, c in liquid.data.henry.items() if solute in system.solutes]
+    ranges = list(system.ranges) + list(system.neutral_ranges) + henry + [liquid.data.a_phi_range]
     t_min, t_max = max(r[0] for r in ranges), min(r[1] for r in ranges)
     outside = (t < t_min - 1e-9) | (t > t_max + 1e-9)
     if outside.any():
