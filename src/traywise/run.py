@@ -167,6 +167,38 @@ def sweep_feed_warnings(case, request):
     return sweep_warnings(case, columns)
 
 
+# the design's solve_for -> the sweep's word for the same input
+_SWEPT_AS = {"solvent_flow": "solvent_flow", "n_stages": "stages", "cooler_duty": "cooler_duty"}
+
+
+def designed_for_sweep(case, settings=RunSettings()):
+    """(case, designed value) to sweep around: with a ``[design]`` table, the case with the designed
+    column in place of the column as written (the other inputs of every point at their designed
+    values) and {"input": sweep word, "value": SI value, "stage": cooler stage or None} of the
+    input solved for; without one, (case, None). The minimum solvent flow and O'Connell's trays
+    are not computed for a sweep.
+
+    Raises TargetNotReached or ConvergenceError as ``run_case`` does.
+    """
+    if case.design is None:
+        return case, None
+    from dataclasses import replace
+
+    from .design.plan import carry_out_design
+
+    plain = replace(case.design, minimum_solvent=False, oconnell_efficiency=False)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")  # the run of the case itself reports them
+        outcome = carry_out_design(case.column, case.model, plain, overall_efficiency=case.overall_efficiency,
+                                   settings=_solver_settings(settings))
+    column = outcome.result.solution.column
+    values = {"solvent_flow": column.solvent.flow, "n_stages": float(column.n_stages),
+              "cooler_duty": None if outcome.cooler_stage is None else float(column.heat_removed[outcome.cooler_stage - 1])}
+    designed = {"input": _SWEPT_AS[case.design.solve_for], "value": values[case.design.solve_for],
+                "stage": outcome.cooler_stage}
+    return replace(case, column=column), designed
+
+
 def sweep_case(case, request, *, processes=1, progress=None, settings=RunSettings()):
     """Solve the column of ``case`` at every point of ``request`` (a ``traywise.case.sweep``
     SweepRequest); return the SweepTable of ``traywise.design.sweep`` (failed points marked)."""
