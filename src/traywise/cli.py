@@ -277,7 +277,7 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
 
     case, designed = _designed_for_sweep(case, designed_for_sweep)
     request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
-                            cooler_stage=cooler_stage)
+                            cooler_stage=cooler_stage, around=designed)
     from dataclasses import replace
 
     case = replace(case, warnings=(*case.warnings, *sweep_feed_warnings(case, request)))
