@@ -44,6 +44,11 @@ def test_a_design_that_breaks_its_limit_exits_4_with_its_results(tmp_path):
     assert compared.exit_code == 4, compared.output
 
 
+def test_the_exit_status_4_is_in_the_help():
+    text = " ".join(CliRunner().invoke(main, ["--help"]).output.split())
+    assert "4 a design whose removal target or temperature limit the solved column does not meet" in text
+
+
 def test_a_design_that_meets_everything_exits_0(tmp_path):
     result = invoke(tmp_path, variant(*QUICK), "run")
     assert result.exit_code == 0, result.output
