@@ -133,6 +133,10 @@ def test_heat_of_absorption_makes_the_simple_method_unsafe(tmp_path):
     assert bracket[0] < comparison["theoretical_stages_rigorous"] < bracket[2]
     assert comparison["stage_tolerance"] == {"relative": 0.1, "absolute_stages": 0.5,
                                              "in_words": "the larger of 10% of the rigorous stages and 0.5 stage"}
+    # Kremser's outlet on the comparison's basis: free of the 2 mol % water the gas brought, V' = 85 %
+    (rated,) = comparison["kremser"]["solutes"]
+    y = rated["gas_out_mole_fraction"]
+    assert rated["gas_out_mole_fraction_solvent_free"] == pytest.approx(y / (1.0 - y) * 0.85 / (0.85 - 0.02 + y / (1.0 - y) * 0.85), rel=1e-9)
 
 
 def test_complete_absorption_writes_its_results(tmp_path, monkeypatch):

@@ -142,6 +142,7 @@ RESULTS_KEYS = {
     "isothermal_comparison.kremser.solutes[].liquid_to_gas_ratio": "L'/V' on the solute's inert basis [mol/mol]",
     "isothermal_comparison.kremser.solutes[].absorption_factor": "A = L'/(K V') [-]",
     "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction": "Kremser's outlet, solute over solute and inert gas [-]",
+    "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction_solvent_free": "the same free of the solvent vapour the gas feed brought, the basis of the comparison's outlets [-]",
     "isothermal_comparison.kremser.solutes[].fraction_absorbed": "1 - Y_out / Y_in [-]",
     "design": "the design of a case with a [design] table (cases/README.md); null without one",
     "design.solve_for": "the input solved for: 'solvent_flow', 'stages' or 'cooler_duty'",
