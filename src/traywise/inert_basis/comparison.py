@@ -255,6 +255,7 @@ def _curvature(model, key, column, temperature, pressure, design):
                                        solvent_mole_fractions=column.solvent.component_flows)
         x_out = design.liquid_ratio_out
         small = 1e-6 * x_out
-        return float((curve(x_out) / x_out) / (curve(small) / small) - 1.0)
+        secant, initial = float(curve(x_out)) / x_out, float(curve(small)) / small
     except TraywiseError:
         return None
+    return secant / initial - 1.0 if initial > 0.0 and np.isfinite(secant) else None
