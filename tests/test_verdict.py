@@ -150,3 +150,37 @@ def test_complete_absorption_writes_its_results(tmp_path, monkeypatch):
     comparison = json.loads(Path("ammonia-30-results/results.json").read_text(encoding="utf-8"))["isothermal_comparison"]
     assert comparison["direction"] is None and comparison["verdict"].startswith("not compared: ")
     assert "absorbs all of the ammonia" in comparison["verdict"]
+
+
+def _measures(**changes):
+    from traywise.inert_basis.verdict import ProfileMeasures
+
+    values = dict(mean_rise=0.0, max_temperature_rise=0.0, hottest_stage=1, solvent_condensed=0.0, gas_absorbed=0.0,
+                  curvature=None, murphree_trays=False, solvent="water")
+    return ProfileMeasures(**{**values, **changes})
+
+
+def test_a_pinch_of_the_simple_method_reads_conservative():
+    """The simple method cannot reach what the rigorous column reaches: it would have asked for
+    more solvent, the safe side."""
+    from traywise.inert_basis.comparison import IsothermalPoint
+    from traywise.inert_basis.verdict import judge
+
+    why = "the isothermal design cannot reach the rigorous removal of x at all (pinch)"
+    bracket = tuple(IsothermalPoint(label, 300.0, None, why) for label in ("solvent inlet", "mean liquid", "hottest stage"))
+    direction, causes, verdict = judge("x", 6.0, bracket, _measures(solvent_condensed=0.05), why)
+    assert direction == "conservative" and verdict.startswith(f"conservative: {why}")
+    assert causes and causes[0].startswith("solvent condensation")
+
+
+def test_evaporation_is_named_where_it_explains_a_shortfall():
+    from traywise.inert_basis.comparison import IsothermalPoint
+    from traywise.inert_basis.verdict import judge
+
+    bracket = tuple(IsothermalPoint(label, 300.0, 4.0) for label in ("solvent inlet", "mean liquid", "hottest stage"))
+    direction, causes, verdict = judge("x", 5.0, bracket, _measures(solvent_condensed=-0.03), None)
+    assert direction == "unsafe" and causes == (
+        "solvent evaporation (3.0% of the gas feed in water evaporates, which lowers L/V against the inert basis)",)
+    # the same gap with condensation instead: it would not explain a shortfall, so nothing is named
+    direction, causes, verdict = judge("x", 5.0, bracket, _measures(solvent_condensed=0.03), None)
+    assert direction == "unsafe" and causes == () and "no single cause stands out" in verdict
