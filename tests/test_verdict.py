@@ -61,7 +61,7 @@ def test_murphree_column_reads_close(murphree_column):
     _, _, result = murphree_column
     assert result.direction == "close" and result.held and result.causes == ()
     assert result.isothermal_stages == pytest.approx(result.rigorous_stages, abs=0.1)
-    assert result.verdict.startswith("close: ") and "tolerance the larger of 10% of the rigorous stages and 0.5 stage" in result.verdict
+    assert result.verdict.startswith("close: ") and "(tolerance: the larger of 10% of the rigorous stages and 0.5 stage)" in result.verdict
     assert result.stage_tolerance == STAGE_TOLERANCE
 
 
@@ -167,8 +167,9 @@ def test_a_pinch_of_the_simple_method_reads_conservative():
     from traywise.inert_basis.verdict import judge
 
     why = "the isothermal design cannot reach the rigorous removal of x at all (pinch)"
-    bracket = tuple(IsothermalPoint(label, 300.0, None, why) for label in ("solvent inlet", "mean liquid", "hottest stage"))
-    direction, causes, verdict = judge("x", 6.0, bracket, _measures(solvent_condensed=0.05), why)
+    bracket = tuple(IsothermalPoint(label, 300.0, None, why, pinched=True)
+                    for label in ("solvent inlet", "mean liquid", "hottest stage"))
+    direction, causes, verdict = judge("x", 6.0, bracket, _measures(solvent_condensed=0.05), why, pinched=True)
     assert direction == "conservative" and verdict.startswith(f"conservative: {why}")
     assert causes and causes[0].startswith("solvent condensation")
 

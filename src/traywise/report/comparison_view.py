@@ -34,6 +34,7 @@ def comparison_json(record, kremser=None):
                 "temperature_K": float(point.temperature),
                 "theoretical_stages": _optional(point.stages),
                 "reason": point.reason,
+                "pinched": bool(point.pinched),
             }
             for point in record.bracket
         ],

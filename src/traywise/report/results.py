@@ -112,6 +112,7 @@ RESULTS_KEYS = {
     "isothermal_comparison.isothermal_bracket[].temperature_K": "the temperature [K]",
     "isothermal_comparison.isothermal_bracket[].theoretical_stages": "stages the isothermal method needs there [-]; null when it gives none",
     "isothermal_comparison.isothermal_bracket[].reason": "why it gives none, or null",
+    "isothermal_comparison.isothermal_bracket[].pinched": "true when that is a pinch: no number of stages reaches the removal there",
     "isothermal_comparison.outlet_basis": "the basis of both outlet mole fractions, in words (solvent-free)",
     "isothermal_comparison.solutes": "one entry per solute absorbed",
     "isothermal_comparison.solutes[].name": "solute name",
