@@ -185,3 +185,17 @@ def test_evaporation_is_named_where_it_explains_a_shortfall():
     # the same gap with condensation instead: it would not explain a shortfall, so nothing is named
     direction, causes, verdict = judge("x", 5.0, bracket, _measures(solvent_condensed=0.03), None)
     assert direction == "unsafe" and causes == () and "no single cause stands out" in verdict
+
+
+def test_curvature_is_named_where_lewis_counted_murphree_trays():
+    """Lewis's relation assumes a straight equilibrium line: a bent one is named as a cause for
+    Murphree trays, and not for theoretical stages (where the stepped design follows the curve)."""
+    from traywise.inert_basis.comparison import IsothermalPoint
+    from traywise.inert_basis.verdict import judge
+
+    bracket = tuple(IsothermalPoint(label, 300.0, 9.0) for label in ("solvent inlet", "mean liquid", "hottest stage"))
+    _, causes, _ = judge("x", 7.0, bracket, _measures(curvature=-0.3, murphree_trays=True), None)
+    assert causes == ("curvature of the equilibrium line (Y*(X) bends by -30% over the column, where Lewis's "
+                      "relation for the Murphree trays assumes a straight line)",)
+    _, causes, _ = judge("x", 7.0, bracket, _measures(curvature=-0.3, murphree_trays=False), None)
+    assert causes == ()
