@@ -64,6 +64,7 @@ class Pitzer:
         z = np.asarray(charges, dtype=float)
         s = z.size
         self.q = 0.5 * z * z
+        self.qq = np.outer(self.q, self.q)
         self.w0 = np.zeros((s, s))
         self.w1 = np.zeros((s, s))
         for i, j, beta0, beta1 in salts:
@@ -86,54 +87,70 @@ class Pitzer:
         inverse = 1.0 / t[:, None]
         lam = self.lambdas[:, 0] + inverse * (self.lambdas[:, 1] + inverse * self.lambdas[:, 2])
         lam_t = -inverse * inverse * (self.lambdas[:, 1] + 2.0 * inverse * self.lambdas[:, 2])
-        return (self.w0 + np.einsum("np,pij->nij", lam, self.patterns),
-                np.einsum("np,pij->nij", lam_t, self.patterns))
+        shape = (t.size,) + self.w0.shape
+        flat = self.patterns.reshape(len(self.patterns), -1)
+        return self.w0 + (lam @ flat).reshape(shape), (lam_t @ flat).reshape(shape)
 
-    def evaluate(self, m, t):
-        """Activity terms at molalities m (n, s) [mol/kg] and temperature t (n,) [K].
+    def temperature_terms(self, t):
+        """What depends on temperature alone: (A_phi, dA_phi/dT, W0, dW0/dT), for ``evaluate``."""
+        amp, amp_t, _ = a_phi(t, self.a_phi_coefficients)
+        return (amp, amp_t, *self._w0(t))
+
+    def evaluate(self, m, t, terms=None):
+        """Activity terms at molalities m (n, s) [mol/kg] and temperature t (n,) [K] (terms:
+        ``temperature_terms(t)``, computed here if not given).
 
         Returns ln_gamma (n, s), hessian (n, s, s) [kg/mol], ln_aw (n,), dln_aw_dm (n, s)
-        [kg/mol], dln_gamma_dt (n, s) [1/K] and dln_aw_dt (n,) [1/K] at fixed m."""
+        [kg/mol], dln_gamma_dt (n, s) [1/K] and dln_aw_dt (n,) [1/K] at fixed m, and the ionic
+        strength (n,) [mol/kg]."""
         q, b = self.q, self.b
+        n = m.shape[0]
         ionic = np.maximum(m @ q, 1e-30)
         root = np.sqrt(ionic)
         one = 1.0 + b * root
         log_one = np.log(one)
-        f = -4.0 * ionic / b * log_one
+        f = -4.0 / b * ionic * log_one
         f1 = -(4.0 / b * log_one + 2.0 * root / one)
-        f2 = -(2.0 / (root * one) + 1.0 / (root * one * one))
-        amp, amp_t, _ = a_phi(t, self.a_phi_coefficients)
-        w0, w0_t = self._w0(t)
-        w0m = np.einsum("nij,nj->ni", w0, m) if w0.ndim == 3 else m @ w0
-        wm = w0m
-        curvature = amp * f2
-        ln_gamma_scalar = amp * f1
-        g = amp * f + 0.5 * np.einsum("ni,ni->n", m, w0m)
-        hessian = np.broadcast_to(w0, (m.shape[0],) + w0.shape[-2:]).copy()
+        f2 = -(2.0 + 1.0 / one) / (root * one)
+        amp, amp_t, w0, w0_t = terms if terms is not None else self.temperature_terms(t)
+        if w0.ndim == 2:
+            wm = m @ w0  # W0 is symmetric
+            hessian = np.broadcast_to(w0, (n,) + w0.shape)
+        else:
+            wm = np.matmul(w0, m[:, :, None])[:, :, 0]
+            hessian = w0
+        g = amp * f + 0.5 * (m * wm).sum(axis=1)
+        scalar = amp * f1  # coefficient of q in ln gamma
+        curvature = amp * f2  # coefficient of q q^T in the Hessian
+        a = np.zeros_like(m)  # the Hessian's cross term a q^T + q a^T
         if self.has_w1:
             h, h_x, h_xx = pitzer_h(self.alpha * root)
             dx = self.alpha / (2.0 * root)  # dx/dI
             h_i = h_x * dx
-            h_ii = h_xx * dx * dx - h_x * dx / (2.0 * ionic)
+            h_ii = dx * (h_xx * dx - h_x / (2.0 * ionic))
             w1m = m @ self.w1
-            mw1m = np.einsum("ni,ni->n", m, w1m)
-            wm = w0m + h[:, None] * w1m
+            mw1m = (m * w1m).sum(axis=1)
+            wm = wm + h[:, None] * w1m
             g = g + 0.5 * h * mw1m
-            ln_gamma_scalar = ln_gamma_scalar + 0.5 * h_i * mw1m
+            scalar = scalar + 0.5 * h_i * mw1m
             curvature = curvature + 0.5 * h_ii * mw1m
-            hessian += h[:, None, None] * self.w1
-            cross = h_i[:, None, None] * w1m[:, :, None] * q[None, None, :]
-            hessian += cross + np.swapaxes(cross, 1, 2)
-        ln_gamma = ln_gamma_scalar[:, None] * q + wm
-        hessian += curvature[:, None, None] * np.outer(q, q)
+            hessian = hessian + np.multiply.outer(h, self.w1)
+            a = h_i[:, None] * w1m
+        ln_gamma = scalar[:, None] * q + wm
+        qn = np.broadcast_to(q, m.shape)
+        left = np.stack([a, qn, curvature[:, None] * q], axis=2)  # (n, s, 3)
+        right = np.stack([qn, a, qn], axis=1)  # (n, 3, s)
+        hessian = hessian + np.matmul(left, right)
         mw = self.water_molar_mass
-        ln_aw = mw * (g - np.einsum("ni,ni->n", m, 1.0 + ln_gamma))
-        dln_aw_dm = -mw * (1.0 + np.einsum("nij,nj->ni", hessian, m))
+        ln_aw = mw * (g - (m * (1.0 + ln_gamma)).sum(axis=1))
+        # H m without the Hessian: W m + a I + q (a.m) + curvature q I  (q.m = I)
+        hm = wm + a * ionic[:, None] + q * ((a * m).sum(axis=1) + curvature * ionic)[:, None]
+        dln_aw_dm = -mw * (1.0 + hm)
         dln_gamma_dt = (amp_t * f1)[:, None] * q
         g_t = amp_t * f
         if w0_t is not None:
-            w0m_t = np.einsum("nij,nj->ni", w0_t, m)
+            w0m_t = np.matmul(w0_t, m[:, :, None])[:, :, 0]
             dln_gamma_dt = dln_gamma_dt + w0m_t
-            g_t = g_t + 0.5 * np.einsum("ni,ni->n", m, w0m_t)
-        dln_aw_dt = mw * (g_t - np.einsum("ni,ni->n", m, dln_gamma_dt))
+            g_t = g_t + 0.5 * (m * w0m_t).sum(axis=1)
+        dln_aw_dt = mw * (g_t - (m * dln_gamma_dt).sum(axis=1))
         return ln_gamma, hessian, ln_aw, dln_aw_dm, dln_gamma_dt, dln_aw_dt, ionic
