@@ -16,6 +16,7 @@ import numpy as np
 
 from ...errors import ComponentDataError
 from ..constants import GAS_CONSTANT
+from ..correlations import ln_henry_terms
 from ..library import library_directory
 
 FILE_NAME = "aqueous-equilibria.toml"
@@ -56,14 +57,9 @@ class ElectrolyteData:
 
 
 def coefficient_terms(temperature):
-    """[1/T, ln T, T, 1] and their first and second T-derivatives, shape (..., 3, 4)."""
-    t = np.asarray(temperature, dtype=float)[..., None]
-    inverse = 1.0 / t
-    zero, one = np.zeros_like(t), np.ones_like(t)
-    value = np.concatenate([inverse, np.log(t), t, one], axis=-1)
-    first = np.concatenate([-inverse * inverse, inverse, one, zero], axis=-1)
-    second = np.concatenate([2.0 * inverse**3, -inverse * inverse, zero, zero], axis=-1)
-    return np.stack([value, first, second], axis=-2)
+    """[1/T, ln T, T, 1] and their first and second T-derivatives, shape (..., 3, 4): the terms
+    b, c, d, a of the ln-form correlation (``correlations.ln_henry_terms``, their one home)."""
+    return np.moveaxis(ln_henry_terms(temperature, (1, 2, 3, 0)), (0, 1), (-2, -1))
 
 
 def van_t_hoff_coefficients(k_ref, dh_ref, dcp, t_ref):
