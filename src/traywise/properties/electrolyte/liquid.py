@@ -107,23 +107,26 @@ class AqueousElectrolyte:
         if self._last is not None and self._last[0].shape == t.shape:  # first-order prediction from the last call
             t_last, ln_totals_last, y_last, dy_dt_last, dy_dln_last = self._last
             start = y_last + dy_dt_last * (t - t_last)[:, None] + np.matmul(dy_dln_last, (ln_totals - ln_totals_last)[:, :, None])[:, :, 0]
-        eq = system.solve(t, totals, start)
-        dy_dt, dy_dln = eq.sensitivity(system)
+        solved = system.solve(t, totals, start)
+        # one batch at t and t +- dT: the solved state evaluated afresh (its Jacobian exact), and the
+        # states at t +- dT predicted to first order, whose errors, of order dT**2, are alike on both
+        # sides and leave the central difference second-order accurate
+        n = t.size
+        shift = TEMPERATURE_STEP * np.linalg.solve(solved.jacobian, -system.dr_dt(solved)[:, :, None])[:, :, 0]
+        batch = system.evaluate_at(np.concatenate([solved.y, solved.y + shift, solved.y - shift]),
+                                   np.concatenate([t, t + TEMPERATURE_STEP, t - TEMPERATURE_STEP]), np.tile(totals, (3, 1)))
+        dy_dt_all, dy_dln_all = batch.sensitivity(system)
+        dphi_all, daw_all = self._temperature_derivatives(batch, dy_dt_all)
+        eq = batch.head(n)
+        dy_dt, dy_dln = dy_dt_all[:n], dy_dln_all[:n]
         self._last = (t.copy(), ln_totals, eq.y, dy_dt, dy_dln)
-        # the states at t +- dT predicted to first order: their errors, of order dT**2, are alike on
-        # both sides and leave the central difference second-order accurate
-        n, shift = t.size, TEMPERATURE_STEP * dy_dt
-        sides = system.evaluate_at(np.concatenate([eq.y + shift, eq.y - shift]),
-                                   np.concatenate([t + TEMPERATURE_STEP, t - TEMPERATURE_STEP]), np.tile(totals, (2, 1)))
-        dphi_dt, daw_dt = self._temperature_derivatives(eq, dy_dt)
-        dphi_sides, daw_sides = self._temperature_derivatives(sides, sides.sensitivity(system, temperature_only=True)[0])
         m = eq.m[:, :, None]
         mdy = m * dy_dln
         da_dln = dy_dln + np.matmul(eq.hessian, mdy)  # (n, s, k)
         daw_dln = np.matmul(eq.dln_aw_dm[:, None, :], mdy)[:, 0, :]
         phi = (eq.y + eq.ln_gamma) @ self.outputs.T
-        return (eq, totals, ln_totals, above, phi, (dphi_dt, dphi_sides[:n], dphi_sides[n:]),
-                (daw_dt, daw_sides[:n], daw_sides[n:]),
+        return (eq, totals, ln_totals, above, phi, (dphi_all[:n], dphi_all[n:2 * n], dphi_all[2 * n:]),
+                (daw_all[:n], daw_all[n:2 * n], daw_all[2 * n:]),
                 self.outputs @ da_dln, daw_dln)
 
     def _temperature_derivatives(self, eq, dy_dt):

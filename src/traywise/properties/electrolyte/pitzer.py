@@ -23,29 +23,29 @@ import numpy as np
 from .data import a_phi
 
 WATER_MOLAR_MASS = 0.018015268  # kg/mol (IAPWS-95)
-SERIES_LIMIT = 0.6  # below this x, h and its derivatives from their Taylor series (cancellation)
-_SERIES = np.array([2.0 * (-1.0) ** j * (j + 1) / np.prod(np.arange(1.0, j + 3.0)) for j in range(14)])
+SERIES_LIMIT = 0.01  # below this x, Pitzer's h(x) from its Taylor series
 
 
 def pitzer_h(x):
-    """h(x) = 2 [1 - (1 + x) e^-x] / x**2 and its first two x-derivatives (Pitzer's g function)."""
+    """h(x) = 2 [1 - (1 + x) e^-x] / x**2 and its first two x-derivatives (Pitzer's g function).
+
+    The differences are formed from exp(-x) and expm1(-x); below x = SERIES_LIMIT (where they
+    would lose digits) the Taylor series h = 1 - 2x/3 + x**2/4 - x**3/15 + x**4/72 - ... is used."""
     x = np.asarray(x, dtype=float)
+    xs = np.maximum(x, SERIES_LIMIT)
+    e = np.exp(-xs)
+    u = -np.expm1(-xs) - xs * e  # 1 - (1 + x) e^-x
+    v = xs * xs * e - 2.0 * u  # x**3 h'/2
+    w = -(xs**3) * e - 3.0 * v  # x**4 h''/2
+    x2 = xs * xs
+    h, h1, h2 = 2.0 * u / x2, 2.0 * v / (x2 * xs), 2.0 * w / (x2 * x2)
     small = x < SERIES_LIMIT
-    xs = np.where(small, x, 0.0)
-    powers = xs[..., None] ** np.arange(14)
-    j = np.arange(14)
-    series = powers @ _SERIES
-    series_1 = (powers[..., :-1] * (j[1:] * _SERIES[1:])).sum(axis=-1)
-    series_2 = (powers[..., :-2] * (j[2:] * (j[2:] - 1) * _SERIES[2:])).sum(axis=-1)
-    xl = np.where(small, 1.0, x)
-    e = np.exp(-xl)
-    u = 1.0 - (1.0 + xl) * e
-    v = xl * xl * e - 2.0 * u  # x**3 h'/2
-    closed = 2.0 * u / xl**2
-    closed_1 = 2.0 * v / xl**3
-    closed_2 = 2.0 * (-(xl**3) * e - 3.0 * v) / xl**4
-    return (np.where(small, series, closed), np.where(small, series_1, closed_1),
-            np.where(small, series_2, closed_2))
+    if small.any():
+        t = np.where(small, x, 0.0)
+        h = np.where(small, 1.0 + t * (-2.0 / 3.0 + t * (0.25 + t * (-1.0 / 15.0 + t / 72.0))), h)
+        h1 = np.where(small, -2.0 / 3.0 + t * (0.5 + t * (-0.2 + t * (1.0 / 18.0 - t / 84.0))), h1)
+        h2 = np.where(small, 0.5 + t * (-0.4 + t * (1.0 / 6.0 - t * 1.0 / 21.0)), h2)
+    return h, h1, h2
 
 
 class Pitzer:

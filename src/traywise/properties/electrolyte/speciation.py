@@ -20,7 +20,7 @@ temperature and to each apparent molality (``Equilibrium.sensitivity``).
 Reference: T. J. Edwards, G. Maurer, J. Newman, J. M. Prausnitz, AIChE J. 24 (1978) 966-976.
 """
 
-from dataclasses import dataclass
+from dataclasses import dataclass, fields
 
 import numpy as np
 
@@ -29,8 +29,7 @@ from .data import coefficient_terms
 from .pitzer import Pitzer
 
 MAX_STEP = 3.0  # largest change of any ln m in one Newton step
-TOLERANCE = 1e-9  # on the largest ln m change; the last step is taken (error about its square), and
-# the Jacobian and sensitivities are those of the state before it, off by as little
+TOLERANCE = 1e-6  # on the largest ln m change; the last step is taken (error about its square)
 MAX_ITERATIONS = 60
 MOLALITY_FLOOR = 1e-9  # mol/kg: apparent molalities below this are taken as this (a trace)
 LN_H_BRACKET = (-46.0, 5.0)  # ln m(H+) bracket of the cold start (pH -2 to 20)
@@ -76,6 +75,11 @@ class Equilibrium:
     jacobian: np.ndarray
     dlnk_dt: np.ndarray  # (n, s) of the mass-action rows
     iterations: int
+
+    def head(self, n):
+        """The record of the first n stages."""
+        return Equilibrium(*(getattr(self, f.name)[:n] if f.name != "iterations" else self.iterations
+                             for f in fields(self)))
 
     def sensitivity(self, system, temperature_only=False):
         """d y / d T (n, s) and d y / d ln T_j (n, s, k) by the implicit-function theorem
