@@ -112,7 +112,7 @@ class AqueousElectrolyte:
         # states at t +- dT predicted to first order, whose errors, of order dT**2, are alike on both
         # sides and leave the central difference second-order accurate
         n = t.size
-        shift = TEMPERATURE_STEP * np.linalg.solve(solved.jacobian, -system.dr_dt(solved)[:, :, None])[:, :, 0]
+        shift = TEMPERATURE_STEP * solved.dy_dt_before
         batch = system.evaluate_at(np.concatenate([solved.y, solved.y + shift, solved.y - shift]),
                                    np.concatenate([t, t + TEMPERATURE_STEP, t - TEMPERATURE_STEP]), np.tile(totals, (3, 1)))
         dy_dt_all, dy_dln_all = batch.sensitivity(system)

@@ -9,7 +9,7 @@ Per kilogram of water, with molalities m_i [mol/kg], charges z_i, I = sum z_i**2
 
 W holding 2 (beta0 + beta1 h) for each cation-anion pair (Pitzer, J. Phys. Chem. 77 (1973) 268,
 eqs. 10-12 without the third virial term) and 2 lambda for each molecule-molecule pair
-(lambda m**2 for a molecule with itself). Then
+(lambda m**2 in g for a molecule with itself, 2 lambda m_i m_j for two different ones). Then
 
     ln gamma_i = d g / d m_i,     ln a_water = M_w (g - sum_i m_i (1 + ln gamma_i)),
 
@@ -71,30 +71,20 @@ class Pitzer:
             for a, c in ((i, j), (j, i)):
                 self.w0[a, c] += 2.0 * beta0
                 self.w1[a, c] += 2.0 * beta1
-        self.patterns = np.zeros((len(neutrals), s, s))
+        self.pairs = [(i, j) for i, j, *_ in neutrals]
         self.lambdas = np.array([(a, b_, c) for _, _, a, b_, c in neutrals]).reshape(-1, 3)
-        for p, (i, j, *_) in enumerate(neutrals):
-            self.patterns[p, i, j] += 1.0
-            self.patterns[p, j, i] += 1.0
         self.has_w1 = bool(np.any(self.w1))
         self.a_phi_coefficients, self.b, self.alpha = a_phi_coefficients, b, alpha
         self.water_molar_mass = water_molar_mass
 
-    def _w0(self, t):
-        """W0 (n, s, s) or (s, s) and its temperature derivative (or None)."""
-        if not len(self.patterns):
-            return self.w0, None
+    def temperature_terms(self, t):
+        """What depends on temperature alone: (A_phi, dA_phi/dT, lambda, dlambda/dT) with
+        lambda (n, pairs) of the molecule pairs, for ``evaluate``."""
+        amp, amp_t, _ = a_phi(t, self.a_phi_coefficients)
         inverse = 1.0 / t[:, None]
         lam = self.lambdas[:, 0] + inverse * (self.lambdas[:, 1] + inverse * self.lambdas[:, 2])
         lam_t = -inverse * inverse * (self.lambdas[:, 1] + 2.0 * inverse * self.lambdas[:, 2])
-        shape = (t.size,) + self.w0.shape
-        flat = self.patterns.reshape(len(self.patterns), -1)
-        return self.w0 + (lam @ flat).reshape(shape), (lam_t @ flat).reshape(shape)
-
-    def temperature_terms(self, t):
-        """What depends on temperature alone: (A_phi, dA_phi/dT, W0, dW0/dT), for ``evaluate``."""
-        amp, amp_t, _ = a_phi(t, self.a_phi_coefficients)
-        return (amp, amp_t, *self._w0(t))
+        return amp, amp_t, lam, lam_t
 
     def evaluate(self, m, t, terms=None):
         """Activity terms at molalities m (n, s) [mol/kg] and temperature t (n,) [K] (terms:
@@ -112,13 +102,14 @@ class Pitzer:
         f = -4.0 / b * ionic * log_one
         f1 = -(4.0 / b * log_one + 2.0 * root / one)
         f2 = -(2.0 + 1.0 / one) / (root * one)
-        amp, amp_t, w0, w0_t = terms if terms is not None else self.temperature_terms(t)
-        if w0.ndim == 2:
-            wm = m @ w0  # W0 is symmetric
-            hessian = np.broadcast_to(w0, (n,) + w0.shape)
-        else:
-            wm = np.matmul(w0, m[:, :, None])[:, :, 0]
-            hessian = w0
+        amp, amp_t, lam, lam_t = terms if terms is not None else self.temperature_terms(t)
+        wm = m @ self.w0  # W0 is symmetric
+        wm_t = np.zeros_like(m) if self.pairs else None
+        for p, (i, j) in enumerate(self.pairs):  # molecule pairs: W_ij = W_ji = 2 lambda
+            for a, c in ((i, j),) if i == j else ((i, j), (j, i)):
+                wm[:, a] += 2.0 * lam[:, p] * m[:, c]
+                wm_t[:, a] += 2.0 * lam_t[:, p] * m[:, c]
+        hessian = np.broadcast_to(self.w0, (n,) + self.w0.shape)
         g = amp * f + 0.5 * (m * wm).sum(axis=1)
         scalar = amp * f1  # coefficient of q in ln gamma
         curvature = amp * f2  # coefficient of q q^T in the Hessian
@@ -141,6 +132,10 @@ class Pitzer:
         left = np.stack([a, qn, curvature[:, None] * q], axis=2)  # (n, s, 3)
         right = np.stack([qn, a, qn], axis=1)  # (n, 3, s)
         hessian = hessian + np.matmul(left, right)
+        for p, (i, j) in enumerate(self.pairs):
+            hessian[:, i, j] += 2.0 * lam[:, p]
+            if i != j:
+                hessian[:, j, i] += 2.0 * lam[:, p]
         mw = self.water_molar_mass
         ln_aw = mw * (g - (m * (1.0 + ln_gamma)).sum(axis=1))
         # H m without the Hessian: W m + a I + q (a.m) + curvature q I  (q.m = I)
@@ -148,9 +143,8 @@ class Pitzer:
         dln_aw_dm = -mw * (1.0 + hm)
         dln_gamma_dt = (amp_t * f1)[:, None] * q
         g_t = amp_t * f
-        if w0_t is not None:
-            w0m_t = np.matmul(w0_t, m[:, :, None])[:, :, 0]
-            dln_gamma_dt = dln_gamma_dt + w0m_t
-            g_t = g_t + 0.5 * (m * w0m_t).sum(axis=1)
+        if wm_t is not None:
+            dln_gamma_dt = dln_gamma_dt + wm_t
+            g_t = g_t + 0.5 * (m * wm_t).sum(axis=1)
         dln_aw_dt = mw * (g_t - (m * dln_gamma_dt).sum(axis=1))
         return ln_gamma, hessian, ln_aw, dln_aw_dm, dln_gamma_dt, dln_aw_dt, ionic

@@ -75,11 +75,12 @@ class Equilibrium:
     jacobian: np.ndarray
     dlnk_dt: np.ndarray  # (n, s) of the mass-action rows
     iterations: int
+    dy_dt_before: np.ndarray | None = None  # d y/dT at the state before Newton's last step (n, s)
 
     def head(self, n):
         """The record of the first n stages."""
-        return Equilibrium(*(getattr(self, f.name)[:n] if f.name != "iterations" else self.iterations
-                             for f in fields(self)))
+        return Equilibrium(*(value[:n] if isinstance(value, np.ndarray) else value
+                             for value in (getattr(self, f.name) for f in fields(self))))
 
     def sensitivity(self, system, temperature_only=False):
         """d y / d T (n, s) and d y / d ln T_j (n, s, k) by the implicit-function theorem
@@ -196,7 +197,7 @@ class SpeciationSystem:
         return np.log1p(self.water_molar_mass * totals_rows[:, self.sodium_row])
 
     def dr_dt(self, eq):
-        """d R / d T at fixed y and totals (n, s)."""
+        """d R / d T at fixed y and totals (n, s) (the mass-action rows: ln K, ln gamma, ln a_w)."""
         return eq.dln_gamma_dt @ self.c.T - eq.dln_aw_dt[:, None] * self.nu_w - eq.dlnk_dt
 
     def _rows_of_totals(self, totals):
@@ -257,15 +258,15 @@ class SpeciationSystem:
         for attempt in ("warm", "cold"):
             if attempt == "cold" or start is None:
                 start = self._cold_start(t, totals, ln_k)
-            result = self._newton(start, t, ln_k, rows)
+            result = self._newton(start, t, ln_k, dlnk_dt, rows)
             if result is not None:
                 break
         else:
             raise PropertyRangeError("the aqueous speciation did not converge (electrolyte liquid): "
                                      f"temperatures {t.min():.1f}-{t.max():.1f} K, largest apparent molality {totals.max():.3g} mol/kg")
-        y, r, jacobian, m, activity, iterations = result
+        y, jacobian, m, activity, iterations, dy_dt = result
         self._cache[t.shape] = y
-        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, iterations)
+        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, iterations, dy_dt)
 
     def evaluate_at(self, y, t, totals):
         """The ``Equilibrium`` record of given ln m (n, s), without iterating (for states
@@ -277,12 +278,16 @@ class SpeciationSystem:
         _, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, self._rows_of_totals(totals), terms)
         return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, 0)
 
-    def _newton(self, y, t, ln_k, rows):
+    def _newton(self, y, t, ln_k, dlnk_dt, rows):
+        """Newton's method from y; returns (y, Jacobian before the last step, m, activity terms,
+        iterations, d y/dT before the last step), or None when it fails."""
         y = y.copy()
         terms = self.pitzer.temperature_terms(t)
         for iteration in range(1, MAX_ITERATIONS + 1):
             r, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, rows, terms)
-            step = np.linalg.solve(jacobian, -r[:, :, None])[:, :, 0]
+            dr_dt = activity[4] @ self.c.T - activity[5][:, None] * self.nu_w - dlnk_dt
+            both = np.linalg.solve(jacobian, -np.stack([r, dr_dt], axis=2))  # the step and d y/dT
+            step = both[:, :, 0]
             biggest = np.abs(step).max(axis=1, keepdims=True)
             if not np.all(np.isfinite(biggest)):
                 return None
@@ -295,6 +300,6 @@ class SpeciationSystem:
                 ln_gamma, hessian, ln_aw, dln_aw_dm, *rest = activity
                 ln_gamma = ln_gamma + np.matmul(hessian, dm[:, :, None])[:, :, 0]
                 ln_aw = ln_aw + (dln_aw_dm * dm).sum(axis=1)
-                return y, r, jacobian, m, (ln_gamma, hessian, ln_aw, dln_aw_dm, *rest), iteration
+                return y, jacobian, m, (ln_gamma, hessian, ln_aw, dln_aw_dm, *rest), iteration, both[:, :, 1]
             y += step * np.minimum(1.0, MAX_STEP / np.maximum(biggest, 1e-300))
         return None
