@@ -32,6 +32,7 @@ CAS = {"7732-18-5": "water", "7664-41-7": "NH3", "124-38-9": "CO2", "7783-06-4":
        "7446-09-5": "SO2", "7647-01-0": "HCl", "1310-73-2": "NaOH"}
 TEMPERATURE_STEP = 1e-2  # K, central difference of the enthalpies for their temperature derivative
 PASCAL_PER_BAR = 1e5
+PREDICTION_LIMIT = 2.0  # largest change of any ln m the prediction from the last call may make
 
 
 class AqueousElectrolyte:
@@ -106,7 +107,8 @@ class AqueousElectrolyte:
         start = None
         if self._last is not None and self._last[0].shape == t.shape:  # first-order prediction from the last call
             t_last, ln_totals_last, y_last, dy_dt_last, dy_dln_last = self._last
-            start = y_last + dy_dt_last * (t - t_last)[:, None] + np.matmul(dy_dln_last, (ln_totals - ln_totals_last)[:, :, None])[:, :, 0]
+            change = dy_dt_last * (t - t_last)[:, None] + np.matmul(dy_dln_last, (ln_totals - ln_totals_last)[:, :, None])[:, :, 0]
+            start = y_last + np.clip(change, -PREDICTION_LIMIT, PREDICTION_LIMIT)
         solved = system.solve(t, totals, start)
         # one batch at t and t +- dT: the solved state evaluated afresh (its Jacobian exact), and the
         # states at t +- dT predicted to first order, whose errors, of order dT**2, are alike on both

@@ -32,6 +32,7 @@ MAX_STEP = 3.0  # largest change of any ln m in one Newton step
 TOLERANCE = 1e-6  # on the largest ln m change; the last step is taken (error about its square)
 MAX_ITERATIONS = 60
 MOLALITY_FLOOR = 1e-9  # mol/kg: apparent molalities below this are taken as this (a trace)
+LN_M_RANGE = (-700.0, 12.0)  # ln m [mol/kg] kept inside this during the iteration (no overflow)
 LN_H_BRACKET = (-46.0, 5.0)  # ln m(H+) bracket of the cold start (pH -2 to 20)
 
 SOLUTES = ("NH3", "CO2", "H2S", "SO2", "HCl", "NaOH")
@@ -281,12 +282,18 @@ class SpeciationSystem:
     def _newton(self, y, t, ln_k, dlnk_dt, rows):
         """Newton's method from y; returns (y, Jacobian before the last step, m, activity terms,
         iterations, d y/dT before the last step), or None when it fails."""
-        y = y.copy()
+        with np.errstate(over="ignore", invalid="ignore"):  # a failing start is detected, not warned about
+            return self._newton_steps(np.clip(y, *LN_M_RANGE), t, ln_k, dlnk_dt, rows)
+
+    def _newton_steps(self, y, t, ln_k, dlnk_dt, rows):
         terms = self.pitzer.temperature_terms(t)
         for iteration in range(1, MAX_ITERATIONS + 1):
             r, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, rows, terms)
             dr_dt = activity[4] @ self.c.T - activity[5][:, None] * self.nu_w - dlnk_dt
-            both = np.linalg.solve(jacobian, -np.stack([r, dr_dt], axis=2))  # the step and d y/dT
+            try:
+                both = np.linalg.solve(jacobian, -np.stack([r, dr_dt], axis=2))  # the step and d y/dT
+            except np.linalg.LinAlgError:
+                return None
             step = both[:, :, 0]
             biggest = np.abs(step).max(axis=1, keepdims=True)
             if not np.all(np.isfinite(biggest)):
@@ -302,4 +309,5 @@ class SpeciationSystem:
                 ln_aw = ln_aw + (dln_aw_dm * dm).sum(axis=1)
                 return y, jacobian, m, (ln_gamma, hessian, ln_aw, dln_aw_dm, *rest), iteration, both[:, :, 1]
             y += step * np.minimum(1.0, MAX_STEP / np.maximum(biggest, 1e-300))
+            np.clip(y, LN_M_RANGE[0], LN_M_RANGE[1], out=y)
         return None
