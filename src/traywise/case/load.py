@@ -196,7 +196,7 @@ class _CaseBuilder:
         report = top.table("report", REPORT_KEYS) or Section({}, "report", top.file)
         plots = report.boolean("plots", True)
         xy_solute = self._xy_solute(report, key, solvent)
-        design = read_design(top, model=model, column_input=column_input, key=key, gas_flows=flows["gas_feed"],
+        design = read_design(top, model=model, column=column, column_input=column_input, key=key, gas_flows=flows["gas_feed"],
                              solvent=solvent)
         sweep = top.table("sweep", SWEEP_KEYS)
         internals = read_internals(top)
