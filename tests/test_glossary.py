@@ -7,6 +7,7 @@ import pytest
 
 from traywise.column import Column, Feed, SideDraw
 from traywise.glossary import GLOSSARY
+from traywise.inert_basis.comparison import Comparison, IsothermalPoint, SoluteComparison
 from traywise.inert_basis.design import InertBasisDesign
 from traywise.mesh.solution import ColumnSolution, Convergence, HeatBreakdown
 from traywise.properties.model import StageProperties
@@ -16,7 +17,8 @@ from traywise.sizing.stage_loads import StageLoads
 from traywise.sizing.trays import TrayHydraulics, TrayInternals
 
 PUBLIC_RECORDS = (Column, Feed, SideDraw, ColumnSolution, Convergence, HeatBreakdown, StageProperties, InertBasisDesign,
-                  ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics)
+                  ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics, Comparison,
+                  SoluteComparison, IsothermalPoint)
 
 
 def _public_names(record):
