@@ -127,7 +127,7 @@ def _base_for(kind):
         text = variant("[gas_feed]", oil, text)
         return variant('flow = "1500 kg/h"', 'flow = "1500 kg/h"\ncomposition = { "demo oil" = 1.0 }', text)
     if kind == "murphree":
-        return variant("stages = 6\n", "stages = 6\nmurphree_efficiency = [0.7, 0.8, 0.9, 0.9, 0.9, 0.9]\n")
+        return variant("overall_efficiency = 0.5\n", "murphree_efficiency = [0.7, 0.8, 0.9, 0.9, 0.9, 0.9]\n")
     return DEMO
 
 
