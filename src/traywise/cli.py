@@ -68,7 +68,7 @@ class _Command(click.Command):
         except (CaseError, ComponentDataError, PinchError, PropertyRangeError) as error:
             _fail(ctx, str(error), EXIT_INPUT)
         except ConvergenceError as error:
-            _fail(ctx, str(error), EXIT_CONVERGENCE)
+            _fail(ctx, _no_result(error), EXIT_CONVERGENCE)
         except TargetNotReached as error:
             _fail(ctx, f"design target not reached: {error}", EXIT_CONVERGENCE)
         except OSError as error:
@@ -78,6 +78,16 @@ class _Command(click.Command):
 class _Group(click.Group):
     command_class = _Command
     group_class = type  # subgroups are _Group too
+
+
+def _no_result(error):
+    """What happened when the stage equations gave no result: they did not converge, or they
+    converged to a state that cannot exist (``UnphysicalSolution``)."""
+    from .errors import UnphysicalSolution
+
+    if isinstance(error, UnphysicalSolution):
+        return f"the converged column is physically impossible, so no result is given: {error}"
+    return f"no converged solution: {error}"
 
 
 def _fail(ctx, message, status):
@@ -140,14 +150,10 @@ def _load(ctx, case_file, quiet, verbose, *, target=None):
 def _run(ctx, case_file, quiet, verbose, *, target=None, plots=False):
     """Load and run a case (designed first when it has a [design] table): its CaseRun; the x-y
     diagram's design only when ``plots`` are drawn."""
-    from .errors import ConvergenceError
     from .run import RunSettings, run_case
 
     case = _load(ctx, case_file, quiet, verbose, target=target)
-    try:
-        return run_case(case, RunSettings(xy_diagram=plots and case.plots))
-    except ConvergenceError as error:
-        _fail(ctx, f"no converged solution: {error}", EXIT_CONVERGENCE)
+    return run_case(case, RunSettings(xy_diagram=plots and case.plots))  # errors: _Command tells them
 
 
 def _echo_warnings(record):

@@ -196,4 +196,6 @@ GLOSSARY = {
     "isothermal_outlet_mole_fraction": ("-", "the same by the isothermal method with the rigorous stages"),
     "rigorous_fraction_absorbed": ("-", "fraction of a solute absorbed by the rigorous column"),
     "isothermal_fraction_absorbed": ("-", "the same by the isothermal method"),
+    "pinched": ("-", "whether an isothermal design cannot reach the removal at all (a pinch)"),
+    "solvent_free_outlet_mole_fraction": ("-", "Kremser's outlet free of the solvent vapour the gas feed brought"),
 }

@@ -287,6 +287,7 @@ def _kremser(case, solution, comparison):
         solvent_flows=column.solvent.component_flows, temperature=comparison.temperature,
         pressure=comparison.pressure, n_stages=comparison.rigorous_stages,
         key_fraction_absorbed=float(solution.fraction_absorbed[case.model.names.index(key)]),
+        solvent_index=case.model.names.index(case.solvent),
     )
 
 

@@ -6,6 +6,7 @@ tray efficiency). Read into a ``DesignInput`` whose fields are those the design 
 import re
 from dataclasses import dataclass
 
+from ..design.variables import stage_bound
 from .limits import check_range
 from .units import UnitProblem, composition_basis_of, split_number, to_si
 
@@ -67,13 +68,14 @@ class DesignInput:
         }
 
 
-def read_design(top, *, model, column_input, key, gas_flows, solvent):
+def read_design(top, *, model, column, column_input, key, gas_flows, solvent):
     """The ``[design]`` table of the top-level Section as a DesignInput, or None when absent.
 
     Parameters
     ----------
     top : Section                 The case file's top level
     model : PropertyModel
+    column : Column               The column built from the case
     column_input : ColumnInput    The ``[column]`` table as read
     key : int                     Index of the key component
     gas_flows : ndarray (c,)      Component flows of the gas feed [mol/s]
@@ -102,7 +104,7 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
     if solve_for == "cooler_duty" and limit_place is None:
         section.fail("solve_for", "solving for 'cooler_duty' needs a temperature limit to hold: add "
                      "liquid_out_temperature_limit or column_temperature_limit (e.g. \"40 degC\")")
-    fixed = _fixed_in_place(column_input)
+    fixed = _fixed_in_place(column, column_input)
     if solve_for == "n_stages" and fixed:
         section.fail("solve_for", f"'stages' changes the stage count, which leaves {' and '.join(fixed)} without a fixed "
                      "place; remove them or solve for 'solvent_flow' instead")
@@ -111,6 +113,11 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
         section.fail("oconnell_efficiency", f"trays are found by changing the stage count, which leaves {what} without "
                      "a fixed place; remove oconnell_efficiency (the column table's overall_efficiency still gives "
                      "the trays of the designed column)")
+    unfit = _fixed_in_place(column, column_input, longer_only=True)
+    if minimum and unfit:
+        section.fail("minimum_solvent", f"the minimum solvent flow is found on columns with many more stages, which "
+                     f"leave {' and '.join(unfit)} without a fixed place; give one value for every stage or remove "
+                     "minimum_solvent")
     if oconnell and not model.components[solvent].is_water:
         section.fail("oconnell_efficiency", f"O'Connell's correlation needs the liquid's viscosity and density, which "
                      f"traywise has for water only (the solvent is {model.names[solvent]}); give "
@@ -195,16 +202,15 @@ def _cooler_stage(section, solve_for, column_input):
     return stage
 
 
-def _fixed_in_place(column_input):
-    """What in the column has a place that a different stage count leaves undefined."""
-    c = column_input
-    fixed = [
-        (bool(c.coolers), "[[column.cooler]] tables"),
-        (c.heat_loss > 0.0, "column.heat_loss"),
-        (bool(c.side_feeds), "[[column.side_feed]] tables"),
-        (bool(c.side_draws), "[[column.side_draw]] tables"),
-        (len(set(c.murphree.tolist())) > 1, "a column.murphree_efficiency that differs from stage to stage"),
-        (c.temperature is not None and len(set(c.temperature.tolist())) > 1,
-         "a column.isothermal_temperature that differs from stage to stage"),
-    ]
-    return [what for present, what in fixed if present]
+def _fixed_in_place(column, column_input, *, longer_only=False):
+    """The case keys of what a different stage count (``longer_only``: a larger one) leaves
+    without a place in ``column`` (the rule is the design layer's ``stage_bound``)."""
+    keys = {
+        "extra_feeds": ["[[column.side_feed]] tables"],
+        "side_draws": ["[[column.side_draw]] tables"],
+        "murphree": ["a column.murphree_efficiency that differs from stage to stage"],
+        "temperature": ["a column.isothermal_temperature that differs from stage to stage"],
+        "heat_removed": [what for present, what in ((bool(column_input.coolers), "[[column.cooler]] tables"),
+                                                    (column_input.heat_loss > 0.0, "column.heat_loss")) if present],
+    }
+    return [what for name in stage_bound(column, longer_only=longer_only) for what in keys[name]]
