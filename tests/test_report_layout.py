@@ -83,6 +83,12 @@ def test_html_report_renders_in_a_browser(demo, tmp_path):
     width, height = int.from_bytes(data[16:20], "big"), int.from_bytes(data[20:24], "big")
     assert (width, height) == (794, 1123)  # A4 at 96 dpi
     assert len(data) > 20_000  # a rendered page, not a blank one
+    pdf = tmp_path / "page.pdf"
+    subprocess.run([browser, "--headless", "--no-sandbox", "--disable-gpu", "--no-pdf-header-footer",
+                    f"--print-to-pdf={pdf}", (folder / "report.html").as_uri()], check=True, timeout=120,
+                   capture_output=True)
+    boxes = re.findall(rb"/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]", pdf.read_bytes())
+    assert boxes and all(abs(float(w) - 595.3) < 1.0 and abs(float(h) - 841.9) < 1.0 for w, h in boxes)  # A4 in points
 
 
 def test_streams_show_mass_and_molar_units_and_liquid_volume(demo):
