@@ -227,3 +227,10 @@ def test_an_outlet_target_that_cannot_be_read_as_a_gas_concentration_is_refused(
     with pytest.raises(CaseError, match="design.outlet_mole_fraction") as error:
         case.with_changes(**{"design.outlet_mole_fraction": written})
     assert words in str(error.value)
+
+
+def test_trace_outlets_in_any_table_are_printed_below_the_floor():
+    from traywise.report.tables import number
+
+    assert number(1.7e-49) == "< 1e-12" and number(-3e-16, 2) == "< 1e-12"
+    assert number(0.0) == "0" and number(1.015e-07) == "1.015e-07"
