@@ -28,6 +28,17 @@ EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a compone
 # Models a property model can also give a component: they need more than the component's data
 # (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
 MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos")
+# What each equilibrium model needs of a component: the Component attributes that must not be
+# None (an activity model or an equilibrium table, needed too, belongs to the case, not here).
+MODEL_NEEDS = {
+    "henry": ("henry_in_water",),
+    "raoult": ("vapour_pressure", "heat_of_vaporisation", "liquid_cp"),
+    "nonvolatile": ("liquid_cp",),
+    "insoluble": (),
+    "activity": ("henry_in_water", "vapour_pressure"),
+    "table": (),
+    "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
+}
 
 
 @dataclass(frozen=True)

@@ -34,7 +34,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..errors import InputError
-from .component import MODEL_KINDS
+from .component import MODEL_KINDS, MODEL_NEEDS
 from .binary import kij_matrix
 from .constants import GAS_CONSTANT, T_REFERENCE
 from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope, stable_polynomial_antiderivative
@@ -189,15 +189,7 @@ class PropertyModel:
     def _check(component, kind):
         if kind not in MODEL_KINDS:
             raise InputError(component.name, f"equilibrium model '{kind}' unknown; use one of {MODEL_KINDS}")
-        needs = {
-            "henry": ("henry_in_water",),
-            "raoult": ("vapour_pressure", "liquid_cp", "heat_of_vaporisation"),
-            "nonvolatile": ("liquid_cp",),
-            "insoluble": (),
-            "activity": ("henry_in_water", "vapour_pressure"),
-            "table": (),
-            "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
-        }[kind]
+        needs = MODEL_NEEDS[kind]
         missing = [key for key in needs if getattr(component, key) is None]
         if missing:
             raise InputError(component.name, f"equilibrium model '{kind}' needs {', '.join(missing)}, which it lacks")
