@@ -23,9 +23,9 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from ..design.sweep import _end_with_parent as end_with_parent  # the sweep's worker initialiser, shared
 from ..errors import TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
+from ..workers import end_with_parent
 from .perturb import perturbed_model
 
 MAX_CHUNK = 25  # samples per chunk at most: progress stays live, and a chunk's overhead stays small
@@ -149,7 +149,7 @@ _WORKER_JOB = None
 
 def _start_worker(job, parent):
     """Worker initialiser: keep the job, and end this worker when its parent ends (on Linux by
-    prctl PR_SET_PDEATHSIG, elsewhere by polling, as the sweep's workers do)."""
+    prctl PR_SET_PDEATHSIG, elsewhere by polling; ``traywise.workers``)."""
     global _WORKER_JOB
     _WORKER_JOB = job
     end_with_parent(parent)
