@@ -237,3 +237,56 @@ def test_the_readme_example_table_reads():
     assert by_name["henry_constant:nitrogen"].default  # not listed: the default
     assert correlations == ((list(by_name).index("henry_constant:ammonia"),
                              list(by_name).index("enthalpy_of_solution:ammonia"), 0.3),)
+
+
+# -- the tray efficiency -----------------------------------------------------------------------
+
+def _with_efficiency(text, column_lines, table_lines):
+    text = text.replace(f"stages = {STAGES}\n", f"stages = {STAGES}\n{column_lines}\n")
+    return text.replace('scope = "listed"\n', f'scope = "listed"\n{table_lines}\n')
+
+
+def test_murphree_efficiency_is_sampled_and_each_sample_matches_kremser_through_lewis():
+    text = _with_efficiency(DILUTE, "murphree_efficiency = 0.7", 'tray_efficiency = "10 %"')
+    result = _run(text, 16)
+    assert [e.name for e in result.inputs] == ["henry_constant:test solute", "murphree_efficiency:column"]
+    assert not result.inputs[1].default and result.inputs[1].basis == "stated in the case file"
+    assert result.converged.all() and "the Murphree efficiency is sampled too (u = 10 %" in result.sentence
+    # Dilute, straight equilibrium and operating lines, one Murphree efficiency E on every tray:
+    # the trays equal N E_o theoretical stages with Lewis's E_o = ln(1 + E (1/A - 1)) / ln(1/A)
+    # (W. K. Lewis, Ind. Eng. Chem. 28 (1936) 399), and Kremser's equation holds for that N.
+    absorption = SOLVENT_FLOW / (HENRY * result.factors[:, 0] / PRESSURE * GAS_FLOW)
+    efficiency = np.minimum(1.0, 0.7 * result.factors[:, 1])
+    stripping = 1.0 / absorption
+    theoretical = STAGES * np.log1p(efficiency * (stripping - 1.0)) / np.log(stripping)
+    expected = 1e6 * Y_IN * (1.0 - kremser_fraction_absorbed(absorption, theoretical))
+    assert _output(result, "outlet_ppmv:test solute") == pytest.approx(expected, rel=1e-5)
+
+
+def test_the_overall_efficiency_turns_each_sampled_stage_count_into_trays():
+    text = _with_efficiency(DILUTE, "overall_efficiency = 0.5", 'tray_efficiency = "10 %"')
+    result = _run(text + '[design]\nsolve_for = "stages"\nfraction_absorbed = "70 %"\n', 20)
+    overall = next(e for e in result.inputs if e.quantity == "overall_efficiency")
+    assert overall.value == 0.5 and overall.relative == 0.10
+    stages, trays = _output(result, "stages"), _output(result, "actual_trays")
+    efficiency = np.minimum(1.0, 0.5 * result.factors[:, 1])
+    assert np.array_equal(trays, np.ceil(np.round(stages / efficiency, 9)))
+    t90 = int(np.sort(trays)[math.ceil(0.9 * trays.size) - 1])
+    assert f"with 90 % confidence; with the overall tray efficiency uncertain too, {t90} actual trays" in result.sentence
+
+
+def test_the_tray_efficiency_takes_the_stated_default_unless_the_case_holds_it():
+    text = DILUTE.replace(f"stages = {STAGES}\n", f"stages = {STAGES}\nmurphree_efficiency = 0.7\n")
+    every = parse_case(text.split("[uncertainty]")[0])
+    inputs, _, _, _ = uncertainty_settings(every)
+    murphree = [e for e in inputs if e.quantity == "murphree_efficiency"]
+    assert len(murphree) == 1 and murphree[0].default and murphree[0].relative == 0.10
+    assert "common practice" in murphree[0].basis
+    held = parse_case(text.split("[uncertainty]")[0] + '[uncertainty]\ntray_efficiency = 0\n')
+    assert not [e for e in uncertainty_settings(held)[0] if e.component == "column"]
+    listed = parse_case(text)  # scope "listed" without tray_efficiency: held
+    assert [e.name for e in uncertainty_settings(listed)[0]] == ["henry_constant:test solute"]
+    # a rating column of theoretical stages with an overall efficiency: nothing solved depends on it
+    rating = parse_case(DILUTE.split("[uncertainty]")[0].replace(f"stages = {STAGES}\n",
+                                                                 f"stages = {STAGES}\noverall_efficiency = 0.5\n"))
+    assert not [e for e in uncertainty_settings(rating)[0] if e.component == "column"]

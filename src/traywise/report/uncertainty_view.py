@@ -12,6 +12,7 @@ import math
 
 from .. import __version__
 from .cautions import SAFETY_CAUTIONS, safety_one_line
+from ..uncertainty.inputs import COLUMN, MURPHREE, OVERALL
 from .folder import MARKER, write_results_folder
 
 DISPLAY = {  # SI unit -> (display unit, scale, offset)
@@ -43,7 +44,7 @@ def uncertainty_record(case, result, files=()):
                     "basis": e.basis, "default": e.default} for e in result.inputs],
         "correlations": [{"inputs": [result.inputs[i].name, result.inputs[j].name], "coefficient": rho}
                          for i, j, rho in result.correlations],
-        "not_sampled": not_sampled(case.model),
+        "not_sampled": not_sampled(case, result.inputs),
         "outputs": [_summary_json(s) for s in result.summaries],
         "seconds": result.seconds,
         "files": list(files),
@@ -51,11 +52,26 @@ def uncertainty_record(case, result, files=()):
     }
 
 
-def not_sampled(model):
-    """What the samples leave out, each in one line: the equilibrium tables a case brings."""
-    return [f"the equilibrium table of {model.names[i]} (the case's own data, with no uncertainty stated): the "
-            "figures here leave its uncertainty out"
-            for i, kind in enumerate(model.equilibrium) if kind == "table"]
+def not_sampled(case, inputs):
+    """What the samples leave out, each in one line: the equilibrium tables a case brings, and a
+    tray efficiency that is not sampled (``uncertainty.inputs``)."""
+    model = case.model
+    lines = [f"the equilibrium table of {model.names[i]} (the case's own data, with no uncertainty stated): the "
+             "figures here leave its uncertainty out"
+             for i, kind in enumerate(model.equilibrium) if kind == "table"]
+    sampled = {e.quantity for e in inputs if e.component == COLUMN}
+    held = "held at the case's value (uncertainty.tray_efficiency is 0 %, or scope 'listed' without it)"
+    murphree_given = bool((case.column.murphree < 1.0).any())
+    if murphree_given and MURPHREE not in sampled:
+        lines.append(f"the Murphree efficiency: {held}")
+    if case.overall_efficiency is not None and OVERALL not in sampled:
+        stage_design = case.design is not None and case.design.solve_for == "n_stages"
+        lines.append("the overall efficiency: " + (held if stage_design else "it turns theoretical stages into trays "
+                     "and changes nothing solved on a column of fixed stages (it is sampled for a design on the stage "
+                     "count)"))
+    if not murphree_given and case.overall_efficiency is None:
+        lines.append("the tray efficiency: the stages are theoretical, with no efficiency given to sample")
+    return lines
 
 
 def _summary_json(s):
@@ -146,7 +162,8 @@ def uncertainty_markdown(record):
     parts.append("## Method\n\nProperty uncertainties carried through the rigorous stage model by sampling, after "
                  "W. B. Whiting, V. R. Vasquez, M. M. Meerschaert, Fluid Phase Equilib. 158-160 (1999) 627. Drivers: "
                  "Spearman's rank correlation between an input's sampled value and the output. The figures cover the "
-                 "property data only, not the model's own assumptions, the feed or the tray efficiency.")
+                 "property data and, where the case gives one, the tray efficiency (see the inputs); not the model's own "
+                 "assumptions or the feed.")
     parts.append("## Safety\n\n" + "\n".join(f"- {c}" for c in record["cautions"]))
     return "\n\n".join(parts) + "\n"
 

@@ -93,3 +93,13 @@ def confidence_sentence(values, converged, *, design_output=None, key=None):
     if design_output == "cooler_duty":
         return f"{lead}, a cooler duty of {p90 / 1e3:.4g} kW holds the limit with 90 % confidence{failed}."
     return f"{lead}, {key} leaves at or below {p90:.4g} ppmv with 90 % confidence{failed}."
+
+
+def trays_clause(values, converged):
+    """'; N actual trays with the overall tray efficiency uncertain too' for the sentence: the P90 of
+    the sampled trays (a failed sample counts as not meeting the target), '' when none is stated."""
+    values = np.where(np.asarray(converged, dtype=bool), np.asarray(values, dtype=float), np.inf)
+    p90 = float(np.percentile(values, 90.0, method="inverted_cdf")) if values.size else math.inf
+    if not math.isfinite(p90):
+        return ""
+    return f"; with the overall tray efficiency uncertain too, {int(p90)} actual trays"
