@@ -14,9 +14,13 @@ from traywise.sizing.column import ColumnSizing
 from traywise.sizing.packed import PackedHydraulics, PackedInternals
 from traywise.sizing.stage_loads import StageLoads
 from traywise.sizing.trays import TrayHydraulics, TrayInternals
+from traywise.uncertainty.analysis import UncertaintyResult
+from traywise.uncertainty.inputs import UncertainInput, UncertaintyRequest
+from traywise.uncertainty.statistics import OutputSummary
 
 PUBLIC_RECORDS = (Column, Feed, SideDraw, ColumnSolution, Convergence, HeatBreakdown, StageProperties, InertBasisDesign,
-                  ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics)
+                  ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics,
+                  UncertaintyResult, UncertainInput, UncertaintyRequest, OutputSummary)
 
 
 def _public_names(record):

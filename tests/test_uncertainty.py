@@ -76,7 +76,7 @@ def dilute_run():
 
 
 def _output(result, name):
-    return result.data[:, [n for n, _ in result.outputs].index(name)]
+    return result.sample_outputs[:, [n for n, _ in result.outputs].index(name)]
 
 
 def _kremser_outlet_ppmv(z):
@@ -116,7 +116,7 @@ def test_each_sample_is_the_kremser_outlet_of_its_own_factor(dilute_run):
 
 def test_same_seed_same_numbers_another_seed_others(dilute_run):
     again = _run(DILUTE, 200)
-    assert np.array_equal(again.data, dilute_run.data) and np.array_equal(again.factors, dilute_run.factors)
+    assert np.array_equal(again.sample_outputs, dilute_run.sample_outputs) and np.array_equal(again.factors, dilute_run.factors)
     other = _run(DILUTE, 200, seed=7)
     assert not np.array_equal(other.factors, dilute_run.factors)
 
@@ -124,7 +124,7 @@ def test_same_seed_same_numbers_another_seed_others(dilute_run):
 def test_processes_give_the_numbers_of_one_process():
     one = _run(DILUTE, 24)
     two = _run(DILUTE, 24, processes=2)
-    assert np.array_equal(one.data, two.data)
+    assert np.array_equal(one.sample_outputs, two.sample_outputs)
 
 
 def test_a_failed_sample_is_kept_with_its_reason():
@@ -135,7 +135,7 @@ def test_a_failed_sample_is_kept_with_its_reason():
     absorption = SOLVENT_FLOW / (HENRY * result.factors[:, 0] / PRESSURE * GAS_FLOW)
     assert set(failed) == set(np.flatnonzero(absorption < 0.95)) and failed.size > 0
     assert all("not reached" in result.messages[i] for i in failed)
-    assert np.isnan(result.data[failed]).all()
+    assert np.isnan(result.sample_outputs[failed]).all()
     assert sum(count for _, count in result.failure_reasons()) == failed.size
     assert f"({failed.size} of 12 samples failed" in result.sentence
 
@@ -143,9 +143,9 @@ def test_a_failed_sample_is_kept_with_its_reason():
 def test_the_sentence_states_the_stages_at_90_percent():
     result = _run(DILUTE + '[design]\nsolve_for = "stages"\nfraction_absorbed = "70 %"\n', 30)
     assert result.converged.all()
-    stages = np.sort(result.data[:, 0])
+    stages = np.sort(result.sample_outputs[:, 0])
     n90 = int(stages[math.ceil(0.9 * stages.size) - 1])
-    assert np.mean(result.data[:, 0] <= n90) >= 0.9
+    assert np.mean(result.sample_outputs[:, 0] <= n90) >= 0.9
     assert f", {n90} stages meet the target with 90 % confidence." in result.sentence
 
 
@@ -290,3 +290,35 @@ def test_the_tray_efficiency_takes_the_stated_default_unless_the_case_holds_it()
     rating = parse_case(DILUTE.split("[uncertainty]")[0].replace(f"stages = {STAGES}\n",
                                                                  f"stages = {STAGES}\noverall_efficiency = 0.5\n"))
     assert not [e for e in uncertainty_settings(rating)[0] if e.component == "column"]
+
+
+# -- first-order indices (SALib, optional) -----------------------------------------------------
+
+def test_first_order_indices_match_the_variance_shares_of_a_known_function():
+    pytest.importorskip("SALib", reason="SALib (optional extra 'sensitivity') is not installed")
+    from traywise.uncertainty.sampling import normal_scores
+    from traywise.uncertainty.statistics import first_order_indices
+
+    z = normal_scores(3, 1000, seed=1)
+    y = z[:, 0] + 0.5 * z[:, 1] ** 2 + 0.1 * z[:, 2]
+    # Var(z0) = 1, Var(z1**2 / 2) = 2/4, Var(0.1 z2) = 0.01 for independent standard normals (the
+    # moments of the normal distribution), so S1 = (1, 0.5, 0.01) / 1.51.
+    exact = np.array([1.0, 0.5, 0.01]) / 1.51
+    found, note = first_order_indices(y, z, ["a", "b", "c"])
+    assert note == "" and [f[0] for f in found] == ["a", "b", "c"]
+    index, half = np.array([f[1] for f in found]), np.array([f[2] for f in found])
+    assert np.all(np.abs(index - exact) <= half + 0.05)  # the estimate's own half-width, and RBD-FAST's bias
+    assert first_order_indices(y, z, ["a", "b", "c"]) == (found, note)  # same samples, same numbers
+
+
+def test_one_input_explains_all_of_the_dilute_outlet(dilute_run):
+    pytest.importorskip("SALib", reason="SALib (optional extra 'sensitivity') is not installed")
+    (name, index, _), = dilute_run.summaries[0].first_order
+    assert name == "henry_constant:test solute" and index > 0.9
+
+
+def test_without_enough_samples_the_indices_say_why():
+    from traywise.uncertainty.statistics import first_order_indices
+
+    found, note = first_order_indices(np.arange(10.0), np.ones((10, 1)), ["a"])
+    assert found == () and "at least 50" in note

@@ -54,8 +54,8 @@ def main(samples=1000, repeat=3):
                 times.append(result.seconds)
                 failed = int((~result.converged).sum())
                 if reference is None:
-                    reference = result.data
-                same = (result.data == reference) | ((result.data != result.data) & (reference != reference))
+                    reference = result.sample_outputs
+                same = (result.sample_outputs == reference) | ((result.sample_outputs != result.sample_outputs) & (reference != reference))
                 assert same.all(), f"{label}: numbers differ from the first run"
             median = statistics.median(times)
             print(f"{label:32s} {median:12.2f} {1e3 * median / samples:16.2f} {failed:7d}  "

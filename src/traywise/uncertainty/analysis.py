@@ -32,7 +32,7 @@ class UncertaintyResult:
     factors : ndarray (n, d)     The factor applied to each input [-]
     outputs : tuple of (name, unit)   (``samples.py``)
     nominal : ndarray (m,)       Outputs of the unperturbed case
-    data : ndarray (n, m)        Outputs per sample; NaN where it failed
+    sample_outputs : ndarray (n, m)   Outputs per sample; NaN where it failed
     converged : ndarray (n,) bool; messages : tuple of str (why a sample failed, '' otherwise)
     summaries : tuple of OutputSummary (``statistics.py``)
     design_output : str or None  The output a design adjusts ('stages', 'solvent_mass_flow',
@@ -51,7 +51,7 @@ class UncertaintyResult:
     factors: np.ndarray
     outputs: tuple
     nominal: np.ndarray
-    data: np.ndarray
+    sample_outputs: np.ndarray
     converged: np.ndarray
     messages: tuple
     summaries: tuple
