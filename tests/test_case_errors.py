@@ -126,6 +126,9 @@ MALFORMED = [
      "column.murphree_efficiency[2]", ["(0, 1]"]),
     ("overall efficiency above 1", "stages = 8", 'stages = 8\noverall_efficiency = "150 %"',
      "column.overall_efficiency", ["1.5"]),
+    # both would apply one on top of the other: refused, naming both keys
+    ("Murphree and overall efficiency together", "stages = 8", "stages = 8\noverall_efficiency = 0.6",
+     "column.overall_efficiency", ["column.murphree_efficiency", "not both"]),
     ("cooler below the column", "stage = 5", "stage = 12", "column.cooler[0].stage", ["stages 1 to 8"]),
     ("negative cooler duty", 'duty = "8 kW"', 'duty = "-8 kW"', "column.cooler[0].duty", [">= 0"]),
     ("cooler duty in kg", 'duty = "8 kW"', 'duty = "8 kg"', "column.cooler[0].duty", ["expected a heat flow"]),

@@ -7,6 +7,7 @@ import pytest
 
 from traywise.column import Column, Feed, SideDraw
 from traywise.glossary import GLOSSARY
+from traywise.inert_basis.comparison import Comparison, IsothermalPoint, SoluteComparison
 from traywise.inert_basis.design import InertBasisDesign
 from traywise.mesh.solution import ColumnSolution, Convergence, HeatBreakdown
 from traywise.properties.model import StageProperties
@@ -19,8 +20,9 @@ from traywise.uncertainty.inputs import UncertainInput, UncertaintyRequest
 from traywise.uncertainty.statistics import OutputSummary
 
 PUBLIC_RECORDS = (Column, Feed, SideDraw, ColumnSolution, Convergence, HeatBreakdown, StageProperties, InertBasisDesign,
-                  ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics,
-                  UncertaintyResult, UncertainInput, UncertaintyRequest, OutputSummary)
+                  ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics, Comparison,
+                  SoluteComparison, IsothermalPoint, UncertaintyResult, UncertainInput, UncertaintyRequest,
+                  OutputSummary)
 
 
 def _public_names(record):

@@ -138,7 +138,7 @@ def test_report_carries_results_comparison_sources_and_cautions(written):
         assert caution in text
     assert "licensed engineering practice" in text
     assert "![Temperature profile](temperature_profile.png)" in text
-    assert f"**Isothermal assumption {record_verdict(folder)}.**" in text
+    assert f"**Simple isothermal design: {record_verdict(folder)}.**" in text
     assert text.count("\n| ") >= N_STAGES  # the stage table is there
 
 
@@ -146,7 +146,7 @@ def test_summary_levels(written):
     _, record = written
     normal = summary_text(record)
     verbose = summary_text(record, verbose=True)
-    assert "sulfur dioxide" in normal and f"Isothermal assumption {record['isothermal_comparison']['verdict']}" in normal
+    assert "sulfur dioxide" in normal and f"Simple isothermal design: {record['isothermal_comparison']['verdict']}" in normal
     assert "Property sources:" not in normal and "Property sources:" in verbose
     assert "a case warning" in normal
 

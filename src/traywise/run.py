@@ -125,7 +125,38 @@ def complete_run(case, solution, *, design=None, settings=RunSettings()):
                               lambda: _comparison(case, solution, case.xy_solute))
                 xy = None if other is None else other.isothermal_design
     notes.extend(note for note in library_warnings(caught) if note not in notes)
+    notes.extend(_feed_pressure_notes(case, solution.column))
     return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing)
+
+
+def _feed_pressure_notes(case, column):
+    """The feed-pressure check of a plain run, made on the column solved when a design or the
+    sized pressure drop changed its stage pressures (the case's warnings hold the check of the
+    column as written)."""
+    if getattr(case, "echo", None) is None or column == case.column:
+        return []
+    from .case.feed_pressure import column_warnings, feed_pressures
+
+    return [f"{warning} (the {'designed' if column.n_stages != case.column.n_stages else 'solved'} column)"
+            for warning in column_warnings(feed_pressures(case), column) if warning not in case.warnings]
+
+
+def sweep_feed_warnings(case, request):
+    """The feed-pressure check of a plain run made on the column of every point of ``request``:
+    one warning per feed that is below its stage's pressure somewhere in the sweep."""
+    from .case.feed_pressure import sweep_warnings
+    from .design.variables import with_value
+    from .errors import TraywiseError
+
+    if request.design_variable not in ("n_stages", "top_pressure"):
+        return []  # the stage pressures are those of the case, which its own warnings check
+    columns = []
+    for value in request.values:
+        try:
+            columns.append(with_value(case.column, request.design_variable, value, stage=request.cooler_stage))
+        except TraywiseError:  # the sweep marks that point as failed
+            columns.append(None)
+    return sweep_warnings(case, columns)
 
 
 def sweep_case(case, request, *, processes=1, progress=None, settings=RunSettings()):

@@ -17,6 +17,7 @@ from ..errors import CaseError, InputError
 from .column import read_column
 from .components import read_components
 from .design import read_design
+from .feed_pressure import column_warnings
 from .feeds import STREAM_KEYS, read_stream
 from .gas_model import read_gas_model
 from .internals import read_internals
@@ -351,13 +352,7 @@ class _CaseBuilder:
             raise case_error(exc, self.top.file, "column") from None
 
     def _pressure_warnings(self, gas, liquid, column):
-        pressures = column.pressures
-        for name, stream, stage in (("gas_feed", gas, column.n_stages), ("solvent_feed", liquid, 1)):
-            if stream.pressure is not None and stream.pressure < pressures[stage - 1]:
-                self.warnings.append(
-                    f"{name}.pressure ({stream.pressure / 1e3:.4g} kPa) is below the pressure of stage {stage} "
-                    f"({pressures[stage - 1] / 1e3:.4g} kPa), which it enters: it needs a blower or pump"
-                )
+        self.warnings.extend(column_warnings({"gas_feed": gas.pressure, "solvent_feed": liquid.pressure}, column))
 
     def _other_warnings(self, solvent, column_input, column):
         model, components = self.components.model, self.components
