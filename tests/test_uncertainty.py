@@ -322,3 +322,31 @@ def test_without_enough_samples_the_indices_say_why():
 
     found, note = first_order_indices(np.arange(10.0), np.ones((10, 1)), ["a"])
     assert found == () and "at least 50" in note
+
+
+def test_a_solvent_design_is_re_solved_from_its_own_answer():
+    # The nominal sample starts at the designed flow itself, where the shortfall is zero within the
+    # solver's tolerance: solving a bracket end again must not change its sign.
+    from traywise.design.plan import carry_out_design
+
+    text = (Path(__file__).resolve().parents[1] / "cases" / "ammonia-scrubber-design.toml").read_text(encoding="utf-8")
+    case = parse_case(text)
+    result = _run(text, 3)
+    assert result.design_output == "solvent_mass_flow" and result.converged.all()
+    design = carry_out_design(case.column, case.model, case.design).result
+    flow = float(design.column.solvent.component_flows @ case.model.molar_mass)
+    assert result.nominal[0] == pytest.approx(flow, rel=1e-6)  # the design's tolerance on ln(flow)
+
+
+def test_an_unforeseen_error_in_a_sample_is_kept_as_its_failure(monkeypatch):
+    import traywise.uncertainty.samples as samples
+
+    def broken(*args, **kwargs):
+        raise ValueError("f(0.0) and f(0.69) have the same sign")
+
+    case = parse_case(DILUTE)
+    inputs, _, _, _ = uncertainty_settings(case)
+    job = samples.sample_job(case.column, case.model, inputs, key=1)
+    monkeypatch.setattr(samples, "solve_column", broken)
+    outputs, ok, reason = samples.solve_sample(job, np.ones(len(inputs)))
+    assert not ok and np.isnan(outputs).all() and reason == "unexpected ValueError: f(0.0) and f(0.69) have the same sign"

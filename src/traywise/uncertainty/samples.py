@@ -99,6 +99,8 @@ def solve_sample(job, factors):
             solution = result.solution
     except TraywiseError as failure:
         return [math.nan] * len(job.outputs), False, " ".join(str(failure).split())
+    except (ArithmeticError, ValueError, RuntimeError) as failure:  # not foreseen: kept, with its type, not fatal
+        return [math.nan] * len(job.outputs), False, f"unexpected {type(failure).__name__}: {' '.join(str(failure).split())}"
     overall = sampled_overall_efficiency(job.inputs, factors)
     return [_output(name, job, solution, result, overall) for name, _ in job.outputs], True, ""
 
