@@ -321,7 +321,7 @@ def test_without_enough_samples_the_indices_say_why():
     from traywise.uncertainty.statistics import first_order_indices
 
     found, note = first_order_indices(np.arange(10.0), np.ones((10, 1)), ["a"])
-    assert found == () and "at least 50" in note
+    assert found == () and "at least 200" in note
 
 
 def test_a_solvent_design_is_re_solved_from_its_own_answer():
