@@ -9,6 +9,7 @@ from traywise.column import Column, Feed, SideDraw
 from traywise.glossary import GLOSSARY
 from traywise.inert_basis.comparison import Comparison, IsothermalPoint, SoluteComparison
 from traywise.inert_basis.design import InertBasisDesign
+from traywise.mesh.phase_transfer import SolventBalance
 from traywise.mesh.solution import ColumnSolution, Convergence, HeatBreakdown
 from traywise.properties.model import StageProperties
 from traywise.sizing.column import ColumnSizing
@@ -21,8 +22,8 @@ from traywise.uncertainty.statistics import OutputSummary
 
 PUBLIC_RECORDS = (Column, Feed, SideDraw, ColumnSolution, Convergence, HeatBreakdown, StageProperties, InertBasisDesign,
                   ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics, Comparison,
-                  SoluteComparison, IsothermalPoint, UncertaintyResult, UncertainInput, UncertaintyRequest,
-                  OutputSummary)
+                  SoluteComparison, IsothermalPoint, SolventBalance, UncertaintyResult, UncertainInput,
+                  UncertaintyRequest, OutputSummary)
 
 
 def _public_names(record):

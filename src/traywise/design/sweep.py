@@ -4,8 +4,8 @@ Neighbouring points warm-start from each other when the stage count is unchanged
 ``processes`` > 1 the values are cut into contiguous chunks that run in worker processes
 (``concurrent.futures.ProcessPoolExecutor``), each chunk warm-starting within itself. A point
 whose solve fails keeps its row, marked not converged, with the reason and NaN outputs.
-Workers end with the process that started them, whatever ends it (even SIGKILL;
-``traywise.workers``).
+Workers end with the process that started them, whatever ends it (even SIGKILL), and their
+warnings are issued again in it (``traywise.workers``).
 
 Outputs (strings; ``key`` is a component name):
   fraction_absorbed:key      [-]       outlet_mole_fraction:key  [-]     outlet_ppmv:key  [ppmv]
@@ -24,7 +24,7 @@ import numpy as np
 
 from ..errors import InputError, TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
-from ..workers import end_with_parent
+from ..workers import end_with_parent, issue_again, recording_warnings
 from .variables import UNITS, with_value
 
 CHUNK_SIZE = 10  # most points per chunk in parallel sweeps: small enough for progress, large enough to warm-start
@@ -137,7 +137,8 @@ def sweep(
         chunks = np.array_split(values, processes * math.ceil(total / (processes * CHUNK_SIZE)))
         results = []
         with ProcessPoolExecutor(max_workers=processes, initializer=end_with_parent, initargs=(os.getpid(),)) as pool:
-            for chunk_results in pool.map(_run, [job] * len(chunks), chunks):
+            for chunk_results, caught in pool.map(_run_recorded, [job] * len(chunks), chunks):
+                issue_again(caught)
                 results.extend(chunk_results)
                 if progress:
                     progress(len(results), total)
@@ -192,6 +193,11 @@ def _run(job, values, on_point=None):
         if on_point:
             on_point(len(results))
     return results
+
+
+def _run_recorded(job, values):
+    """``_run`` in a worker process: (its results, the warnings it raised)."""
+    return recording_warnings(_run, job, values)
 
 
 def _evaluate(spec, solution):
