@@ -332,9 +332,9 @@ def _designed_for_sweep(case, designed_for_sweep):
 @click.option("--quiet", "-q", is_flag=True, help="Print nothing but warnings (on stderr) and errors.")
 @click.pass_context
 def uncertainty(ctx, case_file, samples, seed, processes, engine, scheduler, out_dir, no_plots, quiet):
-    """Carry the uncertainty of the property data to CASE's results: sample the property values
-    by their stated uncertainties (the [uncertainty] table overrides them), solve every sample
-    (designs re-solved to their target) and write the distributions, their drivers and plots."""
+    """Carry the uncertainty of the property data and of the tray efficiency to CASE's results:
+    sample them by their stated uncertainties (the [uncertainty] table overrides them), solve every
+    sample (designs re-solved to their target) and write the distributions, their drivers and plots."""
     import os
     from pathlib import Path
 
