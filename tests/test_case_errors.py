@@ -144,6 +144,14 @@ MALFORMED = [
     ("misspelt mode", "stages = 8", 'stages = 8\nmode = "isotherm"', "column.mode", ["did you mean 'isothermal'"]),
     ("isothermal without temperature", "stages = 8", 'stages = 8\nmode = "isothermal"',
      "column.isothermal_temperature", ["missing"]),
+    # water boils at 100.976 degC at 105 kPa (IAPWS-IF97 saturation line, as CoolProp 'IF97::Water' gives it)
+    ("isothermal above the boiling point", "stages = 8", 'stages = 8\nmode = "isothermal"\nisothermal_temperature = "110 degC"',
+     "column.isothermal_temperature", ["stage 1", "boiling point of water at that stage's pressure", "(100.98 degC)"]),
+    ("isothermal stage above the boiling point", "stages = 8", 'stages = 8\nmode = "isothermal"\nisothermal_temperature = '
+     '["30 degC", "30 degC", "30 degC", "30 degC", "30 degC", "30 degC", "30 degC", "104 degC"]',
+     "column.isothermal_temperature[7]", ["stage 8", "boiling point of water"]),
+    ("isothermal below the melting point", "stages = 8", 'stages = 8\nmode = "isothermal"\nisothermal_temperature = "-5 degC"',
+     "column.isothermal_temperature", ["melting point", "freeze"]),
     ("isothermal temperature when adiabatic", "stages = 8", 'stages = 8\nisothermal_temperature = "30 degC"',
      "column.isothermal_temperature", ["only with mode = 'isothermal'"]),
     ("key is the solvent", 'title = "Ammonia', 'key_component = "water"\ntitle = "Ammonia', "key_component",

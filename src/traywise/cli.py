@@ -68,7 +68,7 @@ class _Command(click.Command):
         except (CaseError, ComponentDataError, PinchError, PropertyRangeError) as error:
             _fail(ctx, str(error), EXIT_INPUT)
         except ConvergenceError as error:
-            _fail(ctx, str(error), EXIT_CONVERGENCE)
+            _fail(ctx, _no_result(error), EXIT_CONVERGENCE)
         except TargetNotReached as error:
             _fail(ctx, f"design target not reached: {error}", EXIT_CONVERGENCE)
         except OSError as error:
@@ -78,6 +78,16 @@ class _Command(click.Command):
 class _Group(click.Group):
     command_class = _Command
     group_class = type  # subgroups are _Group too
+
+
+def _no_result(error):
+    """What happened when the stage equations gave no result: they did not converge, or they
+    converged to a state that cannot exist (``UnphysicalSolution``)."""
+    from .errors import UnphysicalSolution
+
+    if isinstance(error, UnphysicalSolution):
+        return f"the converged column is physically impossible, so no result is given: {error}"
+    return f"no converged solution: {error}"
 
 
 def _fail(ctx, message, status):
@@ -140,14 +150,10 @@ def _load(ctx, case_file, quiet, verbose, *, target=None):
 def _run(ctx, case_file, quiet, verbose, *, target=None, plots=False):
     """Load and run a case (designed first when it has a [design] table): its CaseRun; the x-y
     diagram's design only when ``plots`` are drawn."""
-    from .errors import ConvergenceError
     from .run import RunSettings, run_case
 
     case = _load(ctx, case_file, quiet, verbose, target=target)
-    try:
-        return run_case(case, RunSettings(xy_diagram=plots and case.plots))
-    except ConvergenceError as error:
-        _fail(ctx, f"no converged solution: {error}", EXIT_CONVERGENCE)
+    return run_case(case, RunSettings(xy_diagram=plots and case.plots))  # errors: _Command tells them
 
 
 def _echo_warnings(record):
@@ -273,8 +279,9 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
     case = _load(ctx, case_file, quiet, False, target=target)
     from .case.sweep import sweep_request
     from .report.sweep_view import write_sweep, sweep_text
-    from .run import sweep_case, sweep_feed_warnings
+    from .run import designed_for_sweep, sweep_case, sweep_feed_warnings
 
+    case, designed = _designed_for_sweep(case, designed_for_sweep)
     request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
                             cooler_stage=cooler_stage)
     from dataclasses import replace
@@ -284,7 +291,7 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
     with _progress(quiet or total < LONG_SWEEP or not sys.stderr.isatty(), total) as bar:
         table = sweep_case(case, request, processes=processes,
                            progress=None if bar is None else (lambda done, _total: bar.update(done - bar.pos)))
-    record = write_sweep(target, case, request, table, plots=case.plots and not no_plots)
+    record = write_sweep(target, case, request, table, plots=case.plots and not no_plots, designed=designed)
     if record["failed_points"] == total:
         _fail(ctx, f"no point of the sweep converged (see {target / 'sweep.csv'}); the first failed with: "
               f"{table.messages[0]}", EXIT_CONVERGENCE)
@@ -292,6 +299,21 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
         _echo_warnings(record)
     else:
         click.echo(sweep_text(record, folder=target))
+
+def _designed_for_sweep(case, designed_for_sweep):
+    """The case to sweep around its designed column, or as written (with a warning saying why)
+    when its design cannot be carried out."""
+    from dataclasses import replace
+
+    from .errors import TraywiseError
+
+    try:
+        return designed_for_sweep(case)
+    except TraywiseError as error:
+        note = (f"the case's [design] could not be carried out ({error}); every point solves the column as written, "
+                "at the first-guess values")
+        return replace(case, warnings=(*case.warnings, note)), None
+
 
 @main.command()
 @_case_argument

@@ -79,6 +79,8 @@ def read_column(top, components):
     n = check_range(section, "stages", "stages", section.integer("stages", minimum=1))
     murphree = _per_stage(section, "murphree_efficiency", n, 1.0, _efficiency)
     overall = section.fraction("overall_efficiency", None)
+    if overall is not None:
+        check_range(section, "overall_efficiency", "efficiency", overall)
     if overall is not None and "murphree_efficiency" in section:
         section.fail("overall_efficiency", "given together with column.murphree_efficiency: give one of the two (the "
                      "Murphree efficiency of each tray, stages counting actual trays; or the overall efficiency, "
@@ -137,7 +139,7 @@ def _stage(section, n):
 
 
 def _efficiency(section, key, value):
-    return section.fraction(key, value=value)
+    return check_range(section, key, "efficiency", section.fraction(key, value=value), found=value)
 
 
 def _temperature(section, key, value):
