@@ -9,6 +9,8 @@ that flooding velocity at the same liquid velocity. Pressure drop: Stichlmair's 
 a bed section of its own HETP (given, or from Onda's coefficients, ``onda.py``).
 """
 
+import functools
+import math
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -132,11 +134,10 @@ def flooding_point(packing, liquid_velocity, gas_density, liquid_density, gas_vi
     fluids' fixed guess, which saves about half the Newton steps. Without ``start``, or if the
     warm start fails, fluids' own guess; without fluids' internals, ``Stichlmair_flood`` itself
     (and no pressure drop, None)."""
-    try:
-        from fluids.numerics import newton_system, solve_2_direct
-        from fluids.packed_tower import _Stichlmair_flood_f_and_jac
-    except ImportError:
+    solver = _fluids_flooding_solver()
+    if solver is None:
         return stichlmair_flooding_velocity(packing, liquid_velocity, gas_density, liquid_density, gas_viscosity), None
+    newton_system, solve_2_direct, _Stichlmair_flood_f_and_jac = solver
     c1, c2, c3 = packing.stichlmair
     args = (float(liquid_velocity), float(gas_density), float(liquid_density), float(gas_viscosity), packing.voidage,
             packing.specific_area, c1, c2, c3, 1.0)
@@ -147,9 +148,21 @@ def flooding_point(packing, liquid_velocity, gas_density, liquid_density, gas_vi
                                   solve_func=solve_2_direct)[0]
         except (ArithmeticError, ValueError, UnboundLocalError):
             continue
-        if np.isfinite(point[0]) and point[0] > 0.0 and np.isfinite(point[1]) and point[1] > 0.0:
+        if math.isfinite(point[0]) and point[0] > 0.0 and math.isfinite(point[1]) and point[1] > 0.0:
             return float(point[0]), [float(point[0]), float(point[1])]
     raise ArithmeticError("no Stichlmair flooding point")
+
+
+@functools.cache
+def _fluids_flooding_solver():
+    """fluids' Newton solver, its 2x2 linear solve and the Stichlmair flooding equations, or None
+    when this fluids has no such internals (imported on first use: fluids is a heavy import)."""
+    try:
+        from fluids.numerics import newton_system, solve_2_direct
+        from fluids.packed_tower import _Stichlmair_flood_f_and_jac
+    except ImportError:
+        return None
+    return newton_system, solve_2_direct, _Stichlmair_flood_f_and_jac
 
 
 def _flooding_velocity(packing, liquid_velocity, properties, j, start=None):
