@@ -114,8 +114,7 @@ def pressure_drop_per_height(packing, method, *, gas_velocity, liquid_velocity, 
                              gas_viscosity, liquid_viscosity):
     """Irrigated-bed pressure drop [Pa/m]: 'stichlmair' (fluids.packed_tower.Stichlmair_wet) or
     'robbins' (fluids.packed_tower.Robbins, from mass fluxes)."""
-    from fluids.packed_tower import Robbins, Stichlmair_wet
-
+    Robbins, Stichlmair_wet = _fluids_pressure_drop()
     if method == "stichlmair":
         c1, c2, c3 = packing.stichlmair
         return Stichlmair_wet(Vg=float(gas_velocity), Vl=float(liquid_velocity), rhog=float(gas_density),
@@ -151,6 +150,14 @@ def flooding_point(packing, liquid_velocity, gas_density, liquid_density, gas_vi
         if math.isfinite(point[0]) and point[0] > 0.0 and math.isfinite(point[1]) and point[1] > 0.0:
             return float(point[0]), [float(point[0]), float(point[1])]
     raise ArithmeticError("no Stichlmair flooding point")
+
+
+@functools.cache
+def _fluids_pressure_drop():
+    """(Robbins, Stichlmair_wet) of fluids.packed_tower, imported on first use."""
+    from fluids.packed_tower import Robbins, Stichlmair_wet
+
+    return Robbins, Stichlmair_wet
 
 
 @functools.cache
