@@ -98,20 +98,24 @@ class UnitProblem(ValueError):
 
 
 def import_pint():
-    """pint, imported without its optional dask support (pint.compat imports dask when it is
-    installed, 0.1 s of start-up for a Quantity type traywise never uses); dask itself stays
-    importable afterwards."""
+    """pint, imported without its optional dask and scipy support: pint.compat imports both when
+    they are installed (0.1 s of start-up with dask) for a dask Quantity and a preferred-units
+    search that traywise never uses. Both stay importable afterwards."""
     if "pint" in sys.modules:
         return sys.modules["pint"]
-    block = "dask" not in sys.modules
-    if block:
-        sys.modules["dask"] = None  # the import system's way to make "import dask" fail
+    blocked = [name for name in _PINT_OPTIONAL if name not in sys.modules]
+    for name in blocked:
+        sys.modules[name] = None  # the import system's way to make "import dask" fail
     try:
         import pint
     finally:
-        if block and sys.modules.get("dask", False) is None:
-            del sys.modules["dask"]
+        for name in blocked:
+            if sys.modules.get(name, False) is None:
+                del sys.modules[name]
     return pint
+
+
+_PINT_OPTIONAL = ("dask", "scipy")
 
 
 @functools.cache
