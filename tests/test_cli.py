@@ -80,7 +80,7 @@ def test_run_writes_the_results_folder_beside_the_current_folder(starter, in_tmp
     result = invoke("run", str(starter), "--no-plots")
     assert result.exit_code == 0, result.output
     folder = in_tmp / "starter-results"
-    assert sorted(p.name for p in folder.iterdir()) == [".traywise-results", "report.md", "results.json", "stages.csv"]
+    assert sorted(p.name for p in folder.iterdir()) == [".traywise-results", "report.html", "report.md", "results.json", "stages.csv"]
     assert "Results written to" in result.stdout and "Converged in" in result.stdout
     assert "licensed engineering practice" in result.stdout
 

@@ -65,7 +65,7 @@ def test_demo_runs_and_writes_every_output(demo_run):
     _, folder, result = demo_run
     assert "Results written to" in result.stdout
     sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES | sized
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", "report.html", ".traywise-results"} | FIGURES | sized
     assert not [p for p in folder.parent.iterdir() if p.name.startswith(".")]  # no temporary folder left
 
 
@@ -196,7 +196,7 @@ def test_entry_point_runs_a_demo_in_a_fresh_process(tmp_path):
     assert finished.returncode == 0, finished.stderr
     folder = tmp_path / "solvent-recovery-dryer-air-results"
     sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES | sized
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", "report.html", ".traywise-results"} | FIGURES | sized
     missing = subprocess.run(traywise_command() + ["run", "missing.toml"], cwd=tmp_path, env=env,
                              capture_output=True, text=True, check=False)
     assert missing.returncode == 2

@@ -77,13 +77,19 @@ def test_a_phi_derivatives_match_finite_differences():
     assert second == pytest.approx((up[1] - down[1]) / 2e-3, rel=1e-6)
 
 
-def test_pitzer_g_function_series_and_closed_form_agree():
-    x = np.array([1e-4, 0.1, 0.59, 0.61, 1.0, 3.0, 8.0])
+def test_pitzer_g_function_and_its_derivatives():
+    """Against the closed form (large x), its Taylor series 1 - 2x/3 + x**2/4 - x**3/15 (small x)
+    and finite differences."""
+    x = np.array([0.009, 0.011, 0.1, 0.59, 0.61, 1.0, 3.0, 8.0])
     h, h1, h2 = pitzer_h(x)
-    closed = 2.0 * (1.0 - (1.0 + x) * np.exp(-x)) / x**2
-    assert h[1:] == pytest.approx(closed[1:], rel=1e-9)
+    assert h == pytest.approx(2.0 * (1.0 - (1.0 + x) * np.exp(-x)) / x**2, rel=1e-11)
     step = 1e-5
     up, down = pitzer_h(x + step), pitzer_h(x - step)
-    assert h1[1:] == pytest.approx((up[0] - down[0])[1:] / (2 * step), rel=1e-6)
-    assert h2[1:] == pytest.approx((up[1] - down[1])[1:] / (2 * step), rel=1e-5)
-    assert pitzer_h(np.array([0.0]))[0][0] == 1.0
+    assert h1 == pytest.approx((up[0] - down[0]) / (2 * step), rel=1e-7)
+    assert h2 == pytest.approx((up[1] - down[1]) / (2 * step), rel=1e-6)
+    small = np.array([1e-4, 1e-3, 1e-2])
+    h, h1, h2 = pitzer_h(small)
+    assert h == pytest.approx(1 - 2 * small / 3 + small**2 / 4 - small**3 / 15 + small**4 / 72, rel=1e-12)
+    assert h1 == pytest.approx(-2 / 3 + small / 2 - small**2 / 5 + small**3 / 18, rel=1e-9)
+    assert h2 == pytest.approx(0.5 - 2 * small / 5 + small**2 / 6, rel=1e-6)
+    assert [float(v[0]) for v in pitzer_h(np.array([0.0]))] == [1.0, -2.0 / 3.0, 0.5]

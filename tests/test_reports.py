@@ -131,9 +131,12 @@ def record_verdict(folder):
 def test_report_carries_results_comparison_sources_and_cautions(written):
     folder, _ = written
     text = (folder / "report.md").read_text(encoding="utf-8")
-    for heading in ("## Inputs", "## Streams", "## Stage profile", "## Where the heat went", "## Convergence",
-                    "## Isothermal inert-basis comparison", "## Property sources", "## Warnings", "## Safety cautions"):
+    order = ("## Summary", "## Warnings", "## Safety cautions", "## Assumptions in force for this run", "## Streams",
+             "## Stage profile", "## Heat budget", "## Isothermal inert-basis comparison", "## Convergence",
+             "## Inputs", "## Property sources")
+    for heading in order:
         assert heading in text
+    assert [text.index(heading) for heading in order] == sorted(text.index(heading) for heading in order)
     for caution in SAFETY_CAUTIONS:
         assert caution in text
     assert "licensed engineering practice" in text

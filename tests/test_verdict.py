@@ -61,7 +61,7 @@ def test_murphree_column_reads_close(murphree_column):
     _, _, result = murphree_column
     assert result.direction == "close" and result.held and result.causes == ()
     assert result.isothermal_stages == pytest.approx(result.rigorous_stages, abs=0.1)
-    assert result.verdict.startswith("close: ") and "tolerance the larger of 10% of the rigorous stages and 0.5 stage" in result.verdict
+    assert result.verdict.startswith("close: ") and "(tolerance: the larger of 10% of the rigorous stages and 0.5 stage)" in result.verdict
     assert result.stage_tolerance == STAGE_TOLERANCE
 
 
@@ -133,6 +133,10 @@ def test_heat_of_absorption_makes_the_simple_method_unsafe(tmp_path):
     assert bracket[0] < comparison["theoretical_stages_rigorous"] < bracket[2]
     assert comparison["stage_tolerance"] == {"relative": 0.1, "absolute_stages": 0.5,
                                              "in_words": "the larger of 10% of the rigorous stages and 0.5 stage"}
+    # Kremser's outlet on the comparison's basis: free of the 2 mol % water the gas brought, V' = 85 %
+    (rated,) = comparison["kremser"]["solutes"]
+    y = rated["gas_out_mole_fraction"]
+    assert rated["gas_out_mole_fraction_solvent_free"] == pytest.approx(y / (1.0 - y) * 0.85 / (0.85 - 0.02 + y / (1.0 - y) * 0.85), rel=1e-9)
 
 
 def test_complete_absorption_writes_its_results(tmp_path, monkeypatch):
@@ -146,3 +150,52 @@ def test_complete_absorption_writes_its_results(tmp_path, monkeypatch):
     comparison = json.loads(Path("ammonia-30-results/results.json").read_text(encoding="utf-8"))["isothermal_comparison"]
     assert comparison["direction"] is None and comparison["verdict"].startswith("not compared: ")
     assert "absorbs all of the ammonia" in comparison["verdict"]
+
+
+def _measures(**changes):
+    from traywise.inert_basis.verdict import ProfileMeasures
+
+    values = dict(mean_rise=0.0, max_temperature_rise=0.0, hottest_stage=1, solvent_condensed=0.0, gas_absorbed=0.0,
+                  curvature=None, murphree_trays=False, solvent="water")
+    return ProfileMeasures(**{**values, **changes})
+
+
+def test_a_pinch_of_the_simple_method_reads_conservative():
+    """The simple method cannot reach what the rigorous column reaches: it would have asked for
+    more solvent, the safe side."""
+    from traywise.inert_basis.comparison import IsothermalPoint
+    from traywise.inert_basis.verdict import judge
+
+    why = "the isothermal design cannot reach the rigorous removal of x at all (pinch)"
+    bracket = tuple(IsothermalPoint(label, 300.0, None, why, pinched=True)
+                    for label in ("solvent inlet", "mean liquid", "hottest stage"))
+    direction, causes, verdict = judge("x", 6.0, bracket, _measures(solvent_condensed=0.05), why, pinched=True)
+    assert direction == "conservative" and verdict.startswith(f"conservative: {why}")
+    assert causes and causes[0].startswith("solvent condensation")
+
+
+def test_evaporation_is_named_where_it_explains_a_shortfall():
+    from traywise.inert_basis.comparison import IsothermalPoint
+    from traywise.inert_basis.verdict import judge
+
+    bracket = tuple(IsothermalPoint(label, 300.0, 4.0) for label in ("solvent inlet", "mean liquid", "hottest stage"))
+    direction, causes, verdict = judge("x", 5.0, bracket, _measures(solvent_condensed=-0.03), None)
+    assert direction == "unsafe" and causes == (
+        "solvent evaporation (3.0% of the gas feed in water evaporates, which lowers L/V against the inert basis)",)
+    # the same gap with condensation instead: it would not explain a shortfall, so nothing is named
+    direction, causes, verdict = judge("x", 5.0, bracket, _measures(solvent_condensed=0.03), None)
+    assert direction == "unsafe" and causes == () and "no single cause stands out" in verdict
+
+
+def test_curvature_is_named_where_lewis_counted_murphree_trays():
+    """Lewis's relation assumes a straight equilibrium line: a bent one is named as a cause for
+    Murphree trays, and not for theoretical stages (where the stepped design follows the curve)."""
+    from traywise.inert_basis.comparison import IsothermalPoint
+    from traywise.inert_basis.verdict import judge
+
+    bracket = tuple(IsothermalPoint(label, 300.0, 9.0) for label in ("solvent inlet", "mean liquid", "hottest stage"))
+    _, causes, _ = judge("x", 7.0, bracket, _measures(curvature=-0.3, murphree_trays=True), None)
+    assert causes == ("curvature of the equilibrium line (Y*(X) bends by -30% over the column, where Lewis's "
+                      "relation for the Murphree trays assumes a straight line)",)
+    _, causes, _ = judge("x", 7.0, bracket, _measures(curvature=-0.3, murphree_trays=False), None)
+    assert causes == ()

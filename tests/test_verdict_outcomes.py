@@ -44,6 +44,25 @@ def test_a_design_that_breaks_its_limit_exits_4_with_its_results(tmp_path):
     assert compared.exit_code == 4, compared.output
 
 
+def test_a_design_that_misses_its_removal_target_exits_4_with_its_results(tmp_path):
+    """A cooler on stage 5 is solved for a 26 degC limit; the 1 ppmv target is then only checked
+    and missed (4.4 ppmv, measured): results written, report says NOT MET, exit 4."""
+    text = variant(('solve_for = "solvent_flow"', 'solve_for = "cooler_duty"\ncooler_stage = 5'),
+                   ('column_temperature_limit = "40 degC"', 'column_temperature_limit = "26 degC"'),
+                   ('outlet_mole_fraction = "30 ppmv"', 'outlet_mole_fraction = "1 ppmv"'), *QUICK)
+    result = invoke(tmp_path, text, "run")
+    assert result.exit_code == EXIT_NOT_MET, result.output
+    assert "the design does not meet its removal target" in result.stderr
+    record = json.loads((tmp_path / "out" / "results.json").read_text(encoding="utf-8"))
+    assert record["design"]["target"]["met"] is False and record["design"]["target"]["reached"] > 1.0
+    assert "NOT MET" in (tmp_path / "out" / "report.md").read_text(encoding="utf-8")
+
+
+def test_the_exit_status_4_is_in_the_help():
+    text = " ".join(CliRunner().invoke(main, ["--help"]).output.split())
+    assert "4 a design whose removal target or temperature limit the solved column does not meet" in text
+
+
 def test_a_design_that_meets_everything_exits_0(tmp_path):
     result = invoke(tmp_path, variant(*QUICK), "run")
     assert result.exit_code == 0, result.output

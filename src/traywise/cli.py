@@ -279,8 +279,9 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
     case = _load(ctx, case_file, quiet, False, target=target)
     from .case.sweep import sweep_request
     from .report.sweep_view import write_sweep, sweep_text
-    from .run import sweep_case, sweep_feed_warnings
+    from .run import designed_for_sweep, sweep_case, sweep_feed_warnings
 
+    case, designed = _designed_for_sweep(case, designed_for_sweep)
     request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
                             cooler_stage=cooler_stage)
     from dataclasses import replace
@@ -290,7 +291,7 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
     with _progress(quiet or total < LONG_SWEEP or not sys.stderr.isatty(), total) as bar:
         table = sweep_case(case, request, processes=processes,
                            progress=None if bar is None else (lambda done, _total: bar.update(done - bar.pos)))
-    record = write_sweep(target, case, request, table, plots=case.plots and not no_plots)
+    record = write_sweep(target, case, request, table, plots=case.plots and not no_plots, designed=designed)
     if record["failed_points"] == total:
         _fail(ctx, f"no point of the sweep converged (see {target / 'sweep.csv'}); the first failed with: "
               f"{table.messages[0]}", EXIT_CONVERGENCE)
@@ -298,6 +299,21 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
         _echo_warnings(record)
     else:
         click.echo(sweep_text(record, folder=target))
+
+def _designed_for_sweep(case, designed_for_sweep):
+    """The case to sweep around its designed column, or as written (with a warning saying why)
+    when its design cannot be carried out."""
+    from dataclasses import replace
+
+    from .errors import TraywiseError
+
+    try:
+        return designed_for_sweep(case)
+    except TraywiseError as error:
+        note = (f"the case's [design] could not be carried out ({error}); every point solves the column as written, "
+                "at the first-guess values")
+        return replace(case, warnings=(*case.warnings, note)), None
+
 
 @main.command()
 @_case_argument

@@ -69,6 +69,12 @@ GLOSSARY = {
     "evaporation": ("W", "heat taken up by components that left the liquid (solvent evaporation)"),
     "removed_by_coolers": ("W", "heat removed by coolers"),
     "other": ("W", "heat carried by extra feeds and side draws"),
+    "evaporated": ("mol/s", "solvent passing from the liquid into the vapour, summed over the stages where it does"),
+    "condensed": ("mol/s", "solvent passing from the vapour into the liquid, summed over the stages where it does"),
+    "make_up": ("mol/s", "net solvent the gas carries away, to be given back to the solvent loop (0 when the liquid gains)"),
+    "gained": ("mol/s", "net solvent the liquid takes up from the gas (0 when it loses)"),
+    "solvent_molar_mass": ("kg/mol", "molar mass of the solvent"),
+    "by_component": ("W", "per component, heat given to the liquid by its transfer (negative when it left the liquid), (c,)"),
     # properties
     "molar_mass": ("kg/mol", "molar mass per component, (c,)"),
     "k": ("-", "equilibrium ratio K = y*/x, (N, c)"),
@@ -190,4 +196,6 @@ GLOSSARY = {
     "isothermal_outlet_mole_fraction": ("-", "the same by the isothermal method with the rigorous stages"),
     "rigorous_fraction_absorbed": ("-", "fraction of a solute absorbed by the rigorous column"),
     "isothermal_fraction_absorbed": ("-", "the same by the isothermal method"),
+    "pinched": ("-", "whether an isothermal design cannot reach the removal at all (a pinch)"),
+    "solvent_free_outlet_mole_fraction": ("-", "Kremser's outlet free of the solvent vapour the gas feed brought"),
 }

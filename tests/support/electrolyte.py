@@ -5,6 +5,7 @@ from dataclasses import replace
 
 import numpy as np
 
+from traywise.errors import ComponentDataError
 from traywise.properties.component import Quantity
 from traywise.properties.electrolyte import AqueousElectrolyte
 from traywise.properties.inline import inline_component
@@ -22,7 +23,7 @@ def sodium_hydroxide():
     no check here depends on (the checks compare enthalpies at one temperature)."""
     try:
         return find_component("1310-73-2")
-    except Exception:  # not in the library yet
+    except ComponentDataError:  # not in the library yet
         stand_in = inline_component("sodium hydroxide", molar_mass=0.039997, ideal_gas_cp=50.0,
                                     equilibrium="nonvolatile", liquid_cp=80.0, formula="NaOH")
         return replace(stand_in, cas="1310-73-2", molar_mass=Quantity(0.039997, "recalled from memory"))

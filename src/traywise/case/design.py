@@ -3,11 +3,12 @@ input solved for to meet it, and the extra figures asked for (minimum solvent fl
 tray efficiency). Read into a ``DesignInput`` whose fields are those the design layer takes
 (``traywise.design.plan``); the design itself is run by the command line."""
 
+import re
 from dataclasses import dataclass
 
 from ..design.variables import stage_bound
 from .limits import check_range
-from .units import composition_basis_of, split_number
+from .units import UnitProblem, composition_basis_of, split_number, to_si
 
 DESIGN_KEYS = (
     "outlet_mole_fraction",
@@ -24,6 +25,7 @@ SOLVABLE = {"solvent_flow": "solvent_flow", "stages": "n_stages", "cooler_duty":
 # case key -> place of traywise.design.targets.TemperatureLimit
 LIMITS = {"liquid_out_temperature_limit": "liquid_outlet", "column_temperature_limit": "column_maximum"}
 PER_MILLION_UNITS = ("ppmv", "ppm")  # an outlet written in these is reported in ppmv
+REFERENCE_VOLUMES = ("Nm3", "Nm³", "Sm3", "Sm³", "scf")  # gas volumes at reference conditions (units.py)
 
 
 @dataclass(frozen=True)
@@ -83,7 +85,8 @@ def read_design(top, *, model, column, column_input, key, gas_flows, solvent):
     if section is None:
         return None
     solve_for = SOLVABLE[section.text("solve_for", choices=tuple(SOLVABLE))]
-    quantity, value = _removal_target(section, model.names[key], gas_flows[key] / gas_flows.sum())
+    quantity, value = _removal_target(section, model.names[key], gas_flows[key] / gas_flows.sum(),
+                                      float(model.molar_mass[key]))
     limits = [name for name in LIMITS if name in section]
     if len(limits) > 1:
         section.fail(limits[1], f"give one temperature limit, not both {' and '.join(limits)}")
@@ -132,9 +135,12 @@ def read_design(top, *, model, column, column_input, key, gas_flows, solvent):
     )
 
 
-def _removal_target(section, key_name, inlet):
+def _removal_target(section, key_name, inlet, molar_mass):
     """(quantity, value) of the removal target, or (None, None); ``inlet`` is the key's mole
-    fraction in the gas feed [-]."""
+    fraction in the gas feed [-], ``molar_mass`` the key's [kg/mol]. A mass concentration at
+    reference conditions ("20 mg/Nm3": Nm3 at 0 degC and 101.325 kPa, common practice for emission
+    limits in Europe; also Sm3, scf) is per volume of the gas as it leaves (water vapour
+    included) and becomes ppmv: y = (mass of solute per mole of gas) / M."""
     given = [name for name in ("outlet_mole_fraction", "fraction_absorbed") if name in section]
     if len(given) > 1:
         section.fail(given[1], "give one removal target, not both outlet_mole_fraction and fraction_absorbed")
@@ -143,16 +149,43 @@ def _removal_target(section, key_name, inlet):
     if given[0] == "fraction_absorbed":
         return "fraction_absorbed", section.fraction("fraction_absorbed", open_high=True)
     raw = section.data["outlet_mole_fraction"]
+    concentration = _reference_concentration(section, raw)
+    if concentration is not None:
+        fraction = concentration / molar_mass
+        if not 0.0 < fraction < inlet:
+            section.fail("outlet_mole_fraction", f"found {raw!r} = {1e6 * fraction:.6g} ppmv of {key_name}; expected a "
+                         f"value above 0 and below the gas fed ({1e6 * inlet:.6g} ppmv)")
+        return "outlet_ppmv", 1e6 * fraction
     fraction = section.fraction("outlet_mole_fraction", open_high=True)
     if isinstance(raw, str) and composition_basis_of(raw) == "mass":
         section.fail("outlet_mole_fraction", f"found '{raw}', a mass fraction; give a mole fraction such as "
-                     "\"20 ppmv\", \"0.05 mol%\" or 2e-5")
+                     "\"20 ppmv\", \"0.05 mol%\" or 2e-5, or a mass concentration at reference conditions such "
+                     "as \"15 mg/Nm3\"")
     if fraction >= inlet:
         section.fail("outlet_mole_fraction", f"found {raw!r} = {fraction:.6g}, not below the {key_name} mole fraction "
                      f"of the gas fed ({inlet:.6g}): there is nothing to absorb")
     if isinstance(raw, str) and split_number(raw)[1] in PER_MILLION_UNITS:
         return "outlet_ppmv", split_number(raw)[0]  # the number as written: "30 ppmv" is 30, not 29.999999999999996
     return "outlet_mole_fraction", fraction
+
+
+def _reference_concentration(section, raw):
+    """Solute mass per mole of gas [kg/mol] of a target written as mass per reference gas volume
+    ("20 mg/Nm3"), or None for any other target."""
+    if not isinstance(raw, str):
+        return None
+    if not any(volume in raw for volume in REFERENCE_VOLUMES):
+        if re.search(r"g\s*/\s*(m3|m³|m\*\*3|L)\b", raw):
+            section.fail("outlet_mole_fraction", f"found '{raw}', a mass per volume at the actual temperature and "
+                         "pressure, which traywise does not guess; give it at reference conditions (\"15 mg/Nm3\": "
+                         "0 degC and 101.325 kPa) or as a mole fraction (\"20 ppmv\")")
+        return None
+    try:
+        value, _ = to_si(raw, ("molar_mass",))
+    except UnitProblem as problem:
+        section.fail("outlet_mole_fraction", f"{problem}; a concentration at reference conditions is a mass per "
+                     "reference volume, such as \"20 mg/Nm3\"")
+    return value
 
 
 def _cooler_stage(section, solve_for, column_input):

@@ -23,6 +23,7 @@ from .gas_model import read_gas_model
 from .internals import read_internals
 from .quantities import case_error
 from .reader import Section, where
+from .report_units import display_units
 from .solvent_state import check_isothermal_stages, check_solvent_feed
 from .sweep import SWEEP_KEYS, check_sweep_table
 from .uncertainty import read_uncertainty
@@ -46,7 +47,7 @@ TOP_KEYS = (
     "internals",
     "uncertainty",
 )
-REPORT_KEYS = ("plots", "xy_solute")
+REPORT_KEYS = ("plots", "xy_solute", "units")
 LONGEST_INTEGER = 4301  # digits: Python refuses to turn a longer text into an int (sys.get_int_max_str_digits)
 LIQUID_KINDS = ("raoult", "nonvolatile", "eos")  # equilibrium models of components that can be the solvent
 SOLUBLE_KINDS = ("henry", "raoult", "activity", "table", "eos")  # models with a finite, non-zero K: candidates for the key
@@ -75,6 +76,7 @@ class Case:
     source : str                    The case's name in error messages (usually the file name)
     uncertainty : UncertaintyRequest or None   The ``[uncertainty]`` table (case/uncertainty.py)
     data : dict or None             The tables as read, for ``with_changes`` (case/changes.py)
+    display_units : dict or None    The units reports show (case/report_units.py)
     """
 
     path: Path | None
@@ -97,6 +99,7 @@ class Case:
     internals: object = None
     uncertainty: object = None
     data: dict | None = None
+    display_units: dict | None = None
 
     def with_changes(self, **changes):
         """This case with inputs changed, values as written in a case file ("2000 kg/h"); see
@@ -155,7 +158,7 @@ def build_case(data, where_from="<case>", *, path=None):
     """Check the tables of a case (a dict laid out as the case file, values as written there)."""
     case = _CaseBuilder(Section(data, "", where_from, TOP_KEYS), path).build()
     check_sweep_table(case)
-    return replace(case, data=copy.deepcopy(data))
+    return replace(case, data=copy.deepcopy(data), display_units=display_units(data, where_from))
 
 
 class _CaseBuilder:

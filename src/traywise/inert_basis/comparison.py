@@ -53,12 +53,14 @@ class IsothermalPoint:
     temperature : [K]
     stages : theoretical stages it asks for, None where it gives none [-]
     reason : why it gives none, or None
+    pinched : whether that is a pinch (no number of stages reaches the removal)
     """
 
     label: str
     temperature: float
     stages: float | None
     reason: str | None = None
+    pinched: bool = False
 
 
 @dataclass(frozen=True)
@@ -155,7 +157,7 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
     bracket, design = [], None
     for label, t in temperatures:
         if bracket and abs(t - temperature) < SAME_TEMPERATURE:
-            bracket.append(IsothermalPoint(label, t, bracket[0].stages, bracket[0].reason))
+            bracket.append(IsothermalPoint(label, t, bracket[0].stages, bracket[0].reason, bracket[0].pinched))
             continue
         point, found = _design_at(model, key, fraction, reason, label, t, common)
         bracket.append(point)
@@ -165,7 +167,7 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
     compared = tuple(_solute(solution, model, i, stages, solvent_index, dict(common, temperature=temperature))
                      for i in indices)
     measures = _measures(solution, model, key, solvent_index, temperature, pressure, design)
-    direction, causes, verdict = judge(key, stages, tuple(bracket), measures, reason)
+    direction, causes, verdict = judge(key, stages, tuple(bracket), measures, reason, pinched=bracket[0].pinched)
     return Comparison(
         key, temperature, pressure, column.n_stages, stages, efficiencies, bracket[0].stages, tuple(bracket), design,
         compared, OUTLET_BASIS, measures.max_temperature_rise, solution.hottest_stage, direction, causes,
@@ -181,7 +183,7 @@ def _design_at(model, key, fraction, reason, label, temperature, common):
         design = inert_basis_design(model, key, target_fraction_absorbed=fraction, temperature=temperature, **common)
     except PinchError:
         why = f"the isothermal design cannot reach the rigorous removal of {key} at all (pinch)"
-        return IsothermalPoint(label, temperature, None, why), None
+        return IsothermalPoint(label, temperature, None, why, pinched=True), None
     except TraywiseError as error:
         why = f"the isothermal inert-basis method cannot be applied to the removal of {key} ({error})"
         return IsothermalPoint(label, temperature, None, why), None
@@ -255,6 +257,7 @@ def _curvature(model, key, column, temperature, pressure, design):
                                        solvent_mole_fractions=column.solvent.component_flows)
         x_out = design.liquid_ratio_out
         small = 1e-6 * x_out
-        return float((curve(x_out) / x_out) / (curve(small) / small) - 1.0)
+        secant, initial = float(curve(x_out)) / x_out, float(curve(small)) / small
     except TraywiseError:
         return None
+    return secant / initial - 1.0 if initial > 0.0 and np.isfinite(secant) else None

@@ -78,7 +78,7 @@ def stage_tolerance(rigorous_stages):
     return max(absolute, relative * rigorous_stages)
 
 
-def judge(key, rigorous_stages, bracket, measures, reason):
+def judge(key, rigorous_stages, bracket, measures, reason, *, pinched=False):
     """(direction, causes, verdict sentence) of the simple method.
 
     Parameters
@@ -88,6 +88,7 @@ def judge(key, rigorous_stages, bracket, measures, reason):
     bracket : tuple of IsothermalPoint   solvent inlet first, then mean liquid, hottest stage
     measures : ProfileMeasures
     reason : str or None          why the simple method gives no stage count (None when it gives one)
+    pinched : bool                the reason is a pinch: the simple method cannot reach the removal
 
     Returns
     -------
@@ -99,7 +100,7 @@ def judge(key, rigorous_stages, bracket, measures, reason):
     caution = (f"; the column runs up to {measures.max_temperature_rise:.1f} K above the solvent inlet temperature"
                if measures.max_temperature_rise > NOTABLE_RISE else "")
     if inlet.stages is None:
-        if reason is not None and "pinch" in reason:
+        if pinched:
             causes = _causes(key, rigorous_stages, bracket, measures, need=-1.0)
             text = (f"conservative: {reason}, while the rigorous column reaches it with {rigorous_stages:.2f} "
                     f"theoretical stages; the simple method would have asked for more solvent")
@@ -107,7 +108,7 @@ def judge(key, rigorous_stages, bracket, measures, reason):
         return None, (), f"not compared: {reason}{caution}"
     need = rigorous_stages - inlet.stages
     detail = (f"the isothermal design at the solvent inlet temperature asks for {inlet.stages:.2f} theoretical "
-              f"stages of {key} removal against {rigorous_stages:.2f} rigorous (tolerance {tolerance_text()})")
+              f"stages of {key} removal against {rigorous_stages:.2f} rigorous (tolerance: {tolerance_text()})")
     spread = _bracket_text(bracket)
     if abs(need) <= stage_tolerance(rigorous_stages):
         return "close", (), f"close: {detail}{spread}{caution}"

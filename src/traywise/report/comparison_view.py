@@ -34,6 +34,7 @@ def comparison_json(record, kremser=None):
                 "temperature_K": float(point.temperature),
                 "theoretical_stages": _optional(point.stages),
                 "reason": point.reason,
+                "pinched": bool(point.pinched),
             }
             for point in record.bracket
         ],
@@ -88,6 +89,7 @@ def kremser_json(rating):
                 "liquid_to_gas_ratio": solute.liquid_to_gas_ratio,
                 "absorption_factor": solute.absorption_factor,
                 "gas_out_mole_fraction": solute.outlet_mole_fraction,
+                "gas_out_mole_fraction_solvent_free": solute.solvent_free_outlet_mole_fraction,
                 "fraction_absorbed": solute.fraction_absorbed,
             }
             for solute in rating.solutes
@@ -127,7 +129,7 @@ def comparison_rows(comparison):
                 f"{solute['name']} in gas out, solvent-free [mol frac]",
                 number(solute["gas_out_mole_fraction_rigorous"]),
                 number(solute["gas_out_mole_fraction_isothermal"]),
-                number(rated.get("gas_out_mole_fraction")),
+                number(rated.get("gas_out_mole_fraction_solvent_free", rated.get("gas_out_mole_fraction"))),
             )
         )
         rows.append(

@@ -17,6 +17,11 @@ from ..column import actual_trays
 from .cautions import SAFETY_CAUTIONS
 from .sizing_view import SIZING_KEYS
 
+# the units of a case that names none (common practice in basic-engineering documents)
+DEFAULT_UNITS = {"temperature": {"unit": "degC", "scale": 1.0, "offset": -273.15},
+                 "pressure": {"unit": "kPa", "scale": 1e-3, "offset": 0.0},
+                 "flow": {"unit": "kmol/h", "scale": 3.6, "offset": 0.0, "basis": "molar"}}
+
 RESULTS_KEYS = {
     "software": "name and version of the program that wrote the file",
     "software.name": "'traywise'",
@@ -60,24 +65,36 @@ RESULTS_KEYS = {
     "gas_in.flow_mol_per_s": "total flow [mol/s]",
     "gas_in.component_flows_mol_per_s": "per component name [mol/s]",
     "gas_in.mole_fractions": "per component name [-]",
+    "gas_in.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "gas_in.mass_fractions": "per component name [-]",
+    "gas_in.liquid_volume_flow_m3_per_s": "null (a gas stream)",
     "solvent_in": "solvent fed onto the top stage; keys as gas_out",
     "solvent_in.temperature_K": "[K]",
     "solvent_in.pressure_Pa": "pressure of the top stage [Pa]",
     "solvent_in.flow_mol_per_s": "total flow [mol/s]",
     "solvent_in.component_flows_mol_per_s": "per component name [mol/s]",
     "solvent_in.mole_fractions": "per component name [-]",
+    "solvent_in.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "solvent_in.mass_fractions": "per component name [-]",
+    "solvent_in.liquid_volume_flow_m3_per_s": "volume flow of the liquid, ideal mixing of the pure liquids (dissolved gases add mass only) [m3/s]; null without density data",
     "gas_out": "gas leaving the top",
     "gas_out.temperature_K": "[K]",
     "gas_out.pressure_Pa": "[Pa]",
     "gas_out.flow_mol_per_s": "total flow [mol/s]",
     "gas_out.component_flows_mol_per_s": "per component name [mol/s]",
     "gas_out.mole_fractions": "per component name [-]",
+    "gas_out.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "gas_out.mass_fractions": "per component name [-]",
+    "gas_out.liquid_volume_flow_m3_per_s": "null (a gas stream)",
     "liquid_out": "liquid leaving the bottom; keys as gas_out",
     "liquid_out.temperature_K": "[K]",
     "liquid_out.pressure_Pa": "[Pa]",
     "liquid_out.flow_mol_per_s": "total flow [mol/s]",
     "liquid_out.component_flows_mol_per_s": "per component name [mol/s]",
     "liquid_out.mole_fractions": "per component name [-]",
+    "liquid_out.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "liquid_out.mass_fractions": "per component name [-]",
+    "liquid_out.liquid_volume_flow_m3_per_s": "volume flow of the liquid, ideal mixing of the pure liquids (dissolved gases add mass only) [m3/s]; null without density data",
     "fraction_absorbed": "per component name: 1 - gas out / gas in [-]; negative when the gas picks it up; null when the gas carries none",
     "solvent_lost_mol_per_s": "per component name: flow the gas carries out beyond what it brought in [mol/s]",
     "temperatures": "temperature extremes",
@@ -92,6 +109,15 @@ RESULTS_KEYS = {
     "heat.evaporation_W": "heat taken up by components leaving the liquid (solvent evaporation) [W]",
     "heat.removed_by_coolers_W": "heat removed by coolers and intercoolers [W]",
     "heat.other_W": "carried by extra feeds and side draws [W]",
+    "heat.by_component_W": "per component name: heat given to the liquid by its transfer, a (h_V(T gas in) - h_L(T liquid out)) [W]; positive for a solute absorbed or solvent condensing, negative for solvent evaporating",
+    "solvent_balance": "the solvent's evaporation and condensation summed over the stages, or null when it could not be computed",
+    "solvent_balance.solvent": "name of the solvent",
+    "solvent_balance.evaporated_kg_per_s": "solvent passing from the liquid into the vapour, over the stages where it does [kg/s]",
+    "solvent_balance.condensed_kg_per_s": "solvent passing from the vapour into the liquid, over the stages where it does [kg/s]",
+    "solvent_balance.make_up_kg_per_s": "net solvent the gas carries away, to be made up [kg/s]; 0 when the liquid gains",
+    "solvent_balance.gained_kg_per_s": "net solvent the liquid takes up from the gas [kg/s]; 0 when it loses",
+    "display_units": "the units the reports show: per kind ('temperature', 'pressure', 'flow') the unit, and scale and offset from SI (shown = SI x scale + offset); flow also its basis 'mass' or 'molar'",
+    "inputs_as_written": "the case's tables as written in the case file (values with their units), or null for a case built in Python without them",
     "convergence": "how the solution was reached and how well it closes",
     "convergence.iterations": "Newton iterations [-]",
     "convergence.scaled_residual": "final max-norm of the scaled residuals [-]",
@@ -112,6 +138,7 @@ RESULTS_KEYS = {
     "isothermal_comparison.isothermal_bracket[].temperature_K": "the temperature [K]",
     "isothermal_comparison.isothermal_bracket[].theoretical_stages": "stages the isothermal method needs there [-]; null when it gives none",
     "isothermal_comparison.isothermal_bracket[].reason": "why it gives none, or null",
+    "isothermal_comparison.isothermal_bracket[].pinched": "true when that is a pinch: no number of stages reaches the removal there",
     "isothermal_comparison.outlet_basis": "the basis of both outlet mole fractions, in words (solvent-free)",
     "isothermal_comparison.solutes": "one entry per solute absorbed",
     "isothermal_comparison.solutes[].name": "solute name",
@@ -142,6 +169,7 @@ RESULTS_KEYS = {
     "isothermal_comparison.kremser.solutes[].liquid_to_gas_ratio": "L'/V' on the solute's inert basis [mol/mol]",
     "isothermal_comparison.kremser.solutes[].absorption_factor": "A = L'/(K V') [-]",
     "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction": "Kremser's outlet, solute over solute and inert gas [-]",
+    "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction_solvent_free": "the same free of the solvent vapour the gas feed brought, the basis of the comparison's outlets [-]",
     "isothermal_comparison.kremser.solutes[].fraction_absorbed": "1 - Y_out / Y_in [-]",
     "design": "the design of a case with a [design] table (cases/README.md); null without one",
     "design.solve_for": "the input solved for: 'solvent_flow', 'stages' or 'cooler_duty'",
@@ -221,6 +249,8 @@ def results_record(run, files):
     sizing = None if run.sizing is None else sizing_json(run.sizing)
     names = list(solution.component_names)
     column = solution.column
+    molar_mass = np.asarray(solution.molar_mass, dtype=float)
+    volumes = getattr(run, "liquid_volume_flows", None) or {}
     return {
         "software": {"name": "traywise", "version": __version__},
         "case": {"file": str(case.path), "title": case.title, "notes": case.notes},
@@ -259,10 +289,12 @@ def results_record(run, files):
             "k_values": plain(solution.k_values),
             "heat_removed_W": plain(solution.heat_removed),
         },
-        "gas_in": _stream(names, column.gas.component_flows, column.gas.temperature, solution.pressure[-1]),
-        "solvent_in": _stream(names, column.solvent.component_flows, column.solvent.temperature, solution.pressure[0]),
-        "gas_out": _stream(names, solution.gas_out, solution.temperature[0], solution.pressure[0]),
-        "liquid_out": _stream(names, solution.liquid_out, solution.temperature[-1], solution.pressure[-1]),
+        "gas_in": _stream(names, molar_mass, column.gas.component_flows, column.gas.temperature, solution.pressure[-1]),
+        "solvent_in": _stream(names, molar_mass, column.solvent.component_flows, column.solvent.temperature,
+                              solution.pressure[0], volumes.get("solvent_in")),
+        "gas_out": _stream(names, molar_mass, solution.gas_out, solution.temperature[0], solution.pressure[0]),
+        "liquid_out": _stream(names, molar_mass, solution.liquid_out, solution.temperature[-1], solution.pressure[-1],
+                              volumes.get("liquid_out")),
         "fraction_absorbed": _per_name(names, solution.fraction_absorbed),
         "solvent_lost_mol_per_s": _per_name(names, solution.solvent_lost),
         "temperatures": {
@@ -271,7 +303,11 @@ def results_record(run, files):
             "gas_out_temperature_K": solution.gas_out_temperature,
             "liquid_out_temperature_K": solution.liquid_out_temperature,
         },
-        "heat": {f"{field}_W": plain(value) for field, value in vars(solution.heat).items()},
+        "heat": {**{f"{field}_W": plain(value) for field, value in vars(solution.heat).items() if field != "by_component"},
+                 "by_component_W": _per_name(names, solution.heat.by_component or [None] * len(names))},
+        "solvent_balance": _solvent_balance(case.solvent, run.solvent_balance),
+        "display_units": getattr(case, "display_units", None) or DEFAULT_UNITS,
+        "inputs_as_written": _as_written(getattr(case, "data", None)),
         "convergence": {
             "iterations": solution.convergence.iterations,
             "scaled_residual": solution.convergence.residual,
@@ -285,7 +321,7 @@ def results_record(run, files):
         "sizing": sizing,
         "property_sources": {c.name: property_sources(c, kind, **_liquid_data(case.model, c.name))
                              for c, kind in zip(case.model.components, case.model.equilibrium)},
-        "warnings": [*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))],
+        "warnings": list(dict.fromkeys([*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))])),
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
@@ -332,15 +368,36 @@ def _per_name(names, values):
     return {name: plain(value) for name, value in zip(names, values)}
 
 
-def _stream(names, flows, temperature, pressure):
-    total = float(np.sum(flows))
+def _stream(names, molar_mass, flows, temperature, pressure, volume=None):
+    flows = np.asarray(flows, dtype=float)
+    total, masses = float(np.sum(flows)), flows * molar_mass
+    mass = float(masses.sum())
     return {
         "temperature_K": float(temperature),
         "pressure_Pa": float(pressure),
         "flow_mol_per_s": total,
         "component_flows_mol_per_s": {name: float(f) for name, f in zip(names, flows)},
         "mole_fractions": {name: float(f) / total for name, f in zip(names, flows)},
+        "mass_flow_kg_per_s": mass,
+        "mass_fractions": {name: float(m) / mass for name, m in zip(names, masses)},
+        "liquid_volume_flow_m3_per_s": None if volume is None else float(volume),
     }
+
+
+def _solvent_balance(solvent, balance):
+    if balance is None:
+        return None
+    mass = balance.solvent_molar_mass
+    return {"solvent": solvent, "evaporated_kg_per_s": balance.evaporated * mass,
+            "condensed_kg_per_s": balance.condensed * mass, "make_up_kg_per_s": balance.make_up * mass,
+            "gained_kg_per_s": balance.gained * mass}
+
+
+def _as_written(data):
+    """The case's tables as written, without title and notes (they head the report)."""
+    if data is None:
+        return None
+    return plain({key: value for key, value in data.items() if key not in ("title", "notes")})
 
 
 def plain(value):

@@ -9,7 +9,7 @@ Per kilogram of water, with molalities m_i [mol/kg], charges z_i, I = sum z_i**2
 
 W holding 2 (beta0 + beta1 h) for each cation-anion pair (Pitzer, J. Phys. Chem. 77 (1973) 268,
 eqs. 10-12 without the third virial term) and 2 lambda for each molecule-molecule pair
-(lambda m**2 for a molecule with itself). Then
+(lambda m**2 in g for a molecule with itself, 2 lambda m_i m_j for two different ones). Then
 
     ln gamma_i = d g / d m_i,     ln a_water = M_w (g - sum_i m_i (1 + ln gamma_i)),
 
@@ -23,29 +23,29 @@ import numpy as np
 from .data import a_phi
 
 WATER_MOLAR_MASS = 0.018015268  # kg/mol (IAPWS-95)
-SERIES_LIMIT = 0.6  # below this x, h and its derivatives from their Taylor series (cancellation)
-_SERIES = np.array([2.0 * (-1.0) ** j * (j + 1) / np.prod(np.arange(1.0, j + 3.0)) for j in range(14)])
+SERIES_LIMIT = 0.01  # below this x, Pitzer's h(x) from its Taylor series
 
 
 def pitzer_h(x):
-    """h(x) = 2 [1 - (1 + x) e^-x] / x**2 and its first two x-derivatives (Pitzer's g function)."""
+    """h(x) = 2 [1 - (1 + x) e^-x] / x**2 and its first two x-derivatives (Pitzer's g function).
+
+    The differences are formed from exp(-x) and expm1(-x); below x = SERIES_LIMIT (where they
+    would lose digits) the Taylor series h = 1 - 2x/3 + x**2/4 - x**3/15 + x**4/72 - ... is used."""
     x = np.asarray(x, dtype=float)
+    xs = np.maximum(x, SERIES_LIMIT)
+    e = np.exp(-xs)
+    u = -np.expm1(-xs) - xs * e  # 1 - (1 + x) e^-x
+    v = xs * xs * e - 2.0 * u  # x**3 h'/2
+    w = -(xs**3) * e - 3.0 * v  # x**4 h''/2
+    x2 = xs * xs
+    h, h1, h2 = 2.0 * u / x2, 2.0 * v / (x2 * xs), 2.0 * w / (x2 * x2)
     small = x < SERIES_LIMIT
-    xs = np.where(small, x, 0.0)
-    powers = xs[..., None] ** np.arange(14)
-    j = np.arange(14)
-    series = powers @ _SERIES
-    series_1 = (powers[..., :-1] * (j[1:] * _SERIES[1:])).sum(axis=-1)
-    series_2 = (powers[..., :-2] * (j[2:] * (j[2:] - 1) * _SERIES[2:])).sum(axis=-1)
-    xl = np.where(small, 1.0, x)
-    e = np.exp(-xl)
-    u = 1.0 - (1.0 + xl) * e
-    v = xl * xl * e - 2.0 * u  # x**3 h'/2
-    closed = 2.0 * u / xl**2
-    closed_1 = 2.0 * v / xl**3
-    closed_2 = 2.0 * (-(xl**3) * e - 3.0 * v) / xl**4
-    return (np.where(small, series, closed), np.where(small, series_1, closed_1),
-            np.where(small, series_2, closed_2))
+    if small.any():
+        t = np.where(small, x, 0.0)
+        h = np.where(small, 1.0 + t * (-2.0 / 3.0 + t * (0.25 + t * (-1.0 / 15.0 + t / 72.0))), h)
+        h1 = np.where(small, -2.0 / 3.0 + t * (0.5 + t * (-0.2 + t * (1.0 / 18.0 - t / 84.0))), h1)
+        h2 = np.where(small, 0.5 + t * (-0.4 + t * (1.0 / 6.0 - t * 1.0 / 21.0)), h2)
+    return h, h1, h2
 
 
 class Pitzer:
@@ -64,76 +64,87 @@ class Pitzer:
         z = np.asarray(charges, dtype=float)
         s = z.size
         self.q = 0.5 * z * z
+        self.qq = np.outer(self.q, self.q)
         self.w0 = np.zeros((s, s))
         self.w1 = np.zeros((s, s))
         for i, j, beta0, beta1 in salts:
             for a, c in ((i, j), (j, i)):
                 self.w0[a, c] += 2.0 * beta0
                 self.w1[a, c] += 2.0 * beta1
-        self.patterns = np.zeros((len(neutrals), s, s))
+        self.pairs = [(i, j) for i, j, *_ in neutrals]
         self.lambdas = np.array([(a, b_, c) for _, _, a, b_, c in neutrals]).reshape(-1, 3)
-        for p, (i, j, *_) in enumerate(neutrals):
-            self.patterns[p, i, j] += 1.0
-            self.patterns[p, j, i] += 1.0
         self.has_w1 = bool(np.any(self.w1))
         self.a_phi_coefficients, self.b, self.alpha = a_phi_coefficients, b, alpha
         self.water_molar_mass = water_molar_mass
 
-    def _w0(self, t):
-        """W0 (n, s, s) or (s, s) and its temperature derivative (or None)."""
-        if not len(self.patterns):
-            return self.w0, None
+    def temperature_terms(self, t):
+        """What depends on temperature alone: (A_phi, dA_phi/dT, lambda, dlambda/dT) with
+        lambda (n, pairs) of the molecule pairs, for ``evaluate``."""
+        amp, amp_t, _ = a_phi(t, self.a_phi_coefficients)
         inverse = 1.0 / t[:, None]
         lam = self.lambdas[:, 0] + inverse * (self.lambdas[:, 1] + inverse * self.lambdas[:, 2])
         lam_t = -inverse * inverse * (self.lambdas[:, 1] + 2.0 * inverse * self.lambdas[:, 2])
-        return (self.w0 + np.einsum("np,pij->nij", lam, self.patterns),
-                np.einsum("np,pij->nij", lam_t, self.patterns))
+        return amp, amp_t, lam, lam_t
 
-    def evaluate(self, m, t):
-        """Activity terms at molalities m (n, s) [mol/kg] and temperature t (n,) [K].
+    def evaluate(self, m, t, terms=None):
+        """Activity terms at molalities m (n, s) [mol/kg] and temperature t (n,) [K] (terms:
+        ``temperature_terms(t)``, computed here if not given).
 
         Returns ln_gamma (n, s), hessian (n, s, s) [kg/mol], ln_aw (n,), dln_aw_dm (n, s)
-        [kg/mol], dln_gamma_dt (n, s) [1/K] and dln_aw_dt (n,) [1/K] at fixed m."""
+        [kg/mol], dln_gamma_dt (n, s) [1/K] and dln_aw_dt (n,) [1/K] at fixed m, and the ionic
+        strength (n,) [mol/kg]."""
         q, b = self.q, self.b
+        n = m.shape[0]
         ionic = np.maximum(m @ q, 1e-30)
         root = np.sqrt(ionic)
         one = 1.0 + b * root
         log_one = np.log(one)
-        f = -4.0 * ionic / b * log_one
+        f = -4.0 / b * ionic * log_one
         f1 = -(4.0 / b * log_one + 2.0 * root / one)
-        f2 = -(2.0 / (root * one) + 1.0 / (root * one * one))
-        amp, amp_t, _ = a_phi(t, self.a_phi_coefficients)
-        w0, w0_t = self._w0(t)
-        w0m = np.einsum("nij,nj->ni", w0, m) if w0.ndim == 3 else m @ w0
-        wm = w0m
-        curvature = amp * f2
-        ln_gamma_scalar = amp * f1
-        g = amp * f + 0.5 * np.einsum("ni,ni->n", m, w0m)
-        hessian = np.broadcast_to(w0, (m.shape[0],) + w0.shape[-2:]).copy()
+        f2 = -(2.0 + 1.0 / one) / (root * one)
+        amp, amp_t, lam, lam_t = terms if terms is not None else self.temperature_terms(t)
+        wm = m @ self.w0  # W0 is symmetric
+        wm_t = np.zeros_like(m) if self.pairs else None
+        for p, (i, j) in enumerate(self.pairs):  # molecule pairs: W_ij = W_ji = 2 lambda
+            for a, c in ((i, j),) if i == j else ((i, j), (j, i)):
+                wm[:, a] += 2.0 * lam[:, p] * m[:, c]
+                wm_t[:, a] += 2.0 * lam_t[:, p] * m[:, c]
+        hessian = np.broadcast_to(self.w0, (n,) + self.w0.shape)
+        g = amp * f + 0.5 * (m * wm).sum(axis=1)
+        scalar = amp * f1  # coefficient of q in ln gamma
+        curvature = amp * f2  # coefficient of q q^T in the Hessian
+        a = np.zeros_like(m)  # the Hessian's cross term a q^T + q a^T
         if self.has_w1:
             h, h_x, h_xx = pitzer_h(self.alpha * root)
             dx = self.alpha / (2.0 * root)  # dx/dI
             h_i = h_x * dx
-            h_ii = h_xx * dx * dx - h_x * dx / (2.0 * ionic)
+            h_ii = dx * (h_xx * dx - h_x / (2.0 * ionic))
             w1m = m @ self.w1
-            mw1m = np.einsum("ni,ni->n", m, w1m)
-            wm = w0m + h[:, None] * w1m
+            mw1m = (m * w1m).sum(axis=1)
+            wm = wm + h[:, None] * w1m
             g = g + 0.5 * h * mw1m
-            ln_gamma_scalar = ln_gamma_scalar + 0.5 * h_i * mw1m
+            scalar = scalar + 0.5 * h_i * mw1m
             curvature = curvature + 0.5 * h_ii * mw1m
-            hessian += h[:, None, None] * self.w1
-            cross = h_i[:, None, None] * w1m[:, :, None] * q[None, None, :]
-            hessian += cross + np.swapaxes(cross, 1, 2)
-        ln_gamma = ln_gamma_scalar[:, None] * q + wm
-        hessian += curvature[:, None, None] * np.outer(q, q)
+            hessian = hessian + np.multiply.outer(h, self.w1)
+            a = h_i[:, None] * w1m
+        ln_gamma = scalar[:, None] * q + wm
+        qn = np.broadcast_to(q, m.shape)
+        left = np.stack([a, qn, curvature[:, None] * q], axis=2)  # (n, s, 3)
+        right = np.stack([qn, a, qn], axis=1)  # (n, 3, s)
+        hessian = hessian + np.matmul(left, right)
+        for p, (i, j) in enumerate(self.pairs):
+            hessian[:, i, j] += 2.0 * lam[:, p]
+            if i != j:
+                hessian[:, j, i] += 2.0 * lam[:, p]
         mw = self.water_molar_mass
-        ln_aw = mw * (g - np.einsum("ni,ni->n", m, 1.0 + ln_gamma))
-        dln_aw_dm = -mw * (1.0 + np.einsum("nij,nj->ni", hessian, m))
+        ln_aw = mw * (g - (m * (1.0 + ln_gamma)).sum(axis=1))
+        # H m without the Hessian: W m + a I + q (a.m) + curvature q I  (q.m = I)
+        hm = wm + a * ionic[:, None] + q * ((a * m).sum(axis=1) + curvature * ionic)[:, None]
+        dln_aw_dm = -mw * (1.0 + hm)
         dln_gamma_dt = (amp_t * f1)[:, None] * q
         g_t = amp_t * f
-        if w0_t is not None:
-            w0m_t = np.einsum("nij,nj->ni", w0_t, m)
-            dln_gamma_dt = dln_gamma_dt + w0m_t
-            g_t = g_t + 0.5 * np.einsum("ni,ni->n", m, w0m_t)
-        dln_aw_dt = mw * (g_t - np.einsum("ni,ni->n", m, dln_gamma_dt))
+        if wm_t is not None:
+            dln_gamma_dt = dln_gamma_dt + wm_t
+            g_t = g_t + 0.5 * (m * wm_t).sum(axis=1)
+        dln_aw_dt = mw * (g_t - (m * dln_gamma_dt).sum(axis=1))
         return ln_gamma, hessian, ln_aw, dln_aw_dm, dln_gamma_dt, dln_aw_dt, ionic

@@ -20,7 +20,7 @@ temperature and to each apparent molality (``Equilibrium.sensitivity``).
 Reference: T. J. Edwards, G. Maurer, J. Newman, J. M. Prausnitz, AIChE J. 24 (1978) 966-976.
 """
 
-from dataclasses import dataclass
+from dataclasses import dataclass, fields
 
 import numpy as np
 
@@ -29,9 +29,10 @@ from .data import coefficient_terms
 from .pitzer import Pitzer
 
 MAX_STEP = 3.0  # largest change of any ln m in one Newton step
-TOLERANCE = 1e-8  # on the largest ln m change (the last step is taken: error about its square)
+TOLERANCE = 1e-6  # on the largest ln m change; the last step is taken (error about its square)
 MAX_ITERATIONS = 60
 MOLALITY_FLOOR = 1e-9  # mol/kg: apparent molalities below this are taken as this (a trace)
+LN_M_RANGE = (-700.0, 12.0)  # ln m [mol/kg] kept inside this during the iteration (no overflow)
 LN_H_BRACKET = (-46.0, 5.0)  # ln m(H+) bracket of the cold start (pH -2 to 20)
 
 SOLUTES = ("NH3", "CO2", "H2S", "SO2", "HCl", "NaOH")
@@ -75,18 +76,27 @@ class Equilibrium:
     jacobian: np.ndarray
     dlnk_dt: np.ndarray  # (n, s) of the mass-action rows
     iterations: int
+    dy_dt_before: np.ndarray | None = None  # d y/dT at the state before Newton's last step (n, s)
 
-    def sensitivity(self, system):
-        """d y / d T (n, s) and d y / d ln T_j (n, s, k) by the implicit-function theorem."""
-        n = self.t.size
-        totals = np.broadcast_to(system.total_rows, (n,) + system.total_rows.shape).copy()
-        if system.sodium_column is not None:  # NaOH also changes the true water (r)
-            na = self.totals[:, system.sodium_column]
-            share = system.water_molar_mass * na / (1.0 + system.water_molar_mass * na)
-            totals[:, :, system.sodium_column] -= (system.weak_rows | system.fixed_rows) * share[:, None]
-        rhs = np.concatenate([-system.dr_dt(self)[:, :, None], totals], axis=2)
+    def head(self, n):
+        """The record of the first n stages."""
+        return Equilibrium(*(value[:n] if isinstance(value, np.ndarray) else value
+                             for value in (getattr(self, f.name) for f in fields(self))))
+
+    def sensitivity(self, system, temperature_only=False):
+        """d y / d T (n, s) and d y / d ln T_j (n, s, k) by the implicit-function theorem
+        (only d y / d T, and None, with temperature_only)."""
+        rhs = -system.dr_dt(self)[:, :, None]
+        if not temperature_only:
+            n = self.t.size
+            totals = np.broadcast_to(system.total_rows, (n,) + system.total_rows.shape).copy()
+            if system.sodium_column is not None:  # NaOH also changes the true water (r)
+                na = self.totals[:, system.sodium_column]
+                share = system.water_molar_mass * na / (1.0 + system.water_molar_mass * na)
+                totals[:, :, system.sodium_column] -= (system.weak_rows | system.fixed_rows) * share[:, None]
+            rhs = np.concatenate([rhs, totals], axis=2)
         solved = np.linalg.solve(self.jacobian, rhs)
-        return solved[:, :, 0], solved[:, :, 1:]
+        return solved[:, :, 0], (None if temperature_only else solved[:, :, 1:])
 
 
 class SpeciationSystem:
@@ -138,6 +148,7 @@ class SpeciationSystem:
         self.charge_row = charge_row.astype(bool)
         self.weak_rows = self.target.astype(bool)
         self.fixed_rows = np.diag(self.fixed).astype(bool)
+        self.constant_jacobian = self.c + self.fixed
         self.water_molar_mass = water_molar_mass
         self.sodium_row = position.get("Na+")
         self.sodium_column = self.solutes.index("NaOH") if "NaOH" in self.solutes else None
@@ -154,9 +165,9 @@ class SpeciationSystem:
         both = terms[:, :2] @ self.ln_k_coefficients.T  # (n, 2, s)
         return both[:, 0], both[:, 1]
 
-    def _residual_and_jacobian(self, y, t, ln_k, totals_rows):
+    def _residual_and_jacobian(self, y, t, ln_k, totals_rows, terms):
         m = np.exp(y)
-        activity = self.pitzer.evaluate(m, t)
+        activity = self.pitzer.evaluate(m, t, terms)
         ln_gamma, hessian, ln_aw, dln_aw_dm = activity[:4]
         # r = (true water)/(apparent water): water bound in OH-, HCO3-, ... and set free by NaOH
         denominator = 1.0 + self.water_molar_mass * (m @ self.nu_w)
@@ -169,10 +180,15 @@ class SpeciationSystem:
         r = (y + ln_gamma) @ self.c.T - ln_aw[:, None] * self.nu_w - ln_k
         r += balance - self.target
         r += (y + ln_r[:, None] - np.log(totals_rows)) @ self.fixed.T
-        jacobian = np.einsum("ij,njk->nik", self.c, hessian * m[:, None, :])
-        jacobian += self.c - self.nu_w[None, :, None] * (dln_aw_dm * m)[:, None, :]
-        jacobian += self.balance[None] * (m[:, None, :] * (weight / scale)[:, :, None])
-        jacobian += (balance * self.weak_rows + self.fixed_rows)[:, :, None] * dln_r[:, None, :] + self.fixed
+        n, s = m.shape
+        c_hessian = np.dot(hessian.reshape(-1, s), self.c.T).reshape(n, s, s).transpose(0, 2, 1)  # C H (H symmetric)
+        jacobian = c_hessian + (weight / scale)[:, :, None] * self.balance
+        jacobian *= m[:, None, :]
+        jacobian += self.constant_jacobian
+        # rank-two part: water activity in the mass action, r in the balances and fixed rows
+        left = np.stack([np.broadcast_to(-self.nu_w, m.shape), balance * self.weak_rows + self.fixed_rows], axis=2)
+        right = np.stack([dln_aw_dm * m, dln_r], axis=1)
+        jacobian += np.matmul(left, right)
         return r, jacobian, m, activity
 
     def _ln_r0(self, totals_rows):
@@ -182,7 +198,7 @@ class SpeciationSystem:
         return np.log1p(self.water_molar_mass * totals_rows[:, self.sodium_row])
 
     def dr_dt(self, eq):
-        """d R / d T at fixed y and totals (n, s)."""
+        """d R / d T at fixed y and totals (n, s) (the mass-action rows: ln K, ln gamma, ln a_w)."""
         return eq.dln_gamma_dt @ self.c.T - eq.dln_aw_dt[:, None] * self.nu_w - eq.dlnk_dt
 
     def _rows_of_totals(self, totals):
@@ -232,33 +248,53 @@ class SpeciationSystem:
         return y
 
     # ------------------------------------------------------------------ solve
-    def solve(self, t, totals):
-        """Equilibrium at temperatures t (n,) [K] and apparent molalities totals (n, k) [mol/kg]."""
+    def solve(self, t, totals, start=None):
+        """Equilibrium at temperatures t (n,) [K] and apparent molalities totals (n, k) [mol/kg],
+        from ``start`` (ln m, (n, s)) if given, else the last solution of this shape."""
         t = np.asarray(t, dtype=float)
         totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
         ln_k, dlnk_dt = self._ln_k(t)
         rows = self._rows_of_totals(totals)
-        start = self._cache.get(t.shape)
+        start = self._cache.get(t.shape) if start is None else start
         for attempt in ("warm", "cold"):
             if attempt == "cold" or start is None:
                 start = self._cold_start(t, totals, ln_k)
-            result = self._newton(start, t, ln_k, rows)
+            result = self._newton(start, t, ln_k, dlnk_dt, rows)
             if result is not None:
                 break
         else:
             raise PropertyRangeError("the aqueous speciation did not converge (electrolyte liquid): "
                                      f"temperatures {t.min():.1f}-{t.max():.1f} K, largest apparent molality {totals.max():.3g} mol/kg")
-        y, r, jacobian, m, activity, iterations = result
+        y, jacobian, m, activity, iterations, dy_dt = result
         self._cache[t.shape] = y
-        ln_gamma, hessian, ln_aw, dln_aw_dm, dln_gamma_dt, dln_aw_dt, ionic = activity
-        return Equilibrium(t, totals, y, m, ln_gamma, hessian, ln_aw, dln_aw_dm, dln_gamma_dt, dln_aw_dt, ionic,
-                           jacobian, dlnk_dt, iterations)
+        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, iterations, dy_dt)
 
-    def _newton(self, y, t, ln_k, rows):
-        y = y.copy()
+    def evaluate_at(self, y, t, totals):
+        """The ``Equilibrium`` record of given ln m (n, s), without iterating (for states
+        predicted from a solved one by its sensitivities)."""
+        t = np.asarray(t, dtype=float)
+        totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
+        ln_k, dlnk_dt = self._ln_k(t)
+        terms = self.pitzer.temperature_terms(t)
+        _, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, self._rows_of_totals(totals), terms)
+        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, 0)
+
+    def _newton(self, y, t, ln_k, dlnk_dt, rows):
+        """Newton's method from y; returns (y, Jacobian before the last step, m, activity terms,
+        iterations, d y/dT before the last step), or None when it fails."""
+        with np.errstate(over="ignore", invalid="ignore"):  # a failing start is detected, not warned about
+            return self._newton_steps(np.clip(y, *LN_M_RANGE), t, ln_k, dlnk_dt, rows)
+
+    def _newton_steps(self, y, t, ln_k, dlnk_dt, rows):
+        terms = self.pitzer.temperature_terms(t)
         for iteration in range(1, MAX_ITERATIONS + 1):
-            r, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, rows)
-            step = np.linalg.solve(jacobian, -r[:, :, None])[:, :, 0]
+            r, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, rows, terms)
+            dr_dt = activity[4] @ self.c.T - activity[5][:, None] * self.nu_w - dlnk_dt
+            try:
+                both = np.linalg.solve(jacobian, -np.stack([r, dr_dt], axis=2))  # the step and d y/dT
+            except np.linalg.LinAlgError:
+                return None
+            step = both[:, :, 0]
             biggest = np.abs(step).max(axis=1, keepdims=True)
             if not np.all(np.isfinite(biggest)):
                 return None
@@ -269,8 +305,9 @@ class SpeciationSystem:
                 m = np.exp(y)
                 dm = m * step
                 ln_gamma, hessian, ln_aw, dln_aw_dm, *rest = activity
-                ln_gamma = ln_gamma + np.einsum("nij,nj->ni", hessian, dm)
-                ln_aw = ln_aw + np.einsum("ni,ni->n", dln_aw_dm, dm)
-                return y, r, jacobian, m, (ln_gamma, hessian, ln_aw, dln_aw_dm, *rest), iteration
+                ln_gamma = ln_gamma + np.matmul(hessian, dm[:, :, None])[:, :, 0]
+                ln_aw = ln_aw + (dln_aw_dm * dm).sum(axis=1)
+                return y, jacobian, m, (ln_gamma, hessian, ln_aw, dln_aw_dm, *rest), iteration, both[:, :, 1]
             y += step * np.minimum(1.0, MAX_STEP / np.maximum(biggest, 1e-300))
+            np.clip(y, LN_M_RANGE[0], LN_M_RANGE[1], out=y)
         return None
