@@ -119,6 +119,10 @@ def test_report_units_choice_overrides_the_case(tmp_path):
     text = markdown_report(record)
     assert "| temperature [K] |" in text and "| pressure [kPa] |" in text
     assert re.search(r"Hottest stage \d+ at 3\d\d\.\d K", text)
+    comparison = text[text.index("isothermal inert-basis design at"):]
+    assert re.match(r"isothermal inert-basis design at 29\d\.\d K and \d+(\.\d+)? kPa", comparison)
+    assert re.search(r"isothermal at the hottest stage temperature, 3\d\d\.\d K", text)
+    assert "degC" not in comparison.split("**Simple isothermal design")[0]  # heading and table
 
 
 def test_a_report_units_choice_that_is_not_a_unit_is_refused():

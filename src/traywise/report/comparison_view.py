@@ -11,7 +11,7 @@ max_temperature_rise, hottest_stage, direction, causes, stage_tolerance, held, v
 ``KremserRating`` beside it.
 """
 
-from .tables import celsius, kilopascal, number, percent
+from .tables import number, percent
 
 
 def comparison_json(record, kremser=None):
@@ -97,9 +97,10 @@ def kremser_json(rating):
     }
 
 
-def comparison_rows(comparison):
+def comparison_rows(comparison, units):
     """Rows (quantity, rigorous, isothermal inert basis, Kremser) of the comparison table, as
-    text, from the dict of ``comparison_json``; Kremser's column is '-' where it rated nothing."""
+    text, from the dict of ``comparison_json``, temperatures in the report's units (``tables.Display``);
+    Kremser's column is '-' where it rated nothing."""
     stages = comparison["theoretical_stages_isothermal"]
     kremser = comparison["kremser"] or {"theoretical_stages_for_rigorous_removal": None, "solutes": []}
     by_name = {solute["name"]: solute for solute in kremser["solutes"]}
@@ -111,7 +112,7 @@ def comparison_rows(comparison):
             number(kremser["theoretical_stages_for_rigorous_removal"]),
         ),
         *[
-            (f"  isothermal at the {point['temperature_of']} temperature, {celsius(point['temperature_K'])} degC", "-",
+            (f"  isothermal at the {point['temperature_of']} temperature, {units.temperature(point['temperature_K'])} {units.t_unit}", "-",
              "none" if point["theoretical_stages"] is None else number(point["theoretical_stages"]), "-")
             for point in comparison["isothermal_bracket"][1:]
         ],
@@ -146,11 +147,12 @@ def comparison_rows(comparison):
     return rows
 
 
-def comparison_heading(comparison):
-    """One line: where the isothermal design and Kremser's rating were taken."""
+def comparison_heading(comparison, units):
+    """One line: where the isothermal design and Kremser's rating were taken, in the report's units."""
     return (
-        f"isothermal inert-basis design at {celsius(comparison['isothermal_temperature_K'])} degC and "
-        f"{kilopascal(comparison['isothermal_pressure_Pa'])} kPa, every component but one solute inert, and "
+        f"isothermal inert-basis design at {units.temperature(comparison['isothermal_temperature_K'])} "
+        f"{units.t_unit} and {units.pressure(comparison['isothermal_pressure_Pa'])} {units.p_unit}, "
+        "every component but one solute inert, and "
         "Kremser's equation there with K at infinite dilution"
     )
 

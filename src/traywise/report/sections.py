@@ -206,7 +206,9 @@ def comparison_table(results):
     if comparison is None:
         return None
     headers = ["", "rigorous (MESH)", "isothermal inert basis", "Kremser"]
-    return comparison_heading(comparison), headers, comparison_rows(comparison), verdict_line(comparison)
+    units = Display(results["display_units"])
+    return (comparison_heading(comparison, units), headers, comparison_rows(comparison, units),
+            verdict_line(comparison))
 
 
 def flatten(mapping, prefix=""):
