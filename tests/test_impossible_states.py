@@ -96,3 +96,14 @@ def test_a_mild_excursion_is_solved_and_warned_about():
     solution = solve_column(column, _narrow_henry_model(298.15 - RANGE_MARGIN + 5.0))
     assert any("outside its valid range" in w and "extrapolated" in w for w in solution.warnings)
     assert np.all(solution.temperature == 298.15)
+
+
+def test_an_isothermal_column_gets_its_report(tmp_path):
+    """Found by the reliability battery: the report's assumptions line took the per-stage
+    isothermal temperatures for one number (a TypeError traceback)."""
+    case = tmp_path / "iso.toml"
+    case.write_text(CASE.format(extra="", t_gas="25 degC").replace("[column]", '[column]\nmode = "isothermal"\n'
+                    'isothermal_temperature = "30 degC"'), encoding="utf-8")
+    result = CliRunner().invoke(main, ["run", str(case), "--no-plots", "--quiet", "--out", str(tmp_path / "out")])
+    assert result.exit_code == 0, result.output
+    assert "Isothermal stages at 30" in (tmp_path / "out" / "report.md").read_text(encoding="utf-8")
