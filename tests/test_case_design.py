@@ -109,6 +109,8 @@ MALFORMED_DESIGN = [
      ["[[column.cooler]]"], "cooler"),
     ("O'Connell with an oil", "oconnell_efficiency = true", "oconnell_efficiency = true", "design.oconnell_efficiency",
      ["water only"], "oil"),
+    ("minimum solvent with Murphree efficiencies per stage", "oconnell_efficiency = true", "oconnell_efficiency = false",
+     "design.minimum_solvent", ["column.murphree_efficiency that differs", "many more stages"], "murphree"),
     ("design not a table", "\n[design]\n", "\n[[design]]\n", "design", ["expected a table"]),
 ]
 
@@ -124,6 +126,8 @@ def _base_for(kind):
         text = variant('solvent = "water"', 'solvent = "demo oil"', text)
         text = variant("[gas_feed]", oil, text)
         return variant('flow = "1500 kg/h"', 'flow = "1500 kg/h"\ncomposition = { "demo oil" = 1.0 }', text)
+    if kind == "murphree":
+        return variant("overall_efficiency = 0.5\n", "murphree_efficiency = [0.7, 0.8, 0.9, 0.9, 0.9, 0.9]\n")
     return DEMO
 
 

@@ -126,6 +126,9 @@ MALFORMED = [
      "column.murphree_efficiency[2]", ["(0, 1]"]),
     ("overall efficiency above 1", "stages = 8", 'stages = 8\noverall_efficiency = "150 %"',
      "column.overall_efficiency", ["1.5"]),
+    # both would apply one on top of the other: refused, naming both keys
+    ("Murphree and overall efficiency together", "stages = 8", "stages = 8\noverall_efficiency = 0.6",
+     "column.overall_efficiency", ["column.murphree_efficiency", "not both"]),
     ("cooler below the column", "stage = 5", "stage = 12", "column.cooler[0].stage", ["stages 1 to 8"]),
     ("negative cooler duty", 'duty = "8 kW"', 'duty = "-8 kW"', "column.cooler[0].duty", [">= 0"]),
     ("cooler duty in kg", 'duty = "8 kW"', 'duty = "8 kg"', "column.cooler[0].duty", ["expected a heat flow"]),
@@ -141,6 +144,14 @@ MALFORMED = [
     ("misspelt mode", "stages = 8", 'stages = 8\nmode = "isotherm"', "column.mode", ["did you mean 'isothermal'"]),
     ("isothermal without temperature", "stages = 8", 'stages = 8\nmode = "isothermal"',
      "column.isothermal_temperature", ["missing"]),
+    # water boils at 100.976 degC at 105 kPa (IAPWS-IF97 saturation line, as CoolProp 'IF97::Water' gives it)
+    ("isothermal above the boiling point", "stages = 8", 'stages = 8\nmode = "isothermal"\nisothermal_temperature = "110 degC"',
+     "column.isothermal_temperature", ["stage 1", "boiling point of water at that stage's pressure", "(100.98 degC)"]),
+    ("isothermal stage above the boiling point", "stages = 8", 'stages = 8\nmode = "isothermal"\nisothermal_temperature = '
+     '["30 degC", "30 degC", "30 degC", "30 degC", "30 degC", "30 degC", "30 degC", "104 degC"]',
+     "column.isothermal_temperature[7]", ["stage 8", "boiling point of water"]),
+    ("isothermal below the melting point", "stages = 8", 'stages = 8\nmode = "isothermal"\nisothermal_temperature = "-5 degC"',
+     "column.isothermal_temperature", ["melting point", "freeze"]),
     ("isothermal temperature when adiabatic", "stages = 8", 'stages = 8\nisothermal_temperature = "30 degC"',
      "column.isothermal_temperature", ["only with mode = 'isothermal'"]),
     ("key is the solvent", 'title = "Ammonia', 'key_component = "water"\ntitle = "Ammonia', "key_component",

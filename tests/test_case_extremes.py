@@ -38,6 +38,13 @@ EXTREMES = [
     ("2**70 stages", AMMONIA, "stages = 10", f"stages = {2**70}", "column.stages", "digits"),
     ("100,000 stages", AMMONIA, "stages = 10", "stages = 100000", "column.stages", "memory"),
     ("5000-digit integer", AMMONIA, "stages = 10", "stages = " + "9" * 5000, "line", "5000 digits"),
+    # found by tests/benchmarks/bench_reliability.py: an OverflowError each, before
+    ("400-digit integer as a temperature", AMMONIA, 'temperature = "20 degC"', "temperature = " + "9" * 400,
+     "solvent_feed.temperature", "400 digits"),
+    ("tiny overall efficiency", AMMONIA, "overall_efficiency = 0.5", "overall_efficiency = 1e-308",
+     "column.overall_efficiency", "0.01 to 1 as a fraction"),
+    ("tiny Murphree efficiency", AMMONIA, "overall_efficiency = 0.5", "murphree_efficiency = 1e-308",
+     "column.murphree_efficiency", "0.01 to 1 as a fraction"),
 ]
 
 

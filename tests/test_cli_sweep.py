@@ -60,7 +60,7 @@ def test_a_fifty_point_sweep_writes_every_point(fifty):
     assert "licensed engineering practice" in record["safety_cautions"][-1]
     assert "## Safety cautions" in (folder / "sweep.md").read_text(encoding="utf-8")
     assert "50 converged" in result.stdout and "(see sweep.md)" in result.stdout
-    assert "[design] table is not applied" in result.stdout  # the demo has one
+    assert "each point starts from the designed column" in result.stdout  # the demo has a [design] table
 
 
 def test_two_processes_give_the_same_rows(fifty, tmp_path):

@@ -65,7 +65,7 @@ def test_demo_runs_and_writes_every_output(demo_run):
     _, folder, result = demo_run
     assert "Results written to" in result.stdout
     sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES | sized
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", "report.html", ".traywise-results"} | FIGURES | sized
     assert not [p for p in folder.parent.iterdir() if p.name.startswith(".")]  # no temporary folder left
 
 
@@ -176,9 +176,10 @@ def test_table_demo_absorbs_more_than_henrys_law_says(tmp_path):
     record = strict_json(tmp_path / "out" / "results.json")
     assert record["components"][1]["equilibrium_model"] == "table"
     assert record["property_sources"]["sulfur dioxide"]["equilibrium table in water"].startswith("invented for this demo")
-    held = record["isothermal_comparison"]["isothermal_assumption_held"]
+    direction = record["isothermal_comparison"]["direction"]
     report = (tmp_path / "out" / "report.md").read_text(encoding="utf-8")
-    assert ("Isothermal assumption held" if held else "Isothermal assumption did not hold") in report
+    assert direction in ("close", "conservative", "unsafe")
+    assert f"Simple isothermal design: {direction}: " in report
     assert "equilibrium table in water: invented for this demo" in report
 
 
@@ -195,7 +196,7 @@ def test_entry_point_runs_a_demo_in_a_fresh_process(tmp_path):
     assert finished.returncode == 0, finished.stderr
     folder = tmp_path / "solvent-recovery-dryer-air-results"
     sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
-    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", ".traywise-results"} | FIGURES | sized
+    assert {p.name for p in folder.iterdir()} == {"results.json", "stages.csv", "report.md", "report.html", ".traywise-results"} | FIGURES | sized
     missing = subprocess.run(traywise_command() + ["run", "missing.toml"], cwd=tmp_path, env=env,
                              capture_output=True, text=True, check=False)
     assert missing.returncode == 2

@@ -131,14 +131,17 @@ def record_verdict(folder):
 def test_report_carries_results_comparison_sources_and_cautions(written):
     folder, _ = written
     text = (folder / "report.md").read_text(encoding="utf-8")
-    for heading in ("## Inputs", "## Streams", "## Stage profile", "## Where the heat went", "## Convergence",
-                    "## Isothermal inert-basis comparison", "## Property sources", "## Warnings", "## Safety cautions"):
+    order = ("## Summary", "## Warnings", "## Safety cautions", "## Assumptions in force for this run", "## Streams",
+             "## Stage profile", "## Heat budget", "## Isothermal inert-basis comparison", "## Convergence",
+             "## Inputs", "## Property sources")
+    for heading in order:
         assert heading in text
+    assert [text.index(heading) for heading in order] == sorted(text.index(heading) for heading in order)
     for caution in SAFETY_CAUTIONS:
         assert caution in text
     assert "licensed engineering practice" in text
     assert "![Temperature profile](temperature_profile.png)" in text
-    assert f"**Isothermal assumption {record_verdict(folder)}.**" in text
+    assert f"**Simple isothermal design: {record_verdict(folder)}.**" in text
     assert text.count("\n| ") >= N_STAGES  # the stage table is there
 
 
@@ -146,7 +149,7 @@ def test_summary_levels(written):
     _, record = written
     normal = summary_text(record)
     verbose = summary_text(record, verbose=True)
-    assert "sulfur dioxide" in normal and f"Isothermal assumption {record['isothermal_comparison']['verdict']}" in normal
+    assert "sulfur dioxide" in normal and f"Simple isothermal design: {record['isothermal_comparison']['verdict']}" in normal
     assert "Property sources:" not in normal and "Property sources:" in verbose
     assert "a case warning" in normal
 

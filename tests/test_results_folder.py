@@ -115,7 +115,7 @@ def test_an_unchanged_results_folder_is_replaced_and_lists_its_files(project):
     results = project / "case-results"
     listed = json.loads((results / MARKER).read_text(encoding="utf-8"))
     assert listed["written_by"] == "traywise"
-    assert set(listed["files"]) == {"results.json", "stages.csv", "report.md"}
+    assert set(listed["files"]) == {"results.json", "stages.csv", "report.md", "report.html"}
     assert sorted(json.loads((results / "results.json").read_text())["files"]) == sorted(p.name for p in results.iterdir())
 
 

@@ -15,7 +15,7 @@ from traywise.sizing.packed import (
 )
 from traywise.sizing.packing_data import Packing, find_packing
 
-from support.sizing_cases import demo_stage_properties
+from support.sizing_cases import demo_stage_properties, given_loads
 
 # The packing of Stichlmair, Bravo & Fair's worked example (Gas Sep. Purif. 3 (1989) 19):
 # a = 260 m2/m3, voidage 0.68, C1..C3 = 32, 7, 1, as reproduced in fluids' documentation.
@@ -47,6 +47,25 @@ def test_robbins_example_through_the_wrapper():
     assert 2.0 * per_height == pytest.approx(619.6624593438102, rel=1e-9)
 
 
+def test_stichlmair_worked_example_through_the_column_rating():
+    # The worked example of Stichlmair, Bravo & Fair, Gas Sep. Purif. 3 (1989) 19 (as reproduced in
+    # the documentation of fluids.packed_tower, which states that it matches the paper): packing
+    # a = 260 m2/m3, voidage 0.68, C = 32, 7, 1; liquid 5 mm/s at 1200 kg/m3; gas 5 kg/m3,
+    # 5e-5 Pa s. Paper: flooding gas velocity 0.6394 m/s; irrigated pressure drop 539.9 Pa/m at
+    # 0.4 m/s. A column of 1 m2 carrying those loads, rated by traywise, must give both within 10 %.
+    diameter = float(np.sqrt(4.0 / np.pi))
+    loads = given_loads([0.4 * 5.0], [5e-3 * 1200.0], gas_density=[5.0], liquid_density=[1200.0], gas_viscosity=[5e-5],
+                        liquid_viscosity=[1e-3])
+    rating = rate_packing(loads, PackedInternals("ceramic berl saddles 25 mm", hetp=0.5), diameter)
+    assert rating.flooding_velocity[0] == pytest.approx(0.6394, rel=0.10)
+    assert rating.pressure_drop_per_height[0] == pytest.approx(539.9, rel=0.10)
+    assert rating.fraction_of_flood[0] == pytest.approx(0.4 / 0.6394, rel=0.10)
+    # and the design at 62.56 % of flood (0.4/0.6394) returns that 1 m2 column
+    designed, _ = design_diameter(loads, PackedInternals("ceramic berl saddles 25 mm", hetp=0.5,
+                                                         fraction_of_flood=0.4 / 0.6394323542746928))
+    assert designed == pytest.approx(diameter, rel=1e-6)
+
+
 @pytest.fixture
 def stages():
     return demo_stage_properties()
@@ -59,17 +78,24 @@ def test_more_gas_never_gives_a_smaller_packed_diameter(stages):
         assert design_diameter(stages.scaled(gas=factor), internals)[0] >= base
 
 
+def test_more_gas_never_gives_a_smaller_packed_diameter_over_a_sweep(stages):
+    internals = PackedInternals("ceramic berl saddles 25 mm", hetp=0.5)
+    found = [design_diameter(stages.scaled(gas=g), internals)[0] for g in np.geomspace(0.3, 10.0, 25)]
+    assert np.all(np.diff(found) > 0.0)
+
+
 def test_a_larger_fraction_of_flood_gives_a_smaller_packed_diameter(stages):
     found = [design_diameter(stages, PackedInternals("ceramic raschig rings 25 mm", fraction_of_flood=f))[0]
              for f in (0.5, 0.6, 0.7, 0.8)]
     assert all(b < a for a, b in zip(found, found[1:]))
 
 
-def test_rating_at_the_packed_design_returns_the_design_fraction(stages):
-    internals = PackedInternals("ceramic berl saddles 25 mm", fraction_of_flood=0.65)
+@pytest.mark.parametrize("fraction", [0.4, 0.65, 0.9])
+def test_rating_at_the_packed_design_returns_the_design_fraction(stages, fraction):
+    internals = PackedInternals("ceramic berl saddles 25 mm", fraction_of_flood=fraction)
     diameter, stage = design_diameter(stages, internals)
     rating = rate_packing(stages, internals, diameter)
-    assert rating.fraction_of_flood.max() == pytest.approx(0.65, abs=1e-6)
+    assert rating.fraction_of_flood.max() == pytest.approx(fraction, abs=1e-6)
     assert int(np.argmax(rating.fraction_of_flood)) + 1 == stage
     # Onda's wetted area lies between 0 and the packing's area, and the HETP is that of H_OG
     assert np.all((rating.wetted_area > 0.0) & (rating.wetted_area < EXAMPLE.specific_area))
@@ -98,3 +124,12 @@ def test_wetted_area_grows_with_the_liquid_rate():
 def test_bad_packing_input_names_the_quantity(kwargs, key):
     with pytest.raises(SizingInputError, match=key):
         PackedInternals(**kwargs)
+
+
+def test_secant_root_and_its_bracketed_fallback_agree(stages):
+    from traywise.sizing.packed import _bracketed_root, _stage_root
+
+    internals = PackedInternals("ceramic raschig rings 25 mm", hetp=0.5)
+    for j in (0, stages.temperature.size - 1):
+        for start in (0.05, 0.3, 3.0):  # from well inside flood to far below it
+            assert _stage_root(stages, internals, j, start) == pytest.approx(_bracketed_root(stages, internals, j, 0.3), rel=1e-9)

@@ -71,3 +71,19 @@ def test_wilke_chang_against_measured_co2_in_water(t):
     viscosity = WATER.liquid_viscosity(t)
     found = wilke_chang_liquid_diffusivity(t, viscosity, 2.6 * 0.018015, co2.boiling_molar_volume)
     assert found == pytest.approx(measured, rel=0.10)
+
+
+def test_wilke_mixing_over_stages_matches_chemicals():
+    # chemicals.Wilke (ChEDL) implements Wilke (1950) per mixture; ours evaluates all stages at once.
+    from chemicals import Wilke
+
+    from traywise.sizing.stage_loads import wilke_viscosity
+
+    rng = np.random.default_rng(7)
+    y = rng.random((5, 4))
+    y /= y.sum(axis=1, keepdims=True)
+    mu = rng.uniform(8e-6, 2.5e-5, (5, 4))
+    masses = np.array([18.015, 28.014, 44.01, 17.031])
+    found = wilke_viscosity(y, mu, masses)
+    expected = [Wilke(list(y[j]), list(mu[j]), list(masses)) for j in range(5)]
+    assert found == pytest.approx(expected, rel=1e-12)

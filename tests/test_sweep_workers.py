@@ -71,3 +71,39 @@ def test_workers_end_when_the_parent_is_killed():
         for worker in workers:
             if _alive(worker):
                 os.kill(worker, signal.SIGKILL)
+
+
+WARNING_SWEEP = """
+import warnings
+import numpy as np
+from traywise.column import Column, Feed
+from traywise.design.sweep import sweep
+from traywise.properties.library import find_component
+from traywise.properties.model import PropertyModel
+
+
+class WarningModel(PropertyModel):
+    def evaluate(self, *args, **kwargs):
+        warnings.warn("words of a library", RuntimeWarning)
+        return super().evaluate(*args, **kwargs)
+
+
+model = WarningModel([find_component(n) for n in ("water", "ammonia", "nitrogen")])
+column = Column(5, Feed(1, "liquid", np.array([2.0, 0.0, 0.0]), 298.15),
+                Feed(5, "vapour", np.array([0.01, 0.15, 0.84]), 313.15), 1.5e5)
+with warnings.catch_warnings(record=True) as caught:
+    warnings.simplefilter("default")
+    table = sweep(column, model, variable="solvent_flow", values=np.linspace(1.0, 5.0, 4),
+                  outputs=["max_temperature"], processes=2)
+print(int(table.converged.sum()), sum("words of a library" in str(w.message) for w in caught))
+"""
+
+
+def test_warnings_of_the_workers_reach_the_parent_not_the_terminal():
+    """A worker's warning is issued again in the parent (where the command line translates
+    it) and never written to the terminal by the worker."""
+    done = subprocess.run([sys.executable, "-c", WARNING_SWEEP], capture_output=True, text=True, timeout=120)
+    assert done.returncode == 0, done.stderr
+    converged, recorded = map(int, done.stdout.split())
+    assert converged == 4 and recorded >= 2  # one at least from each worker's chunk
+    assert "words of a library" not in done.stderr

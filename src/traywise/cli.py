@@ -15,7 +15,9 @@ its target); `sweep` solves the column as written at every point.
 Exit status: 0 success; 1 the results could not be written (file system); 2 bad input (case
 file, missing file, unknown component, a folder that may not be replaced); 3 the stage
 equations did not converge, a design target cannot be reached, or no point of a sweep
-converged (a sweep with some failed points exits 0, warns and marks them). Every failure
+converged (a sweep with some failed points exits 0, warns and marks them); 4 a design whose
+removal target or temperature limit is not met by the solved column (the results are written
+and printed all the same, marked NOT MET or BROKEN). Every failure
 prints one line on stderr, ``traywise: error: ...``, and never a traceback for these causes; a
 program fault still shows its traceback.
 
@@ -35,6 +37,7 @@ os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")
 EXIT_OUTPUT = 1
 EXIT_INPUT = 2
 EXIT_CONVERGENCE = 3
+EXIT_NOT_MET = 4
 
 
 class _Command(click.Command):
@@ -65,7 +68,7 @@ class _Command(click.Command):
         except (CaseError, ComponentDataError, PinchError, PropertyRangeError) as error:
             _fail(ctx, str(error), EXIT_INPUT)
         except ConvergenceError as error:
-            _fail(ctx, str(error), EXIT_CONVERGENCE)
+            _fail(ctx, _no_result(error), EXIT_CONVERGENCE)
         except TargetNotReached as error:
             _fail(ctx, f"design target not reached: {error}", EXIT_CONVERGENCE)
         except OSError as error:
@@ -75,6 +78,16 @@ class _Command(click.Command):
 class _Group(click.Group):
     command_class = _Command
     group_class = type  # subgroups are _Group too
+
+
+def _no_result(error):
+    """What happened when the stage equations gave no result: they did not converge, or they
+    converged to a state that cannot exist (``UnphysicalSolution``)."""
+    from .errors import UnphysicalSolution
+
+    if isinstance(error, UnphysicalSolution):
+        return f"the converged column is physically impossible, so no result is given: {error}"
+    return f"no converged solution: {error}"
 
 
 def _fail(ctx, message, status):
@@ -100,6 +113,10 @@ def main():
     and licensed engineering practice take precedence. Absorber gases can be toxic,
     corrosive or flammable; heat of absorption raises temperatures; columns may run under
     pressure.
+
+    Exit status: 0 success; 1 the results could not be written; 2 bad input; 3 no converged
+    solution, or a design target that cannot be reached; 4 a design whose removal target or
+    temperature limit the solved column does not meet (its results are written all the same).
     """
 
 
@@ -133,14 +150,10 @@ def _load(ctx, case_file, quiet, verbose, *, target=None):
 def _run(ctx, case_file, quiet, verbose, *, target=None, plots=False):
     """Load and run a case (designed first when it has a [design] table): its CaseRun; the x-y
     diagram's design only when ``plots`` are drawn."""
-    from .errors import ConvergenceError
     from .run import RunSettings, run_case
 
     case = _load(ctx, case_file, quiet, verbose, target=target)
-    try:
-        return run_case(case, RunSettings(xy_diagram=plots and case.plots))
-    except ConvergenceError as error:
-        _fail(ctx, f"no converged solution: {error}", EXIT_CONVERGENCE)
+    return run_case(case, RunSettings(xy_diagram=plots and case.plots))  # errors: _Command tells them
 
 
 def _echo_warnings(record):
@@ -172,6 +185,20 @@ def run(ctx, case_file, out_dir, as_json, no_plots, quiet, verbose):
         click.echo(summary_text(record, verbose=verbose, folder=target))
     if as_json or quiet:
         _echo_warnings(record)
+    _exit_if_not_met(ctx, case_run, target)
+
+
+def _exit_if_not_met(ctx, case_run, folder=None):
+    """Exit with status 4 when the run's design misses its removal target or breaks its
+    temperature limit (after its results were written and printed)."""
+    design = case_run.design
+    if design is None:
+        return
+    missed = [what for what, met in (("its removal target", design.target_met),
+                                       ("its temperature limit", design.limit_held)) if met is False]
+    if missed:
+        where = f"; results in {folder}" if folder is not None else ""
+        _fail(ctx, f"the design does not meet {' and '.join(missed)} (see the warnings{where})", EXIT_NOT_MET)
 
 
 @main.command()
@@ -192,10 +219,12 @@ def compare(ctx, case_file, as_json, quiet, verbose):
     if as_json:
         click.echo(results_json(record), nl=False)
         _echo_warnings(record)
+        _exit_if_not_met(ctx, case_run)
         return
     if quiet:
         click.echo(verdict_line(record["isothermal_comparison"]) + ".")
         _echo_warnings(record)
+        _exit_if_not_met(ctx, case_run)
         return
     from .report.sections import key_line, stage_profile_table, temperature_line
     from .report.tables import text_table
@@ -208,6 +237,7 @@ def compare(ctx, case_file, as_json, quiet, verbose):
         parts += [text_table(*stage_profile_table(record)), sources_text(record)]
     parts.append(warnings_text(record))
     click.echo("\n\n".join(parts))
+    _exit_if_not_met(ctx, case_run)
 
 
 LONG_SWEEP = 10  # points from which a sweep shows a progress bar
@@ -249,15 +279,19 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
     case = _load(ctx, case_file, quiet, False, target=target)
     from .case.sweep import sweep_request
     from .report.sweep_view import write_sweep, sweep_text
-    from .run import sweep_case
+    from .run import designed_for_sweep, sweep_case, sweep_feed_warnings
 
+    case, designed = _designed_for_sweep(case, designed_for_sweep)
     request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
                             cooler_stage=cooler_stage)
+    from dataclasses import replace
+
+    case = replace(case, warnings=(*case.warnings, *sweep_feed_warnings(case, request)))
     total = len(request.values)
     with _progress(quiet or total < LONG_SWEEP or not sys.stderr.isatty(), total) as bar:
         table = sweep_case(case, request, processes=processes,
                            progress=None if bar is None else (lambda done, _total: bar.update(done - bar.pos)))
-    record = write_sweep(target, case, request, table, plots=case.plots and not no_plots)
+    record = write_sweep(target, case, request, table, plots=case.plots and not no_plots, designed=designed)
     if record["failed_points"] == total:
         _fail(ctx, f"no point of the sweep converged (see {target / 'sweep.csv'}); the first failed with: "
               f"{table.messages[0]}", EXIT_CONVERGENCE)
@@ -265,6 +299,21 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
         _echo_warnings(record)
     else:
         click.echo(sweep_text(record, folder=target))
+
+def _designed_for_sweep(case, designed_for_sweep):
+    """The case to sweep around its designed column, or as written (with a warning saying why)
+    when its design cannot be carried out."""
+    from dataclasses import replace
+
+    from .errors import TraywiseError
+
+    try:
+        return designed_for_sweep(case)
+    except TraywiseError as error:
+        note = (f"the case's [design] could not be carried out ({error}); every point solves the column as written, "
+                "at the first-guess values")
+        return replace(case, warnings=(*case.warnings, note)), None
+
 
 @main.command()
 @_case_argument

@@ -52,6 +52,10 @@ class CaseRun:
                                        an ``[internals]`` table
     xy_design : InertBasisDesign or None   Drawn on the x-y diagram (the classic design of
                                            ``case.xy_solute``)
+    solvent_balance : SolventBalance or None   The solvent evaporated, condensed and the make-up
+                                               it needs (``traywise.mesh.phase_transfer``)
+    liquid_volume_flows : dict or None   'solvent_in' and 'liquid_out' -> volume flow [m3/s] or
+                                         None (``traywise.properties.liquid_volume``)
     notes : tuple of str          Why a side result is missing; library warnings in our words
     """
 
@@ -63,6 +67,8 @@ class CaseRun:
     xy_design: object = None
     notes: tuple = ()
     sizing: object = None
+    solvent_balance: object = None
+    liquid_volume_flows: dict | None = None
 
     @property
     def warnings(self):
@@ -124,8 +130,73 @@ def complete_run(case, solution, *, design=None, settings=RunSettings()):
                 other = _side(f"the x-y diagram's design of {case.xy_solute}", notes,
                               lambda: _comparison(case, solution, case.xy_solute))
                 xy = None if other is None else other.isothermal_design
+        balance = _side("the solvent balance", notes, lambda: _solvent_balance(case, solution))
+        volumes = _side("the liquid volume flows", notes, lambda: _liquid_volumes(case, solution))
     notes.extend(note for note in library_warnings(caught) if note not in notes)
-    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing)
+    notes.extend(_feed_pressure_notes(case, solution.column))
+    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing, balance, volumes)
+
+
+def _feed_pressure_notes(case, column):
+    """The feed-pressure check of a plain run, made on the column solved when a design or the
+    sized pressure drop changed its stage pressures (the case's warnings hold the check of the
+    column as written)."""
+    if getattr(case, "echo", None) is None or column == case.column:
+        return []
+    from .case.feed_pressure import column_warnings, feed_pressures
+
+    return [f"{warning} (the {'designed' if column.n_stages != case.column.n_stages else 'solved'} column)"
+            for warning in column_warnings(feed_pressures(case), column) if warning not in case.warnings]
+
+
+def sweep_feed_warnings(case, request):
+    """The feed-pressure check of a plain run made on the column of every point of ``request``:
+    one warning per feed that is below its stage's pressure somewhere in the sweep."""
+    from .case.feed_pressure import sweep_warnings
+    from .design.variables import with_value
+    from .errors import TraywiseError
+
+    if request.design_variable not in ("n_stages", "top_pressure"):
+        return []  # the stage pressures are those of the case, which its own warnings check
+    columns = []
+    for value in request.values:
+        try:
+            columns.append(with_value(case.column, request.design_variable, value, stage=request.cooler_stage))
+        except TraywiseError:  # the sweep marks that point as failed
+            columns.append(None)
+    return sweep_warnings(case, columns)
+
+
+# the design's solve_for -> the sweep's word for the same input
+_SWEPT_AS = {"solvent_flow": "solvent_flow", "n_stages": "stages", "cooler_duty": "cooler_duty"}
+
+
+def designed_for_sweep(case, settings=RunSettings()):
+    """(case, designed value) to sweep around: with a ``[design]`` table, the case with the designed
+    column in place of the column as written (the other inputs of every point at their designed
+    values) and {"input": sweep word, "value": SI value, "stage": cooler stage or None} of the
+    input solved for; without one, (case, None). The minimum solvent flow and O'Connell's trays
+    are not computed for a sweep.
+
+    Raises TargetNotReached or ConvergenceError as ``run_case`` does.
+    """
+    if case.design is None:
+        return case, None
+    from dataclasses import replace
+
+    from .design.plan import carry_out_design
+
+    plain = replace(case.design, minimum_solvent=False, oconnell_efficiency=False)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")  # the run of the case itself reports them
+        outcome = carry_out_design(case.column, case.model, plain, overall_efficiency=case.overall_efficiency,
+                                   settings=_solver_settings(settings))
+    column = outcome.result.solution.column
+    values = {"solvent_flow": column.solvent.flow, "n_stages": float(column.n_stages),
+              "cooler_duty": None if outcome.cooler_stage is None else float(column.heat_removed[outcome.cooler_stage - 1])}
+    designed = {"input": _SWEPT_AS[case.design.solve_for], "value": values[case.design.solve_for],
+                "stage": outcome.cooler_stage}
+    return replace(case, column=column), designed
 
 
 def sweep_case(case, request, *, processes=1, progress=None, settings=RunSettings()):
@@ -186,6 +257,20 @@ def _size(case, solution):
         raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
 
 
+def _solvent_balance(case, solution):
+    from .mesh.phase_transfer import solvent_balance
+
+    return solvent_balance(solution, case.model.names.index(case.solvent))
+
+
+def _liquid_volumes(case, solution):
+    from .properties.liquid_volume import liquid_volume_flow
+
+    components, solvent = case.model.components, solution.column.solvent
+    return {"solvent_in": liquid_volume_flow(components, solvent.component_flows, solvent.temperature),
+            "liquid_out": liquid_volume_flow(components, solution.liquid_out, solution.liquid_out_temperature)}
+
+
 def _comparison(case, solution, key):
     from .inert_basis.comparison import compare
 
@@ -202,6 +287,7 @@ def _kremser(case, solution, comparison):
         solvent_flows=column.solvent.component_flows, temperature=comparison.temperature,
         pressure=comparison.pressure, n_stages=comparison.rigorous_stages,
         key_fraction_absorbed=float(solution.fraction_absorbed[case.model.names.index(key)]),
+        solvent_index=case.model.names.index(case.solvent),
     )
 
 

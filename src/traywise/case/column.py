@@ -79,6 +79,12 @@ def read_column(top, components):
     n = check_range(section, "stages", "stages", section.integer("stages", minimum=1))
     murphree = _per_stage(section, "murphree_efficiency", n, 1.0, _efficiency)
     overall = section.fraction("overall_efficiency", None)
+    if overall is not None:
+        check_range(section, "overall_efficiency", "efficiency", overall)
+    if overall is not None and "murphree_efficiency" in section:
+        section.fail("overall_efficiency", "given together with column.murphree_efficiency: give one of the two (the "
+                     "Murphree efficiency of each tray, stages counting actual trays; or the overall efficiency, "
+                     "stages counting theoretical stages and trays = stages / overall_efficiency), not both")
     top_pressure = section.quantity("top_pressure", "pressure")
     if not top_pressure > 0.0:
         section.fail("top_pressure", f"found {section.data['top_pressure']!r}; expected a positive absolute pressure")
@@ -133,7 +139,7 @@ def _stage(section, n):
 
 
 def _efficiency(section, key, value):
-    return section.fraction(key, value=value)
+    return check_range(section, key, "efficiency", section.fraction(key, value=value), found=value)
 
 
 def _temperature(section, key, value):

@@ -3,10 +3,12 @@ input solved for to meet it, and the extra figures asked for (minimum solvent fl
 tray efficiency). Read into a ``DesignInput`` whose fields are those the design layer takes
 (``traywise.design.plan``); the design itself is run by the command line."""
 
+import re
 from dataclasses import dataclass
 
+from ..design.variables import stage_bound
 from .limits import check_range
-from .units import composition_basis_of, split_number
+from .units import UnitProblem, composition_basis_of, split_number, to_si
 
 DESIGN_KEYS = (
     "outlet_mole_fraction",
@@ -23,6 +25,7 @@ SOLVABLE = {"solvent_flow": "solvent_flow", "stages": "n_stages", "cooler_duty":
 # case key -> place of traywise.design.targets.TemperatureLimit
 LIMITS = {"liquid_out_temperature_limit": "liquid_outlet", "column_temperature_limit": "column_maximum"}
 PER_MILLION_UNITS = ("ppmv", "ppm")  # an outlet written in these is reported in ppmv
+REFERENCE_VOLUMES = ("Nm3", "Nm³", "Sm3", "Sm³", "scf")  # gas volumes at reference conditions (units.py)
 
 
 @dataclass(frozen=True)
@@ -65,13 +68,14 @@ class DesignInput:
         }
 
 
-def read_design(top, *, model, column_input, key, gas_flows, solvent):
+def read_design(top, *, model, column, column_input, key, gas_flows, solvent):
     """The ``[design]`` table of the top-level Section as a DesignInput, or None when absent.
 
     Parameters
     ----------
     top : Section                 The case file's top level
     model : PropertyModel
+    column : Column               The column built from the case
     column_input : ColumnInput    The ``[column]`` table as read
     key : int                     Index of the key component
     gas_flows : ndarray (c,)      Component flows of the gas feed [mol/s]
@@ -81,7 +85,8 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
     if section is None:
         return None
     solve_for = SOLVABLE[section.text("solve_for", choices=tuple(SOLVABLE))]
-    quantity, value = _removal_target(section, model.names[key], gas_flows[key] / gas_flows.sum())
+    quantity, value = _removal_target(section, model.names[key], gas_flows[key] / gas_flows.sum(),
+                                      float(model.molar_mass[key]))
     limits = [name for name in LIMITS if name in section]
     if len(limits) > 1:
         section.fail(limits[1], f"give one temperature limit, not both {' and '.join(limits)}")
@@ -99,7 +104,7 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
     if solve_for == "cooler_duty" and limit_place is None:
         section.fail("solve_for", "solving for 'cooler_duty' needs a temperature limit to hold: add "
                      "liquid_out_temperature_limit or column_temperature_limit (e.g. \"40 degC\")")
-    fixed = _fixed_in_place(column_input)
+    fixed = _fixed_in_place(column, column_input)
     if solve_for == "n_stages" and fixed:
         section.fail("solve_for", f"'stages' changes the stage count, which leaves {' and '.join(fixed)} without a fixed "
                      "place; remove them or solve for 'solvent_flow' instead")
@@ -108,6 +113,11 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
         section.fail("oconnell_efficiency", f"trays are found by changing the stage count, which leaves {what} without "
                      "a fixed place; remove oconnell_efficiency (the column table's overall_efficiency still gives "
                      "the trays of the designed column)")
+    unfit = _fixed_in_place(column, column_input, longer_only=True)
+    if minimum and unfit:
+        section.fail("minimum_solvent", f"the minimum solvent flow is found on columns with many more stages, which "
+                     f"leave {' and '.join(unfit)} without a fixed place; give one value for every stage or remove "
+                     "minimum_solvent")
     if oconnell and not model.components[solvent].is_water:
         section.fail("oconnell_efficiency", f"O'Connell's correlation needs the liquid's viscosity and density, which "
                      f"traywise has for water only (the solvent is {model.names[solvent]}); give "
@@ -125,9 +135,12 @@ def read_design(top, *, model, column_input, key, gas_flows, solvent):
     )
 
 
-def _removal_target(section, key_name, inlet):
+def _removal_target(section, key_name, inlet, molar_mass):
     """(quantity, value) of the removal target, or (None, None); ``inlet`` is the key's mole
-    fraction in the gas feed [-]."""
+    fraction in the gas feed [-], ``molar_mass`` the key's [kg/mol]. A mass concentration at
+    reference conditions ("20 mg/Nm3": Nm3 at 0 degC and 101.325 kPa, common practice for emission
+    limits in Europe; also Sm3, scf) is per volume of the gas as it leaves (water vapour
+    included) and becomes ppmv: y = (mass of solute per mole of gas) / M."""
     given = [name for name in ("outlet_mole_fraction", "fraction_absorbed") if name in section]
     if len(given) > 1:
         section.fail(given[1], "give one removal target, not both outlet_mole_fraction and fraction_absorbed")
@@ -136,16 +149,43 @@ def _removal_target(section, key_name, inlet):
     if given[0] == "fraction_absorbed":
         return "fraction_absorbed", section.fraction("fraction_absorbed", open_high=True)
     raw = section.data["outlet_mole_fraction"]
+    concentration = _reference_concentration(section, raw)
+    if concentration is not None:
+        fraction = concentration / molar_mass
+        if not 0.0 < fraction < inlet:
+            section.fail("outlet_mole_fraction", f"found {raw!r} = {1e6 * fraction:.6g} ppmv of {key_name}; expected a "
+                         f"value above 0 and below the gas fed ({1e6 * inlet:.6g} ppmv)")
+        return "outlet_ppmv", 1e6 * fraction
     fraction = section.fraction("outlet_mole_fraction", open_high=True)
     if isinstance(raw, str) and composition_basis_of(raw) == "mass":
         section.fail("outlet_mole_fraction", f"found '{raw}', a mass fraction; give a mole fraction such as "
-                     "\"20 ppmv\", \"0.05 mol%\" or 2e-5")
+                     "\"20 ppmv\", \"0.05 mol%\" or 2e-5, or a mass concentration at reference conditions such "
+                     "as \"15 mg/Nm3\"")
     if fraction >= inlet:
         section.fail("outlet_mole_fraction", f"found {raw!r} = {fraction:.6g}, not below the {key_name} mole fraction "
                      f"of the gas fed ({inlet:.6g}): there is nothing to absorb")
     if isinstance(raw, str) and split_number(raw)[1] in PER_MILLION_UNITS:
         return "outlet_ppmv", split_number(raw)[0]  # the number as written: "30 ppmv" is 30, not 29.999999999999996
     return "outlet_mole_fraction", fraction
+
+
+def _reference_concentration(section, raw):
+    """Solute mass per mole of gas [kg/mol] of a target written as mass per reference gas volume
+    ("20 mg/Nm3"), or None for any other target."""
+    if not isinstance(raw, str):
+        return None
+    if not any(volume in raw for volume in REFERENCE_VOLUMES):
+        if re.search(r"g\s*/\s*(m3|m³|m\*\*3|L)\b", raw):
+            section.fail("outlet_mole_fraction", f"found '{raw}', a mass per volume at the actual temperature and "
+                         "pressure, which traywise does not guess; give it at reference conditions (\"15 mg/Nm3\": "
+                         "0 degC and 101.325 kPa) or as a mole fraction (\"20 ppmv\")")
+        return None
+    try:
+        value, _ = to_si(raw, ("molar_mass",))
+    except UnitProblem as problem:
+        section.fail("outlet_mole_fraction", f"{problem}; a concentration at reference conditions is a mass per "
+                     "reference volume, such as \"20 mg/Nm3\"")
+    return value
 
 
 def _cooler_stage(section, solve_for, column_input):
@@ -162,16 +202,15 @@ def _cooler_stage(section, solve_for, column_input):
     return stage
 
 
-def _fixed_in_place(column_input):
-    """What in the column has a place that a different stage count leaves undefined."""
-    c = column_input
-    fixed = [
-        (bool(c.coolers), "[[column.cooler]] tables"),
-        (c.heat_loss > 0.0, "column.heat_loss"),
-        (bool(c.side_feeds), "[[column.side_feed]] tables"),
-        (bool(c.side_draws), "[[column.side_draw]] tables"),
-        (len(set(c.murphree.tolist())) > 1, "a column.murphree_efficiency that differs from stage to stage"),
-        (c.temperature is not None and len(set(c.temperature.tolist())) > 1,
-         "a column.isothermal_temperature that differs from stage to stage"),
-    ]
-    return [what for present, what in fixed if present]
+def _fixed_in_place(column, column_input, *, longer_only=False):
+    """The case keys of what a different stage count (``longer_only``: a larger one) leaves
+    without a place in ``column`` (the rule is the design layer's ``stage_bound``)."""
+    keys = {
+        "extra_feeds": ["[[column.side_feed]] tables"],
+        "side_draws": ["[[column.side_draw]] tables"],
+        "murphree": ["a column.murphree_efficiency that differs from stage to stage"],
+        "temperature": ["a column.isothermal_temperature that differs from stage to stage"],
+        "heat_removed": [what for present, what in ((bool(column_input.coolers), "[[column.cooler]] tables"),
+                                                    (column_input.heat_loss > 0.0, "column.heat_loss")) if present],
+    }
+    return [what for name in stage_bound(column, longer_only=longer_only) for what in keys[name]]

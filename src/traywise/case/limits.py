@@ -51,6 +51,9 @@ RANGES = {
                        "to far beyond the largest absorbers)"),
     "power": Range(0.0, 1e9, "MW", 1e6,
                    "a cooler or heat loss of up to 1000 MW, beyond any absorber"),
+    "efficiency": Range(0.01, 1.0, "as a fraction", 1.0,
+                        "a tray or stage of less than 1 % efficiency transfers nothing a design can count on, "
+                        "and its tray count stages / efficiency would pass any column's"),
     "points": Range(2, 10_000, "", 1.0, "a sweep of more points than this is better split into several"),
 }
 

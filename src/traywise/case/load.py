@@ -17,11 +17,14 @@ from ..errors import CaseError, InputError
 from .column import read_column
 from .components import read_components
 from .design import read_design
+from .feed_pressure import column_warnings
 from .feeds import STREAM_KEYS, read_stream
 from .gas_model import read_gas_model
 from .internals import read_internals
 from .quantities import case_error
 from .reader import Section, where
+from .report_units import display_units
+from .solvent_state import check_isothermal_stages, check_solvent_feed
 from .sweep import SWEEP_KEYS, check_sweep_table
 from .uncertainty import read_uncertainty
 
@@ -44,7 +47,7 @@ TOP_KEYS = (
     "internals",
     "uncertainty",
 )
-REPORT_KEYS = ("plots", "xy_solute")
+REPORT_KEYS = ("plots", "xy_solute", "units")
 LONGEST_INTEGER = 4301  # digits: Python refuses to turn a longer text into an int (sys.get_int_max_str_digits)
 LIQUID_KINDS = ("raoult", "nonvolatile", "eos")  # equilibrium models of components that can be the solvent
 SOLUBLE_KINDS = ("henry", "raoult", "activity", "table", "eos")  # models with a finite, non-zero K: candidates for the key
@@ -73,6 +76,7 @@ class Case:
     source : str                    The case's name in error messages (usually the file name)
     uncertainty : UncertaintyRequest or None   The ``[uncertainty]`` table (case/uncertainty.py)
     data : dict or None             The tables as read, for ``with_changes`` (case/changes.py)
+    display_units : dict or None    The units reports show (case/report_units.py)
     """
 
     path: Path | None
@@ -95,6 +99,7 @@ class Case:
     internals: object = None
     uncertainty: object = None
     data: dict | None = None
+    display_units: dict | None = None
 
     def with_changes(self, **changes):
         """This case with inputs changed, values as written in a case file ("2000 kg/h"); see
@@ -153,7 +158,7 @@ def build_case(data, where_from="<case>", *, path=None):
     """Check the tables of a case (a dict laid out as the case file, values as written there)."""
     case = _CaseBuilder(Section(data, "", where_from, TOP_KEYS), path).build()
     check_sweep_table(case)
-    return replace(case, data=copy.deepcopy(data))
+    return replace(case, data=copy.deepcopy(data), display_units=display_units(data, where_from))
 
 
 class _CaseBuilder:
@@ -184,11 +189,12 @@ class _CaseBuilder:
             liquid.section.fail("composition", f"carries no {model.names[solvent]} (the solvent)")
         if not flows["gas_feed"][key] > 0.0:
             top.fail("key_component", f"'{model.names[key]}' is not in the gas feed")
-        self._check_solvent_feed(liquid, solvent, column_input.top_pressure)
+        check_solvent_feed(liquid.section, model, solvent, column_input.top_pressure, liquid.temperature)
         side_flows = [stream.component_flows(model.molar_mass, solute_mask) for _, _, stream in column_input.side_feeds]
         for (_, _, stream), side_flow in zip(column_input.side_feeds, side_flows):
             stream.check_total(side_flow)
         column = self._column(column_input, gas, liquid, flows, side_flows)
+        check_isothermal_stages(top.table("column"), model, solvent, column, liquid.temperature)
         gas_model, gas_warnings = read_gas_model(top, model, flows["gas_feed"], column.pressures, gas.temperature)
         self.warnings.extend(gas_warnings)
         self._pressure_warnings(gas, liquid, column)
@@ -196,7 +202,7 @@ class _CaseBuilder:
         report = top.table("report", REPORT_KEYS) or Section({}, "report", top.file)
         plots = report.boolean("plots", True)
         xy_solute = self._xy_solute(report, key, solvent)
-        design = read_design(top, model=model, column_input=column_input, key=key, gas_flows=flows["gas_feed"],
+        design = read_design(top, model=model, column=column, column_input=column_input, key=key, gas_flows=flows["gas_feed"],
                              solvent=solvent)
         sweep = top.table("sweep", SWEEP_KEYS)
         internals = read_internals(top)
@@ -313,23 +319,6 @@ class _CaseBuilder:
         return i
 
     # -- checks ---------------------------------------------------------------------------------
-    def _check_solvent_feed(self, liquid, solvent, top_pressure):
-        """The solvent must enter liquid: above its melting point, below its boiling point at
-        the top pressure (vapour pressure < top pressure)."""
-        model, section = self.components.model, liquid.section
-        component = model.components[solvent]
-        t = liquid.temperature
-        shown = f"{section.data['temperature']!r} = {t:.2f} K"
-        if component.melting_point is not None and t < component.melting_point.value:
-            section.fail("temperature", f"found {shown}, below the melting point of {component.name} "
-                         f"({component.melting_point.value:.2f} K): the solvent would be frozen")
-        if model.equilibrium[solvent] == "raoult":
-            k = model.evaluate(np.array([t]), np.array([top_pressure])).k[0, solvent]
-            if k >= 1.0:
-                section.fail("temperature", f"found {shown}, at which the vapour pressure of {component.name} "
-                             f"({k * top_pressure / 1e3:.4g} kPa) exceeds the top pressure ({top_pressure / 1e3:.4g} kPa): "
-                             "the solvent would boil; feed it colder or raise column.top_pressure")
-
     def _column(self, column_input, gas, liquid, flows, side_flows):
         c = column_input
         extra = tuple(Feed(stage, phase, f, stream.temperature) for (stage, phase, stream), f in zip(c.side_feeds, side_flows))
@@ -351,13 +340,7 @@ class _CaseBuilder:
             raise case_error(exc, self.top.file, "column") from None
 
     def _pressure_warnings(self, gas, liquid, column):
-        pressures = column.pressures
-        for name, stream, stage in (("gas_feed", gas, column.n_stages), ("solvent_feed", liquid, 1)):
-            if stream.pressure is not None and stream.pressure < pressures[stage - 1]:
-                self.warnings.append(
-                    f"{name}.pressure ({stream.pressure / 1e3:.4g} kPa) is below the pressure of stage {stage} "
-                    f"({pressures[stage - 1] / 1e3:.4g} kPa), which it enters: it needs a blower or pump"
-                )
+        self.warnings.extend(column_warnings({"gas_feed": gas.pressure, "solvent_feed": liquid.pressure}, column))
 
     def _other_warnings(self, solvent, column_input, column):
         model, components = self.components.model, self.components

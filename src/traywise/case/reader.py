@@ -123,6 +123,8 @@ class Section:
         if isinstance(value, bool) or not isinstance(value, (str, int, float)):
             self.fail(key, f"found {_shown(value)}; expected {_examples(kinds)}")
         if not isinstance(value, str):
+            if isinstance(value, int) and abs(value) > 10**300:  # beyond any float: isfinite cannot take it
+                self.fail(key, f"found a whole number of {len(str(abs(value)))} digits; expected {_examples(kinds)}")
             if not math.isfinite(value):
                 self.fail(key, f"found {value!r}; expected a finite number")
             if "fraction" in kinds:

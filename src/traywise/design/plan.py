@@ -23,14 +23,13 @@ removal target is then checked and warned about). A target that cannot be met ra
 from contextlib import contextmanager
 from dataclasses import dataclass
 
-import numpy as np
-
 from ..errors import ConvergenceError, PinchError, TargetNotReached
 from ..mesh.newton import SolverSettings
 from .solve_for import cooler_duty_for_limit, solvent_for_target, stages_for_target
 from .minimum_solvent import minimum_solvent
 from .targets import SoluteTarget, TemperatureLimit
 from .trays import tray_design
+from .variables import STAGE_BOUND, stage_bound
 
 MINIMUM_SOLVENT_STAGES = 40  # first stage count standing for infinitely many (minimum_solvent's default)
 
@@ -121,7 +120,7 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
         routes.append(("the given overall efficiency", dict(overall_efficiency=overall_efficiency)))
     if target is not None and request.oconnell_efficiency:
         routes.append(("O'Connell's efficiency", {}))
-    fixed = _fixed_in_place(result.column)
+    fixed = " and ".join(STAGE_BOUND[name] for name in stage_bound(result.column))
     if routes and fixed:
         warnings.append(f"trays by efficiency route not found: they change the stage count, which leaves {fixed} "
                         "without a fixed place")
@@ -132,18 +131,6 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
         warnings.extend(f"trays by {label}: {w}" for w in trays[-1].warnings)
     stage = request.cooler_stage if request.solve_for == "cooler_duty" else None
     return DesignOutcome(result, stage, target, limit, target_met, limit_held, minimum, tuple(trays), tuple(warnings))
-
-
-def _fixed_in_place(column):
-    """What in ``column`` a different stage count leaves without a place ('' when nothing)."""
-    found = [
-        (np.any(column.heat_removed != 0.0), "heat removed on stages (coolers, heat loss)"),
-        (bool(column.extra_feeds), "side feeds"),
-        (bool(column.side_draws), "side draws"),
-        (np.ptp(column.murphree) > 0.0, "Murphree efficiencies differing from stage to stage"),
-        (column.temperature is not None and np.ptp(column.temperature) > 0.0, "stage temperatures differing"),
-    ]
-    return " and ".join(what for present, what in found if present)
 
 
 @contextmanager

@@ -4,9 +4,8 @@ Neighbouring points warm-start from each other when the stage count is unchanged
 ``processes`` > 1 the values are cut into contiguous chunks that run in worker processes
 (``concurrent.futures.ProcessPoolExecutor``), each chunk warm-starting within itself. A point
 whose solve fails keeps its row, marked not converged, with the reason and NaN outputs.
-Workers end with the process that started them, whatever ends it (even SIGKILL): on Linux the
-kernel signals them when their parent dies (prctl PR_SET_PDEATHSIG), elsewhere each polls its
-parent's process id.
+Workers end with the process that started them, whatever ends it (even SIGKILL), and their
+warnings are issued again in it (``traywise.workers``).
 
 Outputs (strings; ``key`` is a component name):
   fraction_absorbed:key      [-]       outlet_mole_fraction:key  [-]     outlet_ppmv:key  [ppmv]
@@ -18,10 +17,6 @@ Outputs (strings; ``key`` is a component name):
 
 import math
 import os
-import signal
-import sys
-import threading
-import time
 from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass
 
@@ -29,10 +24,9 @@ import numpy as np
 
 from ..errors import InputError, TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
+from ..workers import end_with_parent, issue_again, recording_warnings
 from .variables import UNITS, with_value
 
-PR_SET_PDEATHSIG = 1  # Linux prctl option: signal this process when its parent dies (prctl(2))
-PARENT_POLL = 0.5  # s; how often a worker without prctl checks that its parent is alive
 CHUNK_SIZE = 10  # most points per chunk in parallel sweeps: small enough for progress, large enough to warm-start
 
 _COMPONENT_OUTPUTS = {
@@ -142,8 +136,9 @@ def sweep(
         # A multiple of ``processes`` chunks of near-equal size keeps the workers evenly loaded.
         chunks = np.array_split(values, processes * math.ceil(total / (processes * CHUNK_SIZE)))
         results = []
-        with ProcessPoolExecutor(max_workers=processes, initializer=_end_with_parent, initargs=(os.getpid(),)) as pool:
-            for chunk_results in pool.map(_run, [job] * len(chunks), chunks):
+        with ProcessPoolExecutor(max_workers=processes, initializer=end_with_parent, initargs=(os.getpid(),)) as pool:
+            for chunk_results, caught in pool.map(_run_recorded, [job] * len(chunks), chunks):
+                issue_again(caught)
                 results.extend(chunk_results)
                 if progress:
                     progress(len(results), total)
@@ -159,25 +154,6 @@ def sweep(
         messages=tuple(r[2] for r in results),
         iterations=np.array([r[3] for r in results], dtype=int),
     )
-
-
-def _end_with_parent(parent):
-    """Worker initializer: make this process end when the process ``parent`` (its parent) does."""
-    if sys.platform.startswith("linux"):
-        import ctypes
-
-        libc = ctypes.CDLL(None, use_errno=True)
-        if libc.prctl(PR_SET_PDEATHSIG, signal.SIGKILL, 0, 0, 0) == 0:
-            if os.getppid() != parent:  # the parent died before prctl took effect
-                os._exit(1)
-            return
-
-    def watch():
-        while os.getppid() == parent:
-            time.sleep(PARENT_POLL)
-        os._exit(1)
-
-    threading.Thread(target=watch, daemon=True).start()
 
 
 def output_spec(name, model):
@@ -217,6 +193,11 @@ def _run(job, values, on_point=None):
         if on_point:
             on_point(len(results))
     return results
+
+
+def _run_recorded(job, values):
+    """``_run`` in a worker process: (its results, the warnings it raised)."""
+    return recording_warnings(_run, job, values)
 
 
 def _evaluate(spec, solution):

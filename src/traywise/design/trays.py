@@ -62,6 +62,28 @@ class TrayDesign:
     def rigorous_trays(self):
         return self.rigorous.value
 
+    @property
+    def recommended_trays(self):
+        """The tray count to use: route 2's, the tray-by-tray solution [-] (see ``recommendation``)."""
+        return self.rigorous.value
+
+    @property
+    def recommendation(self):
+        """Which tray count to use and why, in one sentence."""
+        chosen, other = self.rigorous.value, self.trays_from_overall
+        why = (f"use {chosen} trays, the tray-by-tray solution: it meets the target with E_MV = {self.murphree:.3g} "
+               "applied on every tray at that tray's own temperature and flows, where N / E_o is exact only for "
+               "straight operating and equilibrium lines (Lewis's relation)")
+        if other > chosen:
+            return f"{why}; N / E_o = {other} would add {_trays(other - chosen)} of margin"
+        if other < chosen:
+            return f"{why}; N / E_o = {other} would fall {_trays(chosen - other)} short of the target"
+        return f"{why}; N / E_o gives the same count"
+
+
+def _trays(count):
+    return f"{count} tray" if count == 1 else f"{count} trays"
+
 
 def actual_trays(theoretical_stages, overall_efficiency):
     """Whole trays for fractional theoretical stages at an overall efficiency: ceil(N / E_o).

@@ -68,6 +68,31 @@ def with_stages(column, n_stages):
     )
 
 
+# What a stage count other than the column's own leaves without a place, by core quantity; the
+# first two fit a longer column (``with_stages`` keeps their stage numbers), the others fit none.
+STAGE_BOUND = {
+    "heat_removed": "heat removed on stages (coolers, heat loss)",
+    "extra_feeds": "side feeds",
+    "side_draws": "side draws",
+    "murphree": "Murphree efficiencies differing from stage to stage",
+    "temperature": "stage temperatures differing",
+}
+LONGER_COLUMN_KEEPS = ("heat_removed", "extra_feeds", "side_draws")
+
+
+def stage_bound(column, *, longer_only=False):
+    """The quantities of ``column`` (keys of ``STAGE_BOUND``) that a different stage count leaves
+    without a place; with ``longer_only`` just those a column with more stages cannot carry."""
+    present = {
+        "heat_removed": bool(np.any(column.heat_removed != 0.0)),
+        "extra_feeds": bool(column.extra_feeds),
+        "side_draws": bool(column.side_draws),
+        "murphree": bool(np.ptp(column.murphree) > 0.0),
+        "temperature": column.temperature is not None and bool(np.ptp(column.temperature) > 0.0),
+    }
+    return tuple(name for name in STAGE_BOUND if present[name] and not (longer_only and name in LONGER_COLUMN_KEEPS))
+
+
 def with_cooler_duty(column, duty, *, stage):
     """The column with ``duty`` [W] removed from ``stage`` (1-based); other stages unchanged."""
     if not 1 <= stage <= column.n_stages:

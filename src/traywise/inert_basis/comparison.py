@@ -1,12 +1,18 @@
 """The rigorous solution beside the isothermal inert-basis design of the same column.
 
-The classic method (``traywise.inert_basis.design``) is run at the solvent inlet temperature and the
-mean column pressure, with every component but one key solute inert. Two questions are
-answered: how many theoretical stages would the classic method have asked for to reach the
-removal the rigorous solution reaches, and what outlet would it have predicted with the stages
-the column has. The verdict thresholds are our own judgement (common practice has no single
-number): the isothermal design 'held' when its stage count is within 10 % (or half a stage) of
-the rigorous one and its predicted outlet of the key solute within 25 % of the rigorous outlet.
+The classic method (``traywise.inert_basis.design``) is run at the mean column pressure with
+every component but one key solute inert, at three temperatures: the solvent inlet (the
+textbook choice, the one the verdict judges), the mean liquid temperature of the rigorous
+column and its hottest stage; the three stage counts bracket what an engineer could have
+asked the simple method for. The rigorous column counts as theoretical stages by Lewis's
+relation, tray by tray (``lewis``), when its trays have a Murphree efficiency below 1. The
+verdict (``verdict``) says whether the simple method would have been close, conservative or
+unsafe, why, and within which tolerance.
+
+Outlets are compared on one basis, free of the solvent: the rigorous top gas less its solvent
+vapour, and the isothermal outlet less the solvent vapour the gas feed brought (the inert
+basis keeps it in V'), so that water picked up or condensed does not read as a difference in
+the solute.
 
 The comparison never fails a run: where the classic method cannot be applied to the column (the
 key absorbed completely, stripped from the solvent, or a curve Y*(X) that never reaches the
@@ -19,17 +25,18 @@ import numpy as np
 
 from ..errors import PinchError, TraywiseError
 from .design import inert_basis_design
+from .equilibrium_curve import mole_ratio_equilibrium
+from .lewis import stage_equivalent
+from .verdict import SAME_TEMPERATURE, STAGE_TOLERANCE, ProfileMeasures, judge, tolerance_text
 
-STAGE_TOLERANCE = (0.10, 0.5)  # relative, absolute [stages]
-OUTLET_TOLERANCE = 0.25  # relative
-NOTABLE_RISE = 5.0  # K; a temperature rise worth a caution (our judgement)
 MIN_ABSORBED = 1e-3  # components absorbed less than this are carriers, not solutes
+OUTLET_BASIS = "solvent-free: mole fraction in the gas leaving the top, its solvent vapour left out"
 
 
 @dataclass(frozen=True)
 class SoluteComparison:
-    """Outlet gas mole fraction and fraction absorbed of one solute, both ways [-]; the
-    isothermal values are None where the classic method pinches."""
+    """Outlet gas mole fraction (solvent-free, module docstring) and fraction absorbed of one
+    solute, both ways [-]; the isothermal values are None where the classic method pinches."""
 
     name: str
     rigorous_outlet_mole_fraction: float
@@ -39,20 +46,46 @@ class SoluteComparison:
 
 
 @dataclass(frozen=True)
+class IsothermalPoint:
+    """The isothermal design of the rigorous removal at one temperature of the bracket.
+
+    label : 'solvent inlet', 'mean liquid' or 'hottest stage'
+    temperature : [K]
+    stages : theoretical stages it asks for, None where it gives none [-]
+    reason : why it gives none, or None
+    pinched : whether that is a pinch (no number of stages reaches the removal)
+    """
+
+    label: str
+    temperature: float
+    stages: float | None
+    reason: str | None = None
+    pinched: bool = False
+
+
+@dataclass(frozen=True)
 class Comparison:
     """Rigorous against isothermal inert-basis (see module docstring).
 
     key : the solute the stage counts refer to
-    temperature, pressure : where the isothermal design was taken [K], [Pa]
-    rigorous_stages : theoretical stages of the rigorous column (N times the mean Murphree
-        efficiency when trays are not ideal) [-]
-    isothermal_stages : stages the classic method needs for the rigorous removal of the key,
-        None when it pinches (cannot reach it at all) [-]
-    isothermal_design : the classic design for that removal (for the x-y diagram), or None
-    solutes : per-solute outlets both ways
-    max_temperature_rise : hottest stage minus the isothermal temperature [K]
+    temperature, pressure : where the judged isothermal design was taken (solvent inlet,
+        mean column pressure) [K], [Pa]
+    column_stages : stages of the rigorous column as solved (Murphree trays or theoretical) [-]
+    rigorous_stages : their theoretical-stage equivalent (Lewis's relation tray by tray) [-]
+    efficiencies : overall efficiency E_O of each stage by Lewis's relation, (N,) [-]
+    isothermal_stages : stages the classic method needs at the solvent inlet temperature for
+        the rigorous removal of the key, None when it gives none [-]
+    bracket : IsothermalPoint at the solvent inlet, mean liquid and hottest-stage temperatures
+    isothermal_design : the classic design for that removal at the solvent inlet (for the x-y
+        diagram), or None
+    solutes : per-solute outlets both ways, on ``outlet_basis``
+    outlet_basis : the basis of the outlet mole fractions, in words
+    max_temperature_rise : hottest stage minus the solvent inlet temperature [K]
     hottest_stage : 1-based
-    held : the plain verdict; verdict : one sentence saying why
+    direction : 'close', 'conservative', 'unsafe', or None when not compared
+    causes : the effects named as the reason for a gap (``verdict``)
+    stage_tolerance : (relative, absolute [stages]) within which the verdict is 'close'
+    held : the plain verdict, direction == 'close'; verdict : one sentence saying why
     reason : why the classic method gives no stage count for the rigorous removal (a pinch, or
         why it cannot be applied), None when it gives one
     """
@@ -60,20 +93,33 @@ class Comparison:
     key: str
     temperature: float
     pressure: float
+    column_stages: int
     rigorous_stages: float
+    efficiencies: np.ndarray
     isothermal_stages: float | None
+    bracket: tuple
     isothermal_design: object
     solutes: tuple
+    outlet_basis: str
     max_temperature_rise: float
     hottest_stage: int
+    direction: str | None
+    causes: tuple
+    stage_tolerance: tuple
     held: bool
     verdict: str
     reason: str | None = None
 
     @property
     def stage_difference(self):
-        """Isothermal minus rigorous theoretical stages [-] (None when the classic method pinches)."""
+        """Isothermal (solvent inlet) minus rigorous theoretical stages [-] (None when the classic
+        method gives no stage count)."""
         return None if self.isothermal_stages is None else self.isothermal_stages - self.rigorous_stages
+
+    @property
+    def tolerance_text(self):
+        """The stage tolerance in words."""
+        return tolerance_text()
 
 
 def default_key(solution, solvent_index=0):
@@ -99,34 +145,49 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
     column = solution.column
     key = key or default_key(solution, solvent_index)
     names = solution.component_names
+    k = names.index(key)
     temperature = column.solvent.temperature
     pressure = float(np.mean(solution.pressure))
-    stages = float(column.n_stages * np.mean(column.murphree))
-    common = dict(
-        gas_flows=column.gas.component_flows,
-        solvent_flows=column.solvent.component_flows,
-        temperature=temperature,
-        pressure=pressure,
-    )
-    k = names.index(key)
-    design, isothermal_stages = None, None
-    reason = _not_applicable(key, float(solution.fraction_absorbed[k]))
-    if reason is None:
-        try:
-            design = inert_basis_design(model, key, target_fraction_absorbed=float(solution.fraction_absorbed[k]), **common)
-            isothermal_stages = design.theoretical_stages
-        except PinchError:
-            reason = f"the isothermal design cannot reach the rigorous removal of {key} at all (pinch)"
-        except TraywiseError as error:
-            reason = f"the isothermal inert-basis method cannot be applied to the removal of {key} ({error})"
+    stages, efficiencies = stage_equivalent(solution, k)
+    common = dict(gas_flows=column.gas.component_flows, solvent_flows=column.solvent.component_flows, pressure=pressure)
+    fraction = float(solution.fraction_absorbed[k])
+    reason = _not_applicable(key, fraction)
+    temperatures = (("solvent inlet", temperature), ("mean liquid", float(np.mean(solution.temperature))),
+                    ("hottest stage", float(solution.temperature.max())))
+    bracket, design = [], None
+    for label, t in temperatures:
+        if bracket and abs(t - temperature) < SAME_TEMPERATURE:
+            bracket.append(IsothermalPoint(label, t, bracket[0].stages, bracket[0].reason, bracket[0].pinched))
+            continue
+        point, found = _design_at(model, key, fraction, reason, label, t, common)
+        bracket.append(point)
+        design = found if design is None and label == "solvent inlet" else design
+    reason = bracket[0].reason
     indices = [names.index(name) for name in solutes] if solutes is not None else _solute_indices(solution, solvent_index)
-    solutes = tuple(_solute(solution, model, i, stages, common) for i in indices)
-    rise = float(solution.temperature.max() - temperature)
-    held, verdict = _verdict(key, stages, isothermal_stages, solutes, rise, reason)
+    compared = tuple(_solute(solution, model, i, stages, solvent_index, dict(common, temperature=temperature))
+                     for i in indices)
+    measures = _measures(solution, model, key, solvent_index, temperature, pressure, design)
+    direction, causes, verdict = judge(key, stages, tuple(bracket), measures, reason, pinched=bracket[0].pinched)
     return Comparison(
-        key, temperature, pressure, stages, isothermal_stages, design, solutes, rise, solution.hottest_stage, held, verdict,
-        reason,
+        key, temperature, pressure, column.n_stages, stages, efficiencies, bracket[0].stages, tuple(bracket), design,
+        compared, OUTLET_BASIS, measures.max_temperature_rise, solution.hottest_stage, direction, causes,
+        STAGE_TOLERANCE, direction == "close", verdict, reason,
     )
+
+
+def _design_at(model, key, fraction, reason, label, temperature, common):
+    """(IsothermalPoint, design or None) of the rigorous removal at one temperature."""
+    if reason is not None:
+        return IsothermalPoint(label, temperature, None, reason), None
+    try:
+        design = inert_basis_design(model, key, target_fraction_absorbed=fraction, temperature=temperature, **common)
+    except PinchError:
+        why = f"the isothermal design cannot reach the rigorous removal of {key} at all (pinch)"
+        return IsothermalPoint(label, temperature, None, why, pinched=True), None
+    except TraywiseError as error:
+        why = f"the isothermal inert-basis method cannot be applied to the removal of {key} ({error})"
+        return IsothermalPoint(label, temperature, None, why), None
+    return IsothermalPoint(label, temperature, float(design.theoretical_stages)), design
 
 
 def _not_applicable(key, fraction_absorbed):
@@ -148,34 +209,55 @@ def _solute_indices(solution, solvent_index):
     return [i for i in range(len(absorbed)) if i != solvent_index and np.isfinite(absorbed[i]) and absorbed[i] > MIN_ABSORBED]
 
 
-def _solute(solution, model, i, stages, common):
+def _solute(solution, model, i, stages, solvent_index, common):
     name = solution.component_names[i]
     gas_out = solution.gas_out
-    rigorous_y = float(gas_out[i] / gas_out.sum())
+    rigorous_y = float(gas_out[i] / (gas_out.sum() - gas_out[solvent_index]))
     try:
         # stepped from the bottom: Y*(X) is evaluated directly, never inverted (one property
         # evaluation a stage); for a whole number of stages both ends give the same outlet
         rating = inert_basis_design(model, name, n_stages=stages, start="bottom", **common)
     except TraywiseError:  # pinched, no outlet found for a barely absorbed gas, or a curve that cannot be stepped
         return SoluteComparison(name, rigorous_y, None, float(solution.fraction_absorbed[i]), None)
-    y_out = rating.gas_ratio_out / (1.0 + rating.gas_ratio_out)  # key over key + inert at the top
-    return SoluteComparison(name, rigorous_y, y_out, float(solution.fraction_absorbed[i]), rating.fraction_absorbed)
+    solute = rating.gas_ratio_out * rating.inert_gas_flow
+    others = rating.inert_gas_flow - float(common["gas_flows"][solvent_index])  # V' less the solvent vapour fed
+    return SoluteComparison(name, rigorous_y, float(solute / (solute + others)), float(solution.fraction_absorbed[i]),
+                            float(rating.fraction_absorbed))
 
 
-def _verdict(key, stages, isothermal_stages, solutes, rise, reason):
-    caution = f"; the column runs up to {rise:.1f} K above the isothermal temperature" if rise > NOTABLE_RISE else ""
-    if isothermal_stages is None:
-        return False, f"did not hold: {reason}{caution}"
-    relative, absolute = STAGE_TOLERANCE
-    stage_ok = abs(isothermal_stages - stages) <= max(absolute, relative * stages)
-    key_solute = next((s for s in solutes if s.name == key), None)
-    outlet_ok = (
-        key_solute is not None
-        and key_solute.isothermal_outlet_mole_fraction is not None
-        and abs(key_solute.isothermal_outlet_mole_fraction - key_solute.rigorous_outlet_mole_fraction)
-        <= OUTLET_TOLERANCE * key_solute.rigorous_outlet_mole_fraction
+def _measures(solution, model, key, solvent_index, temperature, pressure, design):
+    """ProfileMeasures of the rigorous column (``verdict``)."""
+    column = solution.column
+    gas_in = column.gas.component_flows
+    k = solution.component_names.index(key)
+    others = np.ones(len(gas_in), dtype=bool)
+    others[[k, solvent_index]] = False
+    gas_total = float(gas_in.sum())
+    condensed = float(gas_in[solvent_index] - solution.gas_out[solvent_index]) / gas_total
+    absorbed = float(gas_in[others].sum() - solution.gas_out[others].sum()) / gas_total
+    return ProfileMeasures(
+        mean_rise=float(np.mean(solution.temperature) - temperature),
+        max_temperature_rise=float(solution.temperature.max() - temperature),
+        hottest_stage=solution.hottest_stage,
+        solvent_condensed=condensed,
+        gas_absorbed=absorbed,
+        curvature=_curvature(model, key, column, temperature, pressure, design),
+        murphree_trays=bool(np.any(column.murphree < 1.0)),
+        solvent=solution.component_names[solvent_index],
+        absorption_factor=None if design is None else design.absorption_factor,
     )
-    detail = f"it asks for {isothermal_stages:.2f} theoretical stages of {key} removal against {stages:.2f} rigorous"
-    if stage_ok and outlet_ok:
-        return True, f"held: {detail}{caution}"
-    return False, f"did not hold: {detail}{caution}"
+
+
+def _curvature(model, key, column, temperature, pressure, design):
+    """Y*(X_out) / (X_out dY*/dX at 0) - 1 of the key at the solvent inlet temperature, or None."""
+    if design is None or not design.liquid_ratio_out > 0.0:
+        return None
+    try:
+        curve = mole_ratio_equilibrium(model, key, temperature=temperature, pressure=pressure,
+                                       solvent_mole_fractions=column.solvent.component_flows)
+        x_out = design.liquid_ratio_out
+        small = 1e-6 * x_out
+        secant, initial = float(curve(x_out)) / x_out, float(curve(small)) / small
+    except TraywiseError:
+        return None
+    return secant / initial - 1.0 if initial > 0.0 and np.isfinite(secant) else None

@@ -34,6 +34,8 @@ class KremserSolute:
     liquid_to_gas_ratio : float L'/V' [mol/mol]
     absorption_factor : float   A = (L'/V') / K [-]
     gas_ratio_in, gas_ratio_out, liquid_ratio_in : float   Y_in, Y_out, X_in [mol/mol]
+    solvent_free_outlet_mole_fraction : float or None   The outlet free of the solvent vapour the
+        gas feed brought, the basis of the comparison (``comparison``); None without a solvent [-]
     """
 
     name: str
@@ -43,6 +45,7 @@ class KremserSolute:
     gas_ratio_in: float
     gas_ratio_out: float
     liquid_ratio_in: float
+    solvent_free_outlet_mole_fraction: float | None = None
 
     @property
     def fraction_absorbed(self):
@@ -76,7 +79,7 @@ class KremserRating:
 
 
 def kremser_rating(model, key, solutes, *, gas_flows, solvent_flows, temperature, pressure, n_stages,
-                   key_fraction_absorbed):
+                   key_fraction_absorbed, solvent_index=None):
     """Rate a column by Kremser's equation, solute by solute.
 
     Parameters
@@ -89,6 +92,7 @@ def kremser_rating(model, key, solutes, *, gas_flows, solvent_flows, temperature
     pressure : float                [Pa]
     n_stages : float                Theoretical stages N > 0 [-]
     key_fraction_absorbed : float   The key's rigorous fraction absorbed [-]
+    solvent_index : int, optional   The solvent component, for the solvent-free outlets
 
     Returns
     -------
@@ -98,7 +102,7 @@ def kremser_rating(model, key, solutes, *, gas_flows, solvent_flows, temperature
     gas, solvent = np.asarray(gas_flows, dtype=float), np.asarray(solvent_flows, dtype=float)
     rated = []
     for name in solutes:
-        solute = _rate(model, name, gas, solvent, temperature, pressure, n_stages)
+        solute = _rate(model, name, gas, solvent, temperature, pressure, n_stages, solvent_index)
         if solute is not None:
             rated.append(solute)
     stages = None
@@ -108,7 +112,7 @@ def kremser_rating(model, key, solutes, *, gas_flows, solvent_flows, temperature
     return KremserRating(key, float(temperature), float(pressure), float(n_stages), tuple(rated), stages)
 
 
-def _rate(model, name, gas, solvent, temperature, pressure, n_stages):
+def _rate(model, name, gas, solvent, temperature, pressure, n_stages, solvent_index):
     i = model.names.index(name)
     inert_gas, solvent_free = gas.sum() - gas[i], solvent.sum() - solvent[i]
     if not (gas[i] > 0.0 and inert_gas > 0.0 and solvent_free > 0.0):
@@ -123,8 +127,12 @@ def _rate(model, name, gas, solvent, temperature, pressure, n_stages):
     gas_in, liquid_in = gas[i] / inert_gas, solvent[i] / solvent_free
     gas_out = kremser_gas_outlet(gas_in, liquid_in, equilibrium_slope=k_value, absorption_factor=absorption,
                                  n_stages=n_stages)
+    solvent_free = None
+    if solvent_index is not None:
+        leaving, others = gas_out * inert_gas, inert_gas - gas[solvent_index]
+        solvent_free = float(leaving / (leaving + others))
     return KremserSolute(name, float(k_value), float(ratio), float(absorption), float(gas_in), float(gas_out),
-                         float(liquid_in))
+                         float(liquid_in), solvent_free)
 
 
 def _stages_for(solute, fraction_absorbed):

@@ -129,7 +129,8 @@ def _heat_breakdown(equations, v, l, t, heat_removed):
     liquid_heating = float(solvent_in @ (h_l_bottom - h_l_solvent_in))
     coolers = float(heat_removed.sum())
     other = released - evaporation - gas_heating - liquid_heating - coolers
-    return HeatBreakdown(released, gas_heating, liquid_heating, evaporation, coolers, other)
+    return HeatBreakdown(released, gas_heating, liquid_heating, evaporation, coolers, other,
+                         tuple(float(term) for term in transfer))
 
 
 def _check_state(model, l, t, iterations, norm):

@@ -39,7 +39,11 @@ class HeatBreakdown:
     evaporation the same sum over components that left the liquid (solvent), taken positive;
     gas_heating the sensible heat of the gas passing through (from gas-inlet to top
     temperature), liquid_heating that of the solvent (solvent-inlet to liquid-outlet
-    temperature); other is what extra feeds and side draws carry.
+    temperature); other is what extra feeds and side draws carry. by_component holds each
+    component's term a_i (h_V,i(T_gas in) - h_L,i(T_liquid out)), signed: positive for heat given
+    to the liquid by a component the liquid took up (a solute absorbed, water condensing),
+    negative for heat taken from it by one that left it (solvent evaporating); released is the
+    sum of the terms of components taken up, evaporation minus the sum of the others.
     """
 
     released: float
@@ -48,6 +52,7 @@ class HeatBreakdown:
     evaporation: float
     removed_by_coolers: float
     other: float
+    by_component: tuple = ()
 
 
 @dataclass(frozen=True)

@@ -3,10 +3,12 @@ report.md and results.json.
 
 Both are computed one layer down (``traywise.run`` calls ``traywise.inert_basis.comparison.compare``
 and ``traywise.inert_basis.kremser_rating.kremser_rating``); this module only renders the
-``Comparison`` record (fields key, temperature, pressure, rigorous_stages, isothermal_stages
-(None when the classic method gives no stage count, ``reason`` saying why), isothermal_design (an
-``InertBasisDesign``, or None), solutes (per-solute outlets both ways), max_temperature_rise,
-hottest_stage, held, verdict) and the ``KremserRating`` beside it.
+``Comparison`` record (fields key, temperature, pressure, column_stages, rigorous_stages (Lewis's
+equivalent), isothermal_stages (None when the classic method gives no stage count, ``reason``
+saying why), bracket (the design at three temperatures), isothermal_design (an
+``InertBasisDesign``, or None), solutes (per-solute outlets both ways, solvent-free),
+max_temperature_rise, hottest_stage, direction, causes, stage_tolerance, held, verdict) and the
+``KremserRating`` beside it.
 """
 
 from .tables import celsius, kilopascal, number, percent
@@ -22,8 +24,21 @@ def comparison_json(record, kremser=None):
         "key_component": record.key,
         "isothermal_temperature_K": float(record.temperature),
         "isothermal_pressure_Pa": float(record.pressure),
+        "column_stages": int(record.column_stages),
         "theoretical_stages_rigorous": float(record.rigorous_stages),
+        "stage_efficiencies_lewis": [float(e) for e in record.efficiencies],
         "theoretical_stages_isothermal": _optional(record.isothermal_stages),
+        "isothermal_bracket": [
+            {
+                "temperature_of": point.label,
+                "temperature_K": float(point.temperature),
+                "theoretical_stages": _optional(point.stages),
+                "reason": point.reason,
+                "pinched": bool(point.pinched),
+            }
+            for point in record.bracket
+        ],
+        "outlet_basis": record.outlet_basis,
         "solutes": [
             {
                 "name": solute.name,
@@ -37,6 +52,13 @@ def comparison_json(record, kremser=None):
         "max_temperature_rise_K": float(record.max_temperature_rise),
         "hottest_stage": int(record.hottest_stage),
         "isothermal_assumption_held": bool(record.held),
+        "direction": record.direction,
+        "causes": list(record.causes),
+        "stage_tolerance": {
+            "relative": float(record.stage_tolerance[0]),
+            "absolute_stages": float(record.stage_tolerance[1]),
+            "in_words": record.tolerance_text,
+        },
         "verdict": record.verdict,
         "reason": record.reason,
         "inert_basis_design": None if design is None else {
@@ -67,6 +89,7 @@ def kremser_json(rating):
                 "liquid_to_gas_ratio": solute.liquid_to_gas_ratio,
                 "absorption_factor": solute.absorption_factor,
                 "gas_out_mole_fraction": solute.outlet_mole_fraction,
+                "gas_out_mole_fraction_solvent_free": solute.solvent_free_outlet_mole_fraction,
                 "fraction_absorbed": solute.fraction_absorbed,
             }
             for solute in rating.solutes
@@ -83,10 +106,15 @@ def comparison_rows(comparison):
     rows = [
         (
             f"theoretical stages for the {comparison['key_component']} removal",
-            number(comparison["theoretical_stages_rigorous"]),
+            _rigorous_stages(comparison),
             "none (see the verdict)" if stages is None else number(stages),
             number(kremser["theoretical_stages_for_rigorous_removal"]),
         ),
+        *[
+            (f"  isothermal at the {point['temperature_of']} temperature, {celsius(point['temperature_K'])} degC", "-",
+             "none" if point["theoretical_stages"] is None else number(point["theoretical_stages"]), "-")
+            for point in comparison["isothermal_bracket"][1:]
+        ],
         (
             "maximum temperature rise [K]",
             f"{comparison['max_temperature_rise_K']:.1f} (stage {comparison['hottest_stage']})",
@@ -98,10 +126,10 @@ def comparison_rows(comparison):
         rated = by_name.get(solute["name"], {})
         rows.append(
             (
-                f"{solute['name']} in gas out [mol frac]",
+                f"{solute['name']} in gas out, solvent-free [mol frac]",
                 number(solute["gas_out_mole_fraction_rigorous"]),
                 number(solute["gas_out_mole_fraction_isothermal"]),
-                number(rated.get("gas_out_mole_fraction")),
+                number(rated.get("gas_out_mole_fraction_solvent_free", rated.get("gas_out_mole_fraction"))),
             )
         )
         rows.append(
@@ -128,10 +156,20 @@ def comparison_heading(comparison):
 
 
 def verdict_line(comparison):
-    """'Isothermal assumption held: ...' or '... did not hold: ...' (or why there is no comparison)."""
+    """'Simple isothermal design: close: ...' (or conservative, unsafe, not compared; or why
+    there is no comparison)."""
     if comparison is None:
         return "No isothermal inert-basis comparison: it could not be computed (see the warnings)"
-    return f"Isothermal assumption {comparison['verdict']}"
+    return f"Simple isothermal design: {comparison['verdict']}"
+
+
+def _rigorous_stages(comparison):
+    """The rigorous theoretical stages, with the trays they stand for when Lewis's relation
+    counted Murphree trays."""
+    stages, trays = comparison["theoretical_stages_rigorous"], comparison["column_stages"]
+    if all(e == 1.0 for e in comparison["stage_efficiencies_lewis"]):
+        return number(stages)
+    return f"{number(stages)} ({trays} Murphree trays, Lewis)"
 
 
 def _optional(value):

@@ -85,6 +85,8 @@ def _trays_json(trays):
         "trays_by_murphree_efficiency": trays.rigorous_trays,
         "stripping_factor": trays.stripping_factor,
         "oconnell_group": trays.oconnell_group,
+        "recommended_trays": trays.recommended_trays,
+        "recommendation": trays.recommendation,
     }
 
 
@@ -99,6 +101,10 @@ def design_lines(results):
         lines.append(_limit_line(design["temperature_limit"]))
     if design["minimum_solvent"] is not None:
         lines.extend(_minimum_lines(design["minimum_solvent"]))
+    for route in design["trays"]:
+        source = SOURCE_WORDS.get(route["efficiency_source"], route["efficiency_source"])
+        lines.append(f"Trays to use, E_o {number(route['overall_efficiency'], 3)} ({source}): "
+                     f"{route['recommendation']}.")
     return lines
 
 

@@ -1,12 +1,14 @@
 """Everything a run writes: the results folder of one solved case.
 
-results.json (``results.RESULTS_KEYS``), stages.csv (``stages``), report.md (``markdown``) and,
+results.json (``results.RESULTS_KEYS``), stages.csv (``stages``), report.md (``markdown``), report.html
+(``html``, the same report self-contained) and,
 unless switched off, the PNG figures (``plots``), written together by ``folder``.
 """
 
 import json
 
 from .folder import MARKER, write_results_folder
+from .html import html_report
 from .markdown import markdown_report
 from .results import results_record
 from .sizing_view import write_sizing_files
@@ -15,6 +17,7 @@ from .stages import component_labels, write_stages_csv
 RESULTS_FILE = "results.json"
 STAGES_FILE = "stages.csv"
 REPORT_FILE = "report.md"
+HTML_FILE = "report.html"
 
 
 def write_outputs(target, run, *, plots=True):
@@ -37,8 +40,9 @@ def write_outputs(target, run, *, plots=True):
 
             figures = write_plots(folder, solution, run.comparison, run.xy_design)
         figures += write_sizing_files(folder, run.sizing, plots=plots)
-        record = results_record(run, [RESULTS_FILE, STAGES_FILE, REPORT_FILE, MARKER, *figures])
+        record = results_record(run, [RESULTS_FILE, STAGES_FILE, REPORT_FILE, HTML_FILE, MARKER, *figures])
         (folder / REPORT_FILE).write_text(markdown_report(record), encoding="utf-8")
+        (folder / HTML_FILE).write_text(html_report(record, folder), encoding="utf-8")
         (folder / RESULTS_FILE).write_text(results_json(record), encoding="utf-8")
         written["record"] = record
 

@@ -17,6 +17,11 @@ from ..column import actual_trays
 from .cautions import SAFETY_CAUTIONS
 from .sizing_view import SIZING_KEYS
 
+# the units of a case that names none (common practice in basic-engineering documents)
+DEFAULT_UNITS = {"temperature": {"unit": "degC", "scale": 1.0, "offset": -273.15},
+                 "pressure": {"unit": "kPa", "scale": 1e-3, "offset": 0.0},
+                 "flow": {"unit": "kmol/h", "scale": 3.6, "offset": 0.0, "basis": "molar"}}
+
 RESULTS_KEYS = {
     "software": "name and version of the program that wrote the file",
     "software.name": "'traywise'",
@@ -60,24 +65,36 @@ RESULTS_KEYS = {
     "gas_in.flow_mol_per_s": "total flow [mol/s]",
     "gas_in.component_flows_mol_per_s": "per component name [mol/s]",
     "gas_in.mole_fractions": "per component name [-]",
+    "gas_in.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "gas_in.mass_fractions": "per component name [-]",
+    "gas_in.liquid_volume_flow_m3_per_s": "null (a gas stream)",
     "solvent_in": "solvent fed onto the top stage; keys as gas_out",
     "solvent_in.temperature_K": "[K]",
     "solvent_in.pressure_Pa": "pressure of the top stage [Pa]",
     "solvent_in.flow_mol_per_s": "total flow [mol/s]",
     "solvent_in.component_flows_mol_per_s": "per component name [mol/s]",
     "solvent_in.mole_fractions": "per component name [-]",
+    "solvent_in.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "solvent_in.mass_fractions": "per component name [-]",
+    "solvent_in.liquid_volume_flow_m3_per_s": "volume flow of the liquid, ideal mixing of the pure liquids (dissolved gases add mass only) [m3/s]; null without density data",
     "gas_out": "gas leaving the top",
     "gas_out.temperature_K": "[K]",
     "gas_out.pressure_Pa": "[Pa]",
     "gas_out.flow_mol_per_s": "total flow [mol/s]",
     "gas_out.component_flows_mol_per_s": "per component name [mol/s]",
     "gas_out.mole_fractions": "per component name [-]",
+    "gas_out.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "gas_out.mass_fractions": "per component name [-]",
+    "gas_out.liquid_volume_flow_m3_per_s": "null (a gas stream)",
     "liquid_out": "liquid leaving the bottom; keys as gas_out",
     "liquid_out.temperature_K": "[K]",
     "liquid_out.pressure_Pa": "[Pa]",
     "liquid_out.flow_mol_per_s": "total flow [mol/s]",
     "liquid_out.component_flows_mol_per_s": "per component name [mol/s]",
     "liquid_out.mole_fractions": "per component name [-]",
+    "liquid_out.mass_flow_kg_per_s": "total mass flow [kg/s]",
+    "liquid_out.mass_fractions": "per component name [-]",
+    "liquid_out.liquid_volume_flow_m3_per_s": "volume flow of the liquid, ideal mixing of the pure liquids (dissolved gases add mass only) [m3/s]; null without density data",
     "fraction_absorbed": "per component name: 1 - gas out / gas in [-]; negative when the gas picks it up; null when the gas carries none",
     "solvent_lost_mol_per_s": "per component name: flow the gas carries out beyond what it brought in [mol/s]",
     "temperatures": "temperature extremes",
@@ -92,6 +109,15 @@ RESULTS_KEYS = {
     "heat.evaporation_W": "heat taken up by components leaving the liquid (solvent evaporation) [W]",
     "heat.removed_by_coolers_W": "heat removed by coolers and intercoolers [W]",
     "heat.other_W": "carried by extra feeds and side draws [W]",
+    "heat.by_component_W": "per component name: heat given to the liquid by its transfer, a (h_V(T gas in) - h_L(T liquid out)) [W]; positive for a solute absorbed or solvent condensing, negative for solvent evaporating",
+    "solvent_balance": "the solvent's evaporation and condensation summed over the stages, or null when it could not be computed",
+    "solvent_balance.solvent": "name of the solvent",
+    "solvent_balance.evaporated_kg_per_s": "solvent passing from the liquid into the vapour, over the stages where it does [kg/s]",
+    "solvent_balance.condensed_kg_per_s": "solvent passing from the vapour into the liquid, over the stages where it does [kg/s]",
+    "solvent_balance.make_up_kg_per_s": "net solvent the gas carries away, to be made up [kg/s]; 0 when the liquid gains",
+    "solvent_balance.gained_kg_per_s": "net solvent the liquid takes up from the gas [kg/s]; 0 when it loses",
+    "display_units": "the units the reports show: per kind ('temperature', 'pressure', 'flow') the unit, and scale and offset from SI (shown = SI x scale + offset); flow also its basis 'mass' or 'molar'",
+    "inputs_as_written": "the case's tables as written in the case file (values with their units), or null for a case built in Python without them",
     "convergence": "how the solution was reached and how well it closes",
     "convergence.iterations": "Newton iterations [-]",
     "convergence.scaled_residual": "final max-norm of the scaled residuals [-]",
@@ -103,18 +129,33 @@ RESULTS_KEYS = {
     "isothermal_comparison.key_component": "the solute the stage counts refer to",
     "isothermal_comparison.isothermal_temperature_K": "temperature of the isothermal design [K]",
     "isothermal_comparison.isothermal_pressure_Pa": "pressure of the isothermal design [Pa]",
-    "isothermal_comparison.theoretical_stages_rigorous": "theoretical stages of the rigorous column [-]",
-    "isothermal_comparison.theoretical_stages_isothermal": "stages the isothermal method needs for the same removal of the key solute [-]; null when it pinches",
+    "isothermal_comparison.column_stages": "stages of the rigorous column as solved: Murphree trays, or theoretical stages [-]",
+    "isothermal_comparison.theoretical_stages_rigorous": "theoretical stages of the rigorous column: Lewis's relation (Ind. Eng. Chem. 28 (1936) 399) applied tray by tray with each tray's stripping factor K V / L of the key solute, the column's stages when every Murphree efficiency is 1 [-]",
+    "isothermal_comparison.stage_efficiencies_lewis": "overall efficiency E_O = ln[1 + E_MV (lambda - 1)] / ln(lambda) of each stage, stage 1 first; they sum to theoretical_stages_rigorous [-]",
+    "isothermal_comparison.theoretical_stages_isothermal": "stages the isothermal method needs at the solvent inlet temperature for the same removal of the key solute [-]; null when it gives none (reason)",
+    "isothermal_comparison.isothermal_bracket": "the isothermal design of the rigorous removal at three temperatures: solvent inlet, mean liquid, hottest stage",
+    "isothermal_comparison.isothermal_bracket[].temperature_of": "'solvent inlet', 'mean liquid' or 'hottest stage'",
+    "isothermal_comparison.isothermal_bracket[].temperature_K": "the temperature [K]",
+    "isothermal_comparison.isothermal_bracket[].theoretical_stages": "stages the isothermal method needs there [-]; null when it gives none",
+    "isothermal_comparison.isothermal_bracket[].reason": "why it gives none, or null",
+    "isothermal_comparison.isothermal_bracket[].pinched": "true when that is a pinch: no number of stages reaches the removal there",
+    "isothermal_comparison.outlet_basis": "the basis of both outlet mole fractions, in words (solvent-free)",
     "isothermal_comparison.solutes": "one entry per solute absorbed",
     "isothermal_comparison.solutes[].name": "solute name",
-    "isothermal_comparison.solutes[].gas_out_mole_fraction_rigorous": "in the gas leaving the top [-]",
-    "isothermal_comparison.solutes[].gas_out_mole_fraction_isothermal": "the same by the isothermal method with the rigorous stage count [-]; null when it pinches",
+    "isothermal_comparison.solutes[].gas_out_mole_fraction_rigorous": "in the gas leaving the top, solvent-free (its solvent vapour left out) [-]",
+    "isothermal_comparison.solutes[].gas_out_mole_fraction_isothermal": "the same by the isothermal method at the solvent inlet temperature with the rigorous theoretical stages, solvent-free (the solvent vapour of the gas feed left out of V') [-]; null when it pinches",
     "isothermal_comparison.solutes[].fraction_absorbed_rigorous": "[-]",
     "isothermal_comparison.solutes[].fraction_absorbed_isothermal": "[-]; null when it pinches",
     "isothermal_comparison.max_temperature_rise_K": "hottest stage above the isothermal temperature [K]",
     "isothermal_comparison.hottest_stage": "1-based",
-    "isothermal_comparison.isothermal_assumption_held": "the plain verdict (true or false)",
-    "isothermal_comparison.verdict": "one sentence saying why",
+    "isothermal_comparison.isothermal_assumption_held": "true when the direction is 'close'",
+    "isothermal_comparison.direction": "the simple isothermal design at the solvent inlet temperature against the rigorous stages: 'close' (within stage_tolerance), 'conservative' (asks for more stages, or pinches), 'unsafe' (asks for fewer), or null when not compared (reason)",
+    "isothermal_comparison.causes": "the effects named as the reason for a gap: temperature, solvent condensation or evaporation, changing flows, curvature of the equilibrium line (empty when close)",
+    "isothermal_comparison.stage_tolerance": "within which the verdict is 'close': the larger of relative x rigorous stages and absolute_stages",
+    "isothermal_comparison.stage_tolerance.relative": "[-]",
+    "isothermal_comparison.stage_tolerance.absolute_stages": "[-]",
+    "isothermal_comparison.stage_tolerance.in_words": "the tolerance as the verdict states it",
+    "isothermal_comparison.verdict": "one sentence: the direction, both stage counts, the tolerance, the bracket and the causes",
     "isothermal_comparison.reason": "why the isothermal method gives no stage count for the rigorous removal (a pinch, or why it cannot be applied: the key absorbed completely or stripped, an equilibrium curve that never reaches the gas inlet), or null when it gives one",
     "isothermal_comparison.inert_basis_design": "the isothermal design for the rigorous removal of the key solute (K-value, L'/V', its minimum, terminal mole ratios, stages), or null when it pinches",
     "isothermal_comparison.kremser": "Kremser's equation at the same temperature and pressure, each solute on its own inert basis with K at infinite dilution, or null when it rates nothing",
@@ -128,6 +169,7 @@ RESULTS_KEYS = {
     "isothermal_comparison.kremser.solutes[].liquid_to_gas_ratio": "L'/V' on the solute's inert basis [mol/mol]",
     "isothermal_comparison.kremser.solutes[].absorption_factor": "A = L'/(K V') [-]",
     "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction": "Kremser's outlet, solute over solute and inert gas [-]",
+    "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction_solvent_free": "the same free of the solvent vapour the gas feed brought, the basis of the comparison's outlets [-]",
     "isothermal_comparison.kremser.solutes[].fraction_absorbed": "1 - Y_out / Y_in [-]",
     "design": "the design of a case with a [design] table (cases/README.md); null without one",
     "design.solve_for": "the input solved for: 'solvent_flow', 'stages' or 'cooler_duty'",
@@ -179,6 +221,8 @@ RESULTS_KEYS = {
     "design.trays[].trays_by_murphree_efficiency": "fewest trays with that E_MV meeting the target, solved rigorously [-]",
     "design.trays[].stripping_factor": "K V / L of the key solute, mean over the theoretical stages [-]",
     "design.trays[].oconnell_group": "K M_L mu_L / rho_L of O'Connell's correlation [cP ft3/lbmol], or null",
+    "design.trays[].recommended_trays": "the tray count to use: the tray-by-tray (Murphree) solution's [-]",
+    "design.trays[].recommendation": "which count to use and why, with the margin or shortfall of ceil(N / E_o)",
     **SIZING_KEYS,
     "property_sources": "per component name: property -> full citation of the data used, the liquid's activity model and equilibrium tables included",
     "warnings": "warnings from the case and the solution (list of text)",
@@ -205,6 +249,8 @@ def results_record(run, files):
     sizing = None if run.sizing is None else sizing_json(run.sizing)
     names = list(solution.component_names)
     column = solution.column
+    molar_mass = np.asarray(solution.molar_mass, dtype=float)
+    volumes = getattr(run, "liquid_volume_flows", None) or {}
     return {
         "software": {"name": "traywise", "version": __version__},
         "case": {"file": str(case.path), "title": case.title, "notes": case.notes},
@@ -243,10 +289,12 @@ def results_record(run, files):
             "k_values": plain(solution.k_values),
             "heat_removed_W": plain(solution.heat_removed),
         },
-        "gas_in": _stream(names, column.gas.component_flows, column.gas.temperature, solution.pressure[-1]),
-        "solvent_in": _stream(names, column.solvent.component_flows, column.solvent.temperature, solution.pressure[0]),
-        "gas_out": _stream(names, solution.gas_out, solution.temperature[0], solution.pressure[0]),
-        "liquid_out": _stream(names, solution.liquid_out, solution.temperature[-1], solution.pressure[-1]),
+        "gas_in": _stream(names, molar_mass, column.gas.component_flows, column.gas.temperature, solution.pressure[-1]),
+        "solvent_in": _stream(names, molar_mass, column.solvent.component_flows, column.solvent.temperature,
+                              solution.pressure[0], volumes.get("solvent_in")),
+        "gas_out": _stream(names, molar_mass, solution.gas_out, solution.temperature[0], solution.pressure[0]),
+        "liquid_out": _stream(names, molar_mass, solution.liquid_out, solution.temperature[-1], solution.pressure[-1],
+                              volumes.get("liquid_out")),
         "fraction_absorbed": _per_name(names, solution.fraction_absorbed),
         "solvent_lost_mol_per_s": _per_name(names, solution.solvent_lost),
         "temperatures": {
@@ -255,7 +303,11 @@ def results_record(run, files):
             "gas_out_temperature_K": solution.gas_out_temperature,
             "liquid_out_temperature_K": solution.liquid_out_temperature,
         },
-        "heat": {f"{field}_W": plain(value) for field, value in vars(solution.heat).items()},
+        "heat": {**{f"{field}_W": plain(value) for field, value in vars(solution.heat).items() if field != "by_component"},
+                 "by_component_W": _per_name(names, solution.heat.by_component or [None] * len(names))},
+        "solvent_balance": _solvent_balance(case.solvent, run.solvent_balance),
+        "display_units": getattr(case, "display_units", None) or DEFAULT_UNITS,
+        "inputs_as_written": _as_written(getattr(case, "data", None)),
         "convergence": {
             "iterations": solution.convergence.iterations,
             "scaled_residual": solution.convergence.residual,
@@ -269,7 +321,7 @@ def results_record(run, files):
         "sizing": sizing,
         "property_sources": {c.name: property_sources(c, kind, **_liquid_data(case.model, c.name))
                              for c, kind in zip(case.model.components, case.model.equilibrium)},
-        "warnings": [*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))],
+        "warnings": list(dict.fromkeys([*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))])),
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
@@ -316,15 +368,36 @@ def _per_name(names, values):
     return {name: plain(value) for name, value in zip(names, values)}
 
 
-def _stream(names, flows, temperature, pressure):
-    total = float(np.sum(flows))
+def _stream(names, molar_mass, flows, temperature, pressure, volume=None):
+    flows = np.asarray(flows, dtype=float)
+    total, masses = float(np.sum(flows)), flows * molar_mass
+    mass = float(masses.sum())
     return {
         "temperature_K": float(temperature),
         "pressure_Pa": float(pressure),
         "flow_mol_per_s": total,
         "component_flows_mol_per_s": {name: float(f) for name, f in zip(names, flows)},
         "mole_fractions": {name: float(f) / total for name, f in zip(names, flows)},
+        "mass_flow_kg_per_s": mass,
+        "mass_fractions": {name: float(m) / mass for name, m in zip(names, masses)},
+        "liquid_volume_flow_m3_per_s": None if volume is None else float(volume),
     }
+
+
+def _solvent_balance(solvent, balance):
+    if balance is None:
+        return None
+    mass = balance.solvent_molar_mass
+    return {"solvent": solvent, "evaporated_kg_per_s": balance.evaporated * mass,
+            "condensed_kg_per_s": balance.condensed * mass, "make_up_kg_per_s": balance.make_up * mass,
+            "gained_kg_per_s": balance.gained * mass}
+
+
+def _as_written(data):
+    """The case's tables as written, without title and notes (they head the report)."""
+    if data is None:
+        return None
+    return plain({key: value for key, value in data.items() if key not in ("title", "notes")})
 
 
 def plain(value):

@@ -5,20 +5,38 @@ text, in display units (see ``tables``), so that both outputs show the same numb
 """
 
 from .comparison_view import comparison_heading, comparison_rows, verdict_line
-from .tables import celsius, concentration, kilopascal, kilowatt, kmol_per_hour, number, percent
+from .tables import (SECONDS_PER_HOUR, Display, concentration, fraction, kg_per_hour, kilowatt, kmol_per_hour, number,
+                     percent, percentage)
+
+
+STREAMS = (("gas_in", "gas in"), ("solvent_in", "solvent in"), ("gas_out", "gas out (top)"),
+           ("liquid_out", "liquid out (bottom)"))
 
 
 def stream_table(results):
-    """Streams in and out: conditions and mole fractions."""
-    streams = [results[key] for key in ("gas_in", "solvent_in", "gas_out", "liquid_out")]
+    """Streams in and out in engineering units: conditions, kmol/h and kg/h (and the case's flow
+    unit when it is neither), liquid volume flow, then mol% and wt% of each component."""
+    units = Display(results["display_units"])
+    streams = [results[key] for key, _ in STREAMS]
     rows = [
-        ("temperature [degC]", *(celsius(s["temperature_K"]) for s in streams)),
-        ("pressure [kPa]", *(kilopascal(s["pressure_Pa"]) for s in streams)),
+        (f"temperature [{units.t_unit}]", *(units.temperature(s["temperature_K"]) for s in streams)),
+        (f"pressure [{units.p_unit}]", *(units.pressure(s["pressure_Pa"]) for s in streams)),
         ("flow [kmol/h]", *(kmol_per_hour(s["flow_mol_per_s"]) for s in streams)),
+        ("flow [kg/h]", *(kg_per_hour(s["mass_flow_kg_per_s"]) for s in streams)),
     ]
+    if units.flow_unit not in ("kmol/h", "kg/h"):
+        rows.append((f"flow [{units.flow_unit}]",
+                     *(units.flow(s["flow_mol_per_s"], s["mass_flow_kg_per_s"]) for s in streams)))
+    rows.append(("liquid volume flow [m3/h]", *(_volume(s.get("liquid_volume_flow_m3_per_s")) for s in streams)))
     for name in streams[0]["mole_fractions"]:
-        rows.append((f"{name} [mol frac]", *(number(s["mole_fractions"][name]) for s in streams)))
-    return ["stream", "gas in", "solvent in", "gas out (top)", "liquid out (bottom)"], rows
+        rows.append((f"{name} [mol%]", *(percentage(s["mole_fractions"][name]) for s in streams)))
+    for name in streams[0]["mole_fractions"]:
+        rows.append((f"{name} [wt%]", *(percentage(s["mass_fractions"][name]) for s in streams)))
+    return ["stream", *(label for _, label in STREAMS)], rows
+
+
+def _volume(value):
+    return "-" if value is None else f"{value * SECONDS_PER_HOUR:.4g}"
 
 
 def component_table(results):
@@ -32,44 +50,85 @@ def component_table(results):
                 name,
                 component["equilibrium_model"],
                 percent(results["fraction_absorbed"][name]),
-                kmol_per_hour(lost) if lost > 0.0 else "-",
+                kg_per_hour(lost * component["molar_mass_kg_per_mol"]) if lost > 0.0 else "-",
                 number(results["convergence"]["component_closure"][name], 2),
             )
         )
-    return ["component", "model", "absorbed [%]", "lost to gas [kmol/h]", "balance closure [-]"], rows
+    return ["component", "model", "absorbed [%]", "net lost to gas [kg/h]", "balance closure [-]"], rows
 
 
 def heat_table(results):
-    """Where the heat released by absorption went [kW]."""
-    heat = results["heat"]
-    labels = (
-        ("released_W", "released by absorption"),
-        ("liquid_heating_W", "heating the liquid"),
-        ("gas_heating_W", "heating the gas"),
-        ("evaporation_W", "evaporating solvent"),
-        ("removed_by_coolers_W", "removed by coolers"),
-        ("other_W", "carried by extra feeds and draws"),
-    )
-    rounding = 1e-9 * max(abs(heat[key]) for key, _ in labels)  # closure noise, shown as 0
-    return ["heat", "[kW]"], [(label, kilowatt(heat[key] if abs(heat[key]) > rounding else 0.0)) for key, label in labels]
+    """The heat budget [kW]: heat each component gives the liquid (each solute's absorption, the
+    solvent's condensation or evaporation apart), then where the heat released went."""
+    heat, solvent = results["heat"], results["column"]["solvent"]
+    terms = heat.get("by_component_W") or {}
+    scale = max([abs(heat[k]) for k in HEAT_SINKS] + [abs(heat["released_W"])])
+    rounding = 1e-9 * scale  # closure noise, shown as 0
+    rows = []
+    for name, term in terms.items():
+        if term is None or abs(term) <= rounding:
+            continue
+        if name == solvent:
+            label = f"condensation of {name}" if term > 0.0 else f"evaporation of {name}"
+        else:
+            label = f"absorption of {name}" if term > 0.0 else f"desorption of {name}"
+        rows.append((label, "released" if term > 0.0 else "taken up", kilowatt(abs(term))))
+    rows.append(("total released in the liquid", "released", kilowatt(heat["released_W"])))
+    for key, label in HEAT_SINKS.items():
+        if key == "evaporation_W":
+            continue  # listed per component above
+        value = heat[key]
+        rows.append((label, "taken up", kilowatt(value if abs(value) > rounding else 0.0)))
+    return ["heat", "", "[kW]"], rows
+
+
+HEAT_SINKS = {
+    "evaporation_W": "evaporating components",
+    "liquid_heating_W": "heating the liquid",
+    "gas_heating_W": "heating the gas",
+    "removed_by_coolers_W": "removed by coolers",
+    "other_W": "carried by extra feeds and draws",
+}
+
+
+def water_balance_lines(results):
+    """The solvent's balance in sentences: evaporated, condensed, make-up or gain [kg/h]."""
+    balance = results.get("solvent_balance")
+    if balance is None:
+        return []
+    name = balance["solvent"]
+    lines = [f"{name.capitalize()} evaporated on the stages where it leaves the liquid: "
+             f"{kg_per_hour(balance['evaporated_kg_per_s'])} kg/h; condensed where it returns: "
+             f"{kg_per_hour(balance['condensed_kg_per_s'])} kg/h."]
+    if balance["make_up_kg_per_s"] > 0.0:
+        lines.append(f"Net, the gas carries away {kg_per_hour(balance['make_up_kg_per_s'])} kg/h of {name}: "
+                     f"make-up {name} needed {kg_per_hour(balance['make_up_kg_per_s'])} kg/h.")
+    elif balance["gained_kg_per_s"] > 0.0:
+        lines.append(f"Net, the liquid takes up {kg_per_hour(balance['gained_kg_per_s'])} kg/h of {name} from the "
+                     f"gas: no make-up needed (the liquid leaves diluted by it).")
+    else:
+        lines.append(f"Net, no {name} passes between the phases: no make-up needed.")
+    return lines
 
 
 def stage_profile_table(results):
     """Per stage: temperature, pressure, flows, key-solute fractions, heat removed."""
+    units = Display(results["display_units"])
     stages = results["stages"]
     names = [component["name"] for component in results["components"]]
     key = results["column"]["key_component"]
     i = names.index(key)
-    headers = ["stage", "T [degC]", "P [kPa]", "V [kmol/h]", "L [kmol/h]", f"y {key}", f"x {key}", "Q removed [kW]"]
+    headers = ["stage", f"T [{units.t_unit}]", f"P [{units.p_unit}]", "V [kmol/h]", "L [kmol/h]", f"y {key}",
+               f"x {key}", "Q removed [kW]"]
     rows = [
         (
             str(stage),
-            celsius(stages["temperature_K"][j]),
-            kilopascal(stages["pressure_Pa"][j]),
+            units.temperature(stages["temperature_K"][j]),
+            units.pressure(stages["pressure_Pa"][j]),
             kmol_per_hour(stages["vapour_flow_mol_per_s"][j]),
             kmol_per_hour(stages["liquid_flow_mol_per_s"][j]),
-            number(stages["vapour_mole_fractions"][j][i]),
-            number(stages["liquid_mole_fractions"][j][i]),
+            fraction(stages["vapour_mole_fractions"][j][i]),
+            fraction(stages["liquid_mole_fractions"][j][i]),
             kilowatt(stages["heat_removed_W"][j]),
         )
         for j, stage in enumerate(stages["stage"])
@@ -95,27 +154,37 @@ def column_lines(results):
     text = f"{column['theoretical_stages']} theoretical stages, {column['mode']}"
     if column["actual_trays"] is not None:
         text += f"; overall efficiency {column['overall_efficiency']:g} gives {column['actual_trays']} actual trays"
+    units = Display(results["display_units"])
     top = column["top_pressure_Pa"]
     drop = column["pressure_drop_Pa_per_stage"]
     solvent, gas = results["solvent_in"], results["gas_in"]
     coolers = sum(q for q in results["stages"]["heat_removed_W"] if q > 0.0)
     lines = [
         text + ".",
-        f"Top pressure {kilopascal(top)} kPa, {drop / 1e3:.2f} kPa per stage. Solvent ({column['solvent']}) "
-        f"{kmol_per_hour(solvent['flow_mol_per_s'])} kmol/h at {celsius(solvent['temperature_K'])} degC; gas "
-        f"{kmol_per_hour(gas['flow_mol_per_s'])} kmol/h at {celsius(gas['temperature_K'])} degC.",
+        f"Top pressure {units.pressure(top)} {units.p_unit}, {drop / 1e3:.2f} kPa per stage. Solvent "
+        f"({column['solvent']}) {_flow(units, solvent)} at {units.temperature(solvent['temperature_K'])} "
+        f"{units.t_unit}; gas {_flow(units, gas)} at {units.temperature(gas['temperature_K'])} {units.t_unit}.",
     ]
     if coolers > 0.0:
         lines.append(f"Coolers remove {kilowatt(coolers)} kW.")
     return lines
 
 
+def _flow(units, stream):
+    """A stream's flow in the case's unit, kmol/h beside a mass unit."""
+    shown = f"{units.flow(stream['flow_mol_per_s'], stream['mass_flow_kg_per_s'])} {units.flow_unit}"
+    if units.flow_unit == "kmol/h":
+        return shown
+    return f"{shown} ({kmol_per_hour(stream['flow_mol_per_s'])} kmol/h)"
+
+
 def temperature_line(results):
     """Hottest stage and the outlet temperatures in one sentence."""
-    t = results["temperatures"]
+    units = Display(results["display_units"])
+    t, u = results["temperatures"], units.t_unit
     return (
-        f"Hottest stage {t['hottest_stage']} at {celsius(t['max_temperature_K'])} degC; gas leaves at "
-        f"{celsius(t['gas_out_temperature_K'])} degC, liquid at {celsius(t['liquid_out_temperature_K'])} degC."
+        f"Hottest stage {t['hottest_stage']} at {units.temperature(t['max_temperature_K'])} {u}; gas leaves at "
+        f"{units.temperature(t['gas_out_temperature_K'])} {u}, liquid at {units.temperature(t['liquid_out_temperature_K'])} {u}."
     )
 
 

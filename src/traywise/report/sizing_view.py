@@ -41,6 +41,8 @@ SIZING_KEYS = {
     "sizing.stages.surface_tension_N_per_m": "(N,) [N/m]",
     "sizing.stages.flow_parameter": "F_LV = (L/G)(rho_G/rho_L)^0.5 (N,) [-]",
     "sizing.stages.hetp_m": "HETP of each stage (packing) (N,) [m], or null",
+    "sizing.stages.fractional_entrainment": "psi = e/(L + e) of each tray, Fair's entrainment chart (trays) (N,) [-], or null",
+    "sizing.worst_fractional_entrainment": "the highest fractional entrainment of any tray (trays) [-], or null",
     "sizing.methods": "the correlations and mixing rules used, in words with their sources",
     "sizing.warnings": "the checks that failed (weeping, downcomer backup, wetting, flood ...) and property extrapolations",
 }
@@ -67,6 +69,7 @@ def sizing_json(sizing):
         "surface_tension_N_per_m": _list(p.surface_tension),
         "flow_parameter": _list(p.flow_parameter),
         "hetp_m": None if trays else _list(h.hetp),
+        "fractional_entrainment": _list(h.entrainment) if trays else None,
     }
     return {
         "kind": sizing.kind,
@@ -82,6 +85,7 @@ def sizing_json(sizing):
         "tray_spacing_m": sizing.internals.tray_spacing if trays else None,
         "downcomer_area_fraction": h.downcomer_area_fraction if trays else None,
         "weir_length_m": h.weir_length if trays else None,
+        "worst_fractional_entrainment": float(np.max(h.entrainment)) if trays else None,
         "bed_height_m": sizing.bed_height,
         "beds": sizing.beds,
         "column_height_m": sizing.column_height,
@@ -95,11 +99,14 @@ def sizing_json(sizing):
 def _methods(sizing):
     yield from sizing.notes
     if sizing.kind == "trays":
-        yield ("flooding: Fair, Petro/Chem Eng. 33(10) (1961) 45, curve fit of Lygeros & Magoulas, Hydrocarbon "
-               "Proc. 65(12) (1986) 43, with surface-tension, foaming and hole-area factors")
+        yield ("flooding: Fair, Petro/Chem Eng. 33(10) (1961) 45, his chart as digitized and fitted by libpf.com (2012) "
+               "from Perry's Chemical Engineers' Handbook, 7th ed., Fig. 14-26, with surface-tension, foaming and "
+               "hole-area factors")
         yield ("tray pressure drop: dry tray (orifice equation) + aerated clear liquid over the weir (Francis weir) "
                "+ residual head 6 sigma/(g rho_L d_h)")
-        yield "downcomer backup, residence time and weeping (hole Froude number, Lockett 1986) checked; entrainment not estimated"
+        yield "downcomer backup, residence time and weeping (hole Froude number, Lockett 1986) checked"
+        yield ("fractional entrainment: Fair's entrainment chart (1961), approximate readings recalled from memory "
+               "(indicative); limit 0.1 (common practice)")
     else:
         yield ("flooding and pressure drop: Stichlmair, Bravo & Fair, Gas Sep. Purif. 3 (1989) 19, or pressure drop by "
                "Robbins, Chem. Eng. Prog. 87(5) (1991) 87, both through fluids.packed_tower (ChEDL)")
@@ -152,7 +159,8 @@ def sizing_markdown(record):
     rows += [(key.replace("_", " "), _shown(value)) for key, value in s["internals"].items() if value is not None]
     if s["kind"] == "trays":
         rows += [("trays", s["trays"]), ("downcomer area / column area", f"{s['downcomer_area_fraction']:.3f}"),
-                 ("weir length", f"{s['weir_length_m']:.3f} m")]
+                 ("weir length", f"{s['weir_length_m']:.3f} m"),
+                 ("highest fractional entrainment", f"{s['worst_fractional_entrainment']:.3g} (Fair's chart; limit 0.1)")]
     else:
         rows += [("packed height", f"{s['bed_height_m']:.2f} m"), ("beds", s["beds"])]
     blocks = ["## Equipment datasheet", markdown_table(["item", "value"], rows),
@@ -209,7 +217,8 @@ def write_hydraulics_csv(path, sizing):
     if sizing.kind == "trays":
         columns.update(flooding_velocity_m_per_s=h.flooding_velocity, net_area_velocity_m_per_s=h.net_velocity,
                        weir_loading_m3_per_s_m=h.weir_loading, downcomer_backup_m=h.downcomer_backup,
-                       downcomer_residence_s=h.downcomer_residence, hole_froude_number=h.weep_froude)
+                       downcomer_residence_s=h.downcomer_residence, hole_froude_number=h.weep_froude,
+                       fractional_entrainment=h.entrainment)
     else:
         columns.update(flooding_velocity_m_per_s=h.flooding_velocity, gas_velocity_m_per_s=h.gas_velocity,
                        pressure_drop_Pa_per_m=h.pressure_drop_per_height, hetp_m=h.hetp, wetting_rate_m3_per_s_m=h.wetting_rate)

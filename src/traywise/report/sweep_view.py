@@ -12,24 +12,17 @@ import json
 import math
 
 from .. import __version__
-from ..properties.constants import ZERO_CELSIUS
 from .cautions import SAFETY_CAUTIONS, safety_one_line
 from .folder import MARKER, write_results_folder
 from .results import plain
-from .tables import SECONDS_PER_HOUR, markdown_table, percent, text_table
+from .sweep_labels import converter, is_whole, label, words
+from .tables import TRACE_FLOOR, TRACE_TEXT, markdown_table, percent, text_table
 
 CSV_FILE, FIGURE_FILE, RECORD_FILE, REPORT_FILE = "sweep.csv", "sweep.png", "sweep.json", "sweep.md"
 SI_SUFFIX = {"K": "_K", "W": "_W", "Pa": "_Pa", "mol/s": "_mol_per_s"}  # as in stages.csv and results.json
-# SI unit -> (display unit, conversion from SI); reports show degC, kW, kPa and kmol/h (tables.py)
-DISPLAY = {
-    "K": ("degC", lambda v: v - ZERO_CELSIUS),
-    "W": ("kW", lambda v: v / 1e3),
-    "Pa": ("kPa", lambda v: v / 1e3),
-    "mol/s": ("kmol/h", lambda v: v * SECONDS_PER_HOUR / 1e3),
-}
 
 
-def write_sweep(target, case, request, table, *, plots=True):
+def write_sweep(target, case, request, table, *, plots=True, designed=None):
     """Write the sweep's results folder ``target``; return the record written to sweep.json.
 
     Parameters
@@ -39,6 +32,8 @@ def write_sweep(target, case, request, table, *, plots=True):
     request : SweepRequest       What was swept (traywise.case.sweep)
     table : SweepTable           The points (traywise.design.sweep)
     plots : bool                 Draw sweep.png
+    designed : dict or None      The input a design solved for ("input", "value" [SI], "stage"),
+                                 when the sweep runs around the designed column
     """
     written = {}
 
@@ -51,11 +46,12 @@ def write_sweep(target, case, request, table, *, plots=True):
             writer.writerows(["" if value is None else repr(value) if isinstance(value, float) else value
                               for value in row] for row in rows)
         if plots:
+            files.append(FIGURE_FILE)
+        record = sweep_record(case, request, table, files, designed)
+        if plots:
             from .sweep_plot import write_sweep_plot
 
-            write_sweep_plot(folder / FIGURE_FILE, case.title, request, table)
-            files.append(FIGURE_FILE)
-        record = sweep_record(case, request, table, files)
+            write_sweep_plot(folder / FIGURE_FILE, record, table)
         (folder / REPORT_FILE).write_text(sweep_markdown(record), encoding="utf-8")
         (folder / RECORD_FILE).write_text(json.dumps(record, indent=2, allow_nan=False) + "\n", encoding="utf-8")
         written["record"] = record
@@ -76,7 +72,7 @@ def csv_table(request, table):
     return headers, rows
 
 
-def sweep_record(case, request, table, files):
+def sweep_record(case, request, table, files, designed=None):
     """The JSON-ready record of a sweep (sweep.json)."""
     headers, rows = csv_table(request, table)
     points = [dict(zip(headers, row)) for row in rows]
@@ -89,45 +85,60 @@ def sweep_record(case, request, table, files):
         "columns": headers,
         "points": plain(points),
         "failed_points": int(table.failed.size),
-        "warnings": sweep_warnings(case, request, table),
+        "display_units": getattr(case, "display_units", None),
+        "solvent_molar_mass_kg_per_mol": _solvent_molar_mass(case),
+        "design": _design(case, designed),
+        "warnings": list(dict.fromkeys(sweep_warnings(case, request, table, designed))),
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
 
 
-def sweep_warnings(case, request, table):
+def _solvent_molar_mass(case):
+    """Mean molar mass of the solvent feed [kg/mol]: its molar flow shown as a mass flow."""
+    solvent = case.column.solvent
+    return float(solvent.component_flows @ case.model.molar_mass / solvent.flow)
+
+
+def _design(case, designed):
+    """The design the sweep runs around: its target and limit (drawn on the outputs) and the
+    designed value of the input it solved for; None without a design carried out."""
+    if designed is None or getattr(case, "design", None) is None:
+        return None
+    return plain({**case.design.echo(), "key_component": case.key_component, "designed_input": designed["input"],
+                  "designed_value": designed["value"], "designed_cooler_stage": designed["stage"]})
+
+
+def sweep_warnings(case, request, table, designed=None):
     """The case's warnings, what was done to the range, and the points that failed."""
+    view = {"display_units": getattr(case, "display_units", None),
+            "solvent_molar_mass_kg_per_mol": _solvent_molar_mass(case)}
     warnings = [*case.warnings, *request.notes]
-    if getattr(case, "design", None) is not None:
-        warnings.append("the case's [design] table is not applied in a sweep: every point solves the column as written")
+    if designed is not None:
+        lo, hi = min(table.values), max(table.values)
+        if designed["input"] == request.variable and not lo <= designed["value"] <= hi:
+            warnings.append(f"the designed {words(request.variable)} lies outside the range swept")
     if table.failed.size:
         first = table.failed[0]
         warnings.append(
             f"{table.failed.size} of {table.values.size} points did not converge (marked in {CSV_FILE}); the first, "
-            f"{request.variable} = {_display_value(request.variable, request.unit, table.values[first])} "
-            f"{display_unit(request.variable, request.unit)[0]}: {table.messages[first]}"
+            f"{words(request.variable)} = {_display_value(view, request.variable, request.unit, table.values[first])} "
+            f"{converter(view, request.variable, request.unit)[0]}: {table.messages[first]}"
         )
     return warnings
 
 
-def display_unit(name, unit):
-    """(display unit, conversion from SI) of an input or output: degC, kW, kPa, kmol/h, and the
-    fraction absorbed in %."""
-    if name.startswith("fraction_absorbed"):
-        return "%", lambda v: 100.0 * v
-    return DISPLAY.get(unit, (unit, lambda v: v))
-
-
 def display_table(record):
-    """(headers, rows) of the points in display units, 'failed' where a point did not converge."""
+    """(headers, rows) of the points in words and the case's units, 'failed' where a point did
+    not converge."""
     sweep = record["sweep"]
     units = [sweep["unit"], *sweep["output_units"]]
     names = [sweep["input"], *sweep["outputs"]]
-    headers = [f"{name} [{display_unit(name, unit)[0]}]" for name, unit in zip(names, units)]
+    headers = [label(record, name, unit) for name, unit in zip(names, units)]
     rows = []
     for point in record["points"]:
         values = [point[column] for column in record["columns"] if column not in ("converged", "message")]
-        cells = [_display_value(name, unit, value) for name, unit, value in zip(names, units, values)]
+        cells = [_display_value(record, name, unit, value) for name, unit, value in zip(names, units, values)]
         if not point["converged"]:
             cells[1:] = ["failed"] * (len(cells) - 1)
         rows.append(cells)
@@ -140,8 +151,8 @@ def sweep_text(record, folder=None):
     spacing = "logarithmic" if sweep["log"] else "linear"
     parts = [
         f"traywise {record['software']['version']}: {record['case']['title']} ({record['case']['file']})",
-        f"Sweep of {sweep['input']} over {sweep['points']} points ({spacing} spacing); "
-        f"{sweep['points'] - record['failed_points']} converged.",
+        f"Sweep of the {words(sweep['input'])} over {sweep['points']} points ({spacing} spacing); "
+        f"{sweep['points'] - record['failed_points']} converged; {_base_text(record)}.",
         text_table(*display_table(record)),
         "Warnings:\n" + "\n".join(f"  - {w}" for w in record["warnings"]) if record["warnings"] else "Warnings: none.",
     ]
@@ -155,24 +166,44 @@ def sweep_markdown(record):
     """The text of sweep.md."""
     sweep = record["sweep"]
     blocks = [
-        f"# {record['case']['title']}: sweep of {sweep['input']}",
+        f"# {record['case']['title']}: sweep of the {words(sweep['input'])}",
         f"Case file `{record['case']['file']}`, swept by traywise {record['software']['version']}: {sweep['points']} "
-        f"points, {'logarithmic' if sweep['log'] else 'linear'} spacing; the column is solved at each point as the case "
-        f"writes it, with only {sweep['input']} changed. Machine-readable: `{CSV_FILE}` and `{RECORD_FILE}` (SI units).",
+        f"points, {'logarithmic' if sweep['log'] else 'linear'} spacing; {_base_text(record)}, with only the "
+        f"{words(sweep['input'])} changed. Machine-readable: `{CSV_FILE}` and `{RECORD_FILE}` (SI units, code names "
+        "of the inputs and outputs).",
     ]
     if record["case"]["notes"]:
         blocks += ["## Notes", record["case"]["notes"]]
     blocks += ["## Safety cautions", "\n".join(f"- {c}" for c in record["safety_cautions"]),
                "## Points", markdown_table(*display_table(record))]
     if FIGURE_FILE in record["files"]:
-        blocks += ["## Figure", f"![Outputs against {sweep['input']}]({FIGURE_FILE})"]
+        blocks += ["## Figure", f"![Outputs against the {words(sweep['input'])}]({FIGURE_FILE})"]
     blocks += ["## Warnings", "\n".join(f"- {w}" for w in record["warnings"]) or "None."]
     return "\n\n".join(blocks) + "\n"
 
 
-def _display_value(name, unit, value):
+def _base_text(record):
+    """How each point's column is set up: as written, or around the designed column."""
+    design = record.get("design")
+    if design is None:
+        return "the column is solved at each point as the case writes it"
+    name = design["designed_input"]
+    unit, convert = converter(record, name, "-" if name == "stages" else {"solvent_flow": "mol/s",
+                                                                          "cooler_duty": "W"}[name])
+    value = convert(design["designed_value"])
+    shown = f"{value:.0f}" if is_whole(name) else f"{value:.5g} {unit}"
+    return (f"each point starts from the designed column (the case's [design] solved for the {words(name)}: {shown}; "
+            "the other inputs as written)")
+
+
+def _display_value(record, name, unit, value):
     if value is None or (isinstance(value, float) and math.isnan(value)):
         return "-"
     if name.startswith("fraction_absorbed"):
         return percent(value, 5)
-    return f"{display_unit(name, unit)[1](value):.5g}"
+    if is_whole(name):
+        return f"{value:.0f}"
+    shown = converter(record, name, unit)[1](value)
+    if unit == "-" and 0.0 < abs(shown) < TRACE_FLOOR:
+        return TRACE_TEXT
+    return f"{shown:.5g}"

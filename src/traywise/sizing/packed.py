@@ -182,14 +182,52 @@ def _first_diameter(properties, internals, j):
 
 
 def _stage_root(properties, internals, j, start):
-    """Diameter [m] at which stage ``j`` runs at ``fraction_of_flood``, bracketed from ``start``."""
+    """Diameter [m] at which stage ``j`` runs at ``fraction_of_flood``, from ``start``.
+
+    Secant steps on ln(fraction / target) against ln D (nearly straight: the gas velocity goes as
+    1/D^2), each one call to fluids; a step into the region where the flooding model has no
+    solution is halved back. Falls back to Brent's method on a bracket if the steps stall."""
+    packing, target = internals.data, internals.fraction_of_flood
+
+    def log_excess(x):
+        area = np.pi * np.exp(2.0 * x) / 4.0
+        try:
+            flood = _flooding_velocity(packing, properties.liquid_volume_flow[j] / area, properties, j)
+        except (ArithmeticError, ValueError, UnboundLocalError):  # fluids' Newton fails deep in flood
+            return None
+        fraction = properties.gas_volume_flow[j] / area / flood
+        return float(np.log(fraction / target)) if np.isfinite(fraction) and flood > 0.0 else None
+
+    x0 = float(np.log(start))
+    h0 = log_excess(x0)
+    while h0 is None:
+        x0 += np.log(1.25)
+        if x0 > np.log(100.0):
+            raise SizingInputError("diameter", f"stage {j + 1} would need a packed column above 100 m across")
+        h0 = log_excess(x0)
+    x1 = x0 + h0 / 2.0  # fraction ~ D^-2
+    for _ in range(40):
+        h1 = log_excess(x1)
+        while h1 is None:  # stepped into flood: back towards the last valid point
+            x1 = 0.5 * (x0 + x1)
+            h1 = log_excess(x1)
+        if abs(h1) < 1e-12 or h1 == h0:
+            return float(np.exp(x1))
+        x0, h0, x1 = x1, h1, x1 - h1 * (x1 - x0) / (h1 - h0)
+        if abs(x1 - x0) < 1e-13:
+            return float(np.exp(x1))
+    return _bracketed_root(properties, internals, j, float(np.exp(x1)))
+
+
+def _bracketed_root(properties, internals, j, start):
+    """Brent's method on a bracket grown from ``start`` (the fallback of ``_stage_root``)."""
     packing, target = internals.data, internals.fraction_of_flood
 
     def excess(diameter):
         area = np.pi * diameter ** 2 / 4.0
         try:
             flood = _flooding_velocity(packing, properties.liquid_volume_flow[j] / area, properties, j)
-        except (ArithmeticError, ValueError, UnboundLocalError):  # fluids' Newton fails deep in flood
+        except (ArithmeticError, ValueError, UnboundLocalError):
             return FLOODED
         fraction = properties.gas_volume_flow[j] / area / flood - target
         return fraction if np.isfinite(fraction) and flood > 0.0 else FLOODED

@@ -3,7 +3,8 @@
 Each stage's vapour and liquid are the streams leaving it, at its temperature and pressure.
 Mixing rules (named in ``MIXING_RULES``):
 - gas density: ideal gas, rho = P M / (R T) (absorbers run near atmospheric pressure);
-- gas viscosity: Wilke (J. Chem. Phys. 18 (1950) 517), via chemicals.Wilke_prefactored;
+- gas viscosity: Wilke (J. Chem. Phys. 18 (1950) 517), over all stages at once (``wilke_viscosity``,
+  checked against chemicals.Wilke in the tests);
 - liquid density: ideal mixing of the pure liquids' volumes over the components that have liquid
   data (the solvent and other condensables); dissolved gases add mass but no volume;
 - liquid viscosity: ln mu = sum x_j ln mu_j over the same components (Arrhenius, the
@@ -91,10 +92,25 @@ class StageLoads:
         return self.liquid_mass_flow / self.gas_mass_flow * np.sqrt(self.gas_density / self.liquid_density)
 
 
+def wilke_viscosity(mole_fractions, viscosities, molar_masses):
+    """Gas-mixture viscosity [Pa s] by Wilke's rule, every stage at once.
+
+    mu = sum_i y_i mu_i / sum_j y_j Phi_ij,
+    Phi_ij = (1 + (mu_i/mu_j)^0.5 (M_j/M_i)^0.25)^2 / (8 (1 + M_i/M_j))^0.5.
+
+    mole_fractions, viscosities : (N, c) [-], [Pa s]; molar_masses : (c,) [any consistent unit].
+    Source: C. R. Wilke, J. Chem. Phys. 18 (1950) 517; B. E. Poling, J. M. Prausnitz, J. P. O'Connell,
+    The Properties of Gases and Liquids, 5th ed. (2001), eq. 9-5.13 and 9-5.14.
+    """
+    mu_ratio = np.sqrt(viscosities[:, :, None] / viscosities[:, None, :])
+    mass_ratio = molar_masses[:, None] / molar_masses[None, :]
+    phi = (1.0 + mu_ratio * mass_ratio.T[None] ** 0.25) ** 2 / np.sqrt(8.0 * (1.0 + mass_ratio))[None]
+    denominator = np.einsum("nij,nj->ni", phi, mole_fractions)
+    return (mole_fractions * viscosities / denominator).sum(axis=1)
+
+
 def stage_loads(solution, components, key_component):
     """StageLoads of a converged ``ColumnSolution``; ``components`` in the solution's order."""
-    from chemicals import Wilke_prefactored, Wilke_prefactors
-
     names = list(solution.component_names)
     if key_component not in names:
         raise SizingInputError("key_component", f"'{key_component}' is not a component of the solution ({names})")
@@ -131,9 +147,7 @@ def stage_loads(solution, components, key_component):
         warnings.append(f"no gas viscosity for {', '.join(missing)}: left out of the gas viscosity mixing")
     has_gas = np.array(gas_data)
     gas_mu = np.column_stack([d.gas_viscosity(t) for d in data if d.gas_viscosity is not None])
-    prefactors = Wilke_prefactors(list(1e3 * molar_mass[has_gas]))
-    gas_viscosity = np.array([Wilke_prefactored(list(y[j, has_gas] / y[j, has_gas].sum()), list(gas_mu[j]), *prefactors)
-                              for j in range(t.size)])
+    gas_viscosity = wilke_viscosity(y[:, has_gas] / y[:, has_gas].sum(axis=1, keepdims=True), gas_mu, molar_mass[has_gas])
     gas_density = p * gas_molar_mass / (GAS_CONSTANT * t)
 
     volumes = np.array([np.nan if d.diffusion_volume is None else d.diffusion_volume for d in data])

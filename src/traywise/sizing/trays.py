@@ -5,9 +5,9 @@ Design: the net area each stage needs at ``fraction_of_flood`` of Fair's floodin
 (``fair.py``), with one downcomer area fraction for the whole column (the largest any stage's
 flow parameter asks for); the stage needing the largest diameter sets it. Rating: at a
 diameter, each stage's percent of flood, tray pressure drop (dry tray + clear-liquid head +
-residual head), weir crest and loading, downcomer backup and residence time, and a weep check.
-Entrainment is not estimated (Fair's entrainment chart has no fit here): keep the design at or
-below 80-85 % of flood, the range where that chart gives little entrainment (common practice).
+residual head), weir crest and loading, downcomer backup and residence time, a weep check, and
+the fractional entrainment from Fair's entrainment chart (``fair.fractional_entrainment``; readings
+recalled from memory, indicative), warned above 0.1.
 """
 
 from dataclasses import dataclass, field
@@ -21,7 +21,9 @@ from .fair import (
     TRAY_SPACING_RANGE,
     downcomer_area_fraction,
     fair_capacity_factor,
+    ENTRAINMENT_LIMIT,
     flooding_velocity,
+    fractional_entrainment,
     hole_area_factor,
     surface_tension_factor,
 )
@@ -107,6 +109,7 @@ class TrayHydraulics:
     downcomer_backup: np.ndarray  # clear liquid [m]
     downcomer_residence: np.ndarray  # [s]
     weep_froude: np.ndarray  # [-]
+    entrainment: np.ndarray  # fractional, psi = e/(L + e) [-]
     warnings: tuple = field(default=())
 
     @property
@@ -196,6 +199,7 @@ def rate_trays(properties, internals, diameter):
         fraction_of_flood=net_velocity / flood, flooding_velocity=flood, net_velocity=net_velocity,
         stage_pressure_drop=head * rho_l * GRAVITY, dry_head=dry, liquid_head=clear, weir_crest=crest,
         weir_loading=loading, downcomer_backup=backup, downcomer_residence=residence, weep_froude=froude,
+        entrainment=fractional_entrainment(properties.flow_parameter, net_velocity / flood),
     )
     return _with_warnings(hydraulics, properties)
 
@@ -210,9 +214,10 @@ def _with_warnings(h, properties):
     internals, warnings = h.internals, []
     checks = (
         (h.fraction_of_flood > 1.0, "above 100 % of flood: the trays flood"),
-        (h.fraction_of_flood > 0.85, "above 85 % of flood: entrainment may be significant (Fair's entrainment chart, not evaluated)"),
+        (h.entrainment > ENTRAINMENT_LIMIT, "fractional entrainment above 0.1 (Fair's entrainment chart, readings recalled "
+         "from memory): efficiency falls; lower the fraction of flood or widen the tray spacing"),
         ((properties.flow_parameter < FLOW_PARAMETER_RANGE[0]) | (properties.flow_parameter > FLOW_PARAMETER_RANGE[1]),
-         "flow parameter outside Fair's chart (0.01-1.0): flooding extrapolated"),
+         "flow parameter outside Fair's chart (0.01-1.0): flooding taken at the chart's edge"),
         (h.weir_loading < WEIR_LOADING_RANGE[0], "weir loading below 2 m3/(h m): poor liquid distribution; consider a picket-fence weir"),
         (h.weir_loading > WEIR_LOADING_RANGE[1], "weir loading above 90 m3/(h m): consider more liquid passes"),
         (h.downcomer_backup > BACKUP_LIMIT * (internals.tray_spacing + internals.weir_height),

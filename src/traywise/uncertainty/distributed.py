@@ -10,6 +10,7 @@ Reference: dask.distributed documentation, https://distributed.dask.org (Client,
 
 import os
 
+from ..workers import issue_again, recording_warnings
 from .samples import chunks, solve_chunk
 
 CHUNKS_PER_WORKER = 8  # enough chunks for progress and load balance, few enough for low overhead
@@ -44,14 +45,15 @@ def run_dask(job, factors, *, scheduler=None, progress=None, workers=None):
         n_workers = max(1, len(client.scheduler_info()["workers"]))
         shared = client.scatter(job, broadcast=True)
         pieces = chunks(len(factors), n_workers * CHUNKS_PER_WORKER)
-        futures = [client.submit(solve_chunk, shared, factors[r.start:r.stop], pure=False) for r in pieces]
+        futures = [client.submit(recording_warnings, solve_chunk, shared, factors[r.start:r.stop], pure=False) for r in pieces]
         done = 0
         for future in as_completed(futures):
             done += len(pieces[futures.index(future)])
             if progress:
                 progress(done, len(factors))
         results = []
-        for chunk_results in client.gather(futures):
+        for chunk_results, caught in client.gather(futures):  # the workers' warnings, issued here
+            issue_again(caught)
             results.extend(chunk_results)
         return results
     finally:

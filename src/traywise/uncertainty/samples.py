@@ -23,9 +23,9 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from ..design.sweep import _end_with_parent as end_with_parent  # the sweep's worker initialiser, shared
 from ..errors import TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
+from ..workers import end_with_parent, issue_again, recording_warnings
 from .perturb import perturbed_model
 
 MAX_CHUNK = 25  # samples per chunk at most: progress stays live, and a chunk's overhead stays small
@@ -137,7 +137,8 @@ def run_local(job, factors, *, processes=1, progress=None):
     pieces = chunks(total, max(processes * 4, math.ceil(total / MAX_CHUNK)))
     results = []
     with ProcessPoolExecutor(max_workers=processes, initializer=_start_worker, initargs=(job, os.getpid())) as pool:
-        for chunk_results in pool.map(_solve_rows, [factors[r.start:r.stop] for r in pieces]):
+        for chunk_results, caught in pool.map(_solve_rows, [factors[r.start:r.stop] for r in pieces]):
+            issue_again(caught)
             results.extend(chunk_results)
             if progress:
                 progress(len(results), total)
@@ -156,4 +157,5 @@ def _start_worker(job, parent):
 
 
 def _solve_rows(rows):
-    return solve_chunk(_WORKER_JOB, rows)
+    """``solve_chunk`` in a worker process: (its results, the warnings it raised)."""
+    return recording_warnings(solve_chunk, _WORKER_JOB, rows)

@@ -1,0 +1,313 @@
+"""Chemical equilibrium of an aqueous electrolyte on many stages at once.
+
+Unknowns: y = ln m of every species [m in mol per kg of the water actually present: the
+apparent water less what OH-, HCO3-, CO3--, HSO3-, SO3-- bind, plus what NaOH brings; r =
+true/apparent water is explicit in y]. Rows, one per species:
+  derived species s   sum_j C_sj (y_j + ln gamma_j) - nu_w,s ln a_w - ln K_s(T) = 0
+                      (mass action from the master species H+, NH3, CO2, H2S, SO2)
+  H+                  charge balance sum z_s m_s / sum |z_s| m_s = 0
+  molecular solute j  mass balance r sum_s A_sj m_s / T_j - 1 = 0 (T_j: apparent molality,
+                      per kg of apparent water)
+  Cl-, Na+            y + ln r - ln T_j = 0 (HCl and NaOH are fully dissociated)
+with activity coefficients and water activity from ``pitzer.Pitzer``. Newton's method with the
+exact Jacobian (the Pitzer Hessian included) runs on all stages together as batched (n, s, s)
+solves; the step is limited to MAX_STEP in ln m. It starts from the last solution of the same
+shape, else from the ideal-solution charge balance solved by bisection in ln m(H+).
+
+The same Jacobian gives the implicit-function derivatives of the solution with respect to
+temperature and to each apparent molality (``Equilibrium.sensitivity``).
+
+Reference: T. J. Edwards, G. Maurer, J. Newman, J. M. Prausnitz, AIChE J. 24 (1978) 966-976.
+"""
+
+from dataclasses import dataclass, fields
+
+import numpy as np
+
+from ...errors import PropertyRangeError
+from .data import coefficient_terms
+from .pitzer import Pitzer
+
+MAX_STEP = 3.0  # largest change of any ln m in one Newton step
+TOLERANCE = 1e-6  # on the largest ln m change; the last step is taken (error about its square)
+MAX_ITERATIONS = 60
+MOLALITY_FLOOR = 1e-9  # mol/kg: apparent molalities below this are taken as this (a trace)
+LN_M_RANGE = (-700.0, 12.0)  # ln m [mol/kg] kept inside this during the iteration (no overflow)
+LN_H_BRACKET = (-46.0, 5.0)  # ln m(H+) bracket of the cold start (pH -2 to 20)
+
+SOLUTES = ("NH3", "CO2", "H2S", "SO2", "HCl", "NaOH")
+MOLECULAR = ("NH3", "CO2", "H2S", "SO2")
+# species: charge, masters {name: nu}, nu of water, reactions {name: coefficient}, solutes needed
+SPECIES = {
+    "H+": (1, {}, 0, {}, ()),
+    "OH-": (-1, {"H+": -1}, 1, {"water": 1}, ()),
+    "NH3": (0, {}, 0, {}, ("NH3",)),
+    "NH4+": (1, {"NH3": 1, "H+": 1}, 0, {"ammonia": 1, "water": -1}, ("NH3",)),
+    "CO2": (0, {}, 0, {}, ("CO2",)),
+    "HCO3-": (-1, {"CO2": 1, "H+": -1}, 1, {"carbon_dioxide_1": 1}, ("CO2",)),
+    "CO3--": (-2, {"CO2": 1, "H+": -2}, 1, {"carbon_dioxide_1": 1, "carbon_dioxide_2": 1}, ("CO2",)),
+    "NH2COO-": (-1, {"NH3": 1, "CO2": 1, "H+": -1}, 0, {"carbamate": 1, "carbon_dioxide_1": 1}, ("NH3", "CO2")),
+    "H2S": (0, {}, 0, {}, ("H2S",)),
+    "HS-": (-1, {"H2S": 1, "H+": -1}, 0, {"hydrogen_sulfide_1": 1}, ("H2S",)),
+    "SO2": (0, {}, 0, {}, ("SO2",)),
+    "HSO3-": (-1, {"SO2": 1, "H+": -1}, 1, {"sulfur_dioxide_1": 1}, ("SO2",)),
+    "SO3--": (-2, {"SO2": 1, "H+": -2}, 1, {"sulfur_dioxide_1": 1, "sulfur_dioxide_2": 1}, ("SO2",)),
+    "Cl-": (-1, {}, 0, {}, ("HCl",)),
+    "Na+": (1, {}, 0, {}, ("NaOH",)),
+}
+FIXED = {"Cl-": "HCl", "Na+": "NaOH"}
+
+
+@dataclass
+class Equilibrium:
+    """A solved speciation on n stages (arrays over stages first)."""
+
+    t: np.ndarray  # (n,) K
+    totals: np.ndarray  # (n, k) apparent molalities of the solutes, floored [mol/kg]
+    y: np.ndarray  # (n, s) ln m
+    m: np.ndarray  # (n, s) mol/kg
+    ln_gamma: np.ndarray
+    hessian: np.ndarray
+    ln_aw: np.ndarray
+    dln_aw_dm: np.ndarray
+    dln_gamma_dt: np.ndarray
+    dln_aw_dt: np.ndarray
+    ionic_strength: np.ndarray
+    jacobian: np.ndarray
+    dlnk_dt: np.ndarray  # (n, s) of the mass-action rows
+    iterations: int
+    dy_dt_before: np.ndarray | None = None  # d y/dT at the state before Newton's last step (n, s)
+
+    def head(self, n):
+        """The record of the first n stages."""
+        return Equilibrium(*(value[:n] if isinstance(value, np.ndarray) else value
+                             for value in (getattr(self, f.name) for f in fields(self))))
+
+    def sensitivity(self, system, temperature_only=False):
+        """d y / d T (n, s) and d y / d ln T_j (n, s, k) by the implicit-function theorem
+        (only d y / d T, and None, with temperature_only)."""
+        rhs = -system.dr_dt(self)[:, :, None]
+        if not temperature_only:
+            n = self.t.size
+            totals = np.broadcast_to(system.total_rows, (n,) + system.total_rows.shape).copy()
+            if system.sodium_column is not None:  # NaOH also changes the true water (r)
+                na = self.totals[:, system.sodium_column]
+                share = system.water_molar_mass * na / (1.0 + system.water_molar_mass * na)
+                totals[:, :, system.sodium_column] -= (system.weak_rows | system.fixed_rows) * share[:, None]
+            rhs = np.concatenate([rhs, totals], axis=2)
+        solved = np.linalg.solve(self.jacobian, rhs)
+        return solved[:, :, 0], (None if temperature_only else solved[:, :, 1:])
+
+
+class SpeciationSystem:
+    """The species and equations for one set of apparent solutes (a subset of SOLUTES)."""
+
+    def __init__(self, solutes, data, water_molar_mass):
+        self.solutes = tuple(s for s in SOLUTES if s in solutes)
+        present = set(self.solutes)
+        self.species = tuple(name for name, spec in SPECIES.items() if set(spec[4]) <= present)
+        s, k = len(self.species), len(self.solutes)
+        position = {name: i for i, name in enumerate(self.species)}
+        self.position = position
+        self.charges = np.array([SPECIES[name][0] for name in self.species], dtype=float)
+        self.derived = np.array([i for i, name in enumerate(self.species) if SPECIES[name][1]], dtype=int)
+        self.c = np.zeros((s, s))  # mass-action rows, on y + ln gamma
+        self.nu_w = np.zeros(s)
+        reaction_names = list(data.reactions)
+        combination = np.zeros((s, len(reaction_names)))
+        for i in self.derived:
+            _, masters, nu_w, reactions, _ = SPECIES[self.species[i]]
+            self.c[i, i] = 1.0
+            for master, nu in masters.items():
+                self.c[i, position[master]] -= nu
+            self.nu_w[i] = nu_w
+            for reaction, coefficient in reactions.items():
+                combination[i, reaction_names.index(reaction)] = coefficient
+        reaction_coefficients = np.array([data.reactions[r].coefficients for r in reaction_names])
+        self.ln_k_coefficients = combination @ reaction_coefficients  # (s, 4)
+        self.reactions_used = tuple(r for j, r in enumerate(reaction_names) if np.any(combination[:, j]))
+        self.ranges = [(data.reactions[r].t_min, data.reactions[r].t_max) for r in self.reactions_used]
+        # balance rows: charge on H+, mass balances on the molecular masters; fixed rows for Cl-, Na+
+        self.balance = np.zeros((s, s))
+        self.target = np.zeros(s)
+        self.fixed = np.zeros((s, s))
+        self.total_rows = np.zeros((s, k))  # d R / d ln T_j = -total_rows[:, j]: the row of solute j
+        self.balance[position["H+"]] = self.charges
+        for j, solute in enumerate(self.solutes):
+            if solute in MOLECULAR:
+                row = position[solute]
+                self.balance[row] = [1.0 if solute in SPECIES[name][1] or name == solute else 0.0 for name in self.species]
+                self.target[row] = 1.0
+            else:
+                row = position[next(name for name, owner in FIXED.items() if owner == solute)]
+                self.fixed[row, row] = 1.0
+            self.total_rows[row, j] = 1.0
+        self.solute_rows = self.total_rows.argmax(axis=0)  # the row of each solute
+        charge_row = np.zeros(s)
+        charge_row[position["H+"]] = 1.0
+        self.charge_row = charge_row.astype(bool)
+        self.weak_rows = self.target.astype(bool)
+        self.fixed_rows = np.diag(self.fixed).astype(bool)
+        self.constant_jacobian = self.c + self.fixed
+        self.water_molar_mass = water_molar_mass
+        self.sodium_row = position.get("Na+")
+        self.sodium_column = self.solutes.index("NaOH") if "NaOH" in self.solutes else None
+        index = {name: i for i, name in enumerate(self.species)}
+        salts = [(index[c], index[a], b0, b1) for c, a, b0, b1 in data.salts if c in index and a in index]
+        neutrals = [(index[i], index[j], a, b, c) for i, j, a, b, c, _, _ in data.neutrals if i in index and j in index]
+        self.neutral_ranges = [(lo, hi) for i, j, _, _, _, lo, hi in data.neutrals if i in index and j in index]
+        self.pitzer = Pitzer(self.charges, salts, neutrals, data.a_phi_coefficients, data.b, data.alpha, water_molar_mass)
+        self._cache = {}
+
+    # ------------------------------------------------------------------ equations
+    def _ln_k(self, t):
+        terms = coefficient_terms(t)  # (n, 3, 4)
+        both = terms[:, :2] @ self.ln_k_coefficients.T  # (n, 2, s)
+        return both[:, 0], both[:, 1]
+
+    def _residual_and_jacobian(self, y, t, ln_k, totals_rows, terms):
+        m = np.exp(y)
+        activity = self.pitzer.evaluate(m, t, terms)
+        ln_gamma, hessian, ln_aw, dln_aw_dm = activity[:4]
+        # r = (true water)/(apparent water): water bound in OH-, HCO3-, ... and set free by NaOH
+        denominator = 1.0 + self.water_molar_mass * (m @ self.nu_w)
+        ln_r = self._ln_r0(totals_rows) - np.log(denominator)
+        dln_r = -self.water_molar_mass * self.nu_w * m / denominator[:, None]  # d ln r / d y, (n, s)
+        weight = np.where(self.weak_rows, np.exp(ln_r)[:, None], 1.0)
+        scale = totals_rows.copy()
+        scale[:, self.charge_row] = (np.abs(self.charges) @ m.T)[:, None]
+        balance = (m @ self.balance.T) * weight / scale
+        r = (y + ln_gamma) @ self.c.T - ln_aw[:, None] * self.nu_w - ln_k
+        r += balance - self.target
+        r += (y + ln_r[:, None] - np.log(totals_rows)) @ self.fixed.T
+        n, s = m.shape
+        c_hessian = np.dot(hessian.reshape(-1, s), self.c.T).reshape(n, s, s).transpose(0, 2, 1)  # C H (H symmetric)
+        jacobian = c_hessian + (weight / scale)[:, :, None] * self.balance
+        jacobian *= m[:, None, :]
+        jacobian += self.constant_jacobian
+        # rank-two part: water activity in the mass action, r in the balances and fixed rows
+        left = np.stack([np.broadcast_to(-self.nu_w, m.shape), balance * self.weak_rows + self.fixed_rows], axis=2)
+        right = np.stack([dln_aw_dm * m, dln_r], axis=1)
+        jacobian += np.matmul(left, right)
+        return r, jacobian, m, activity
+
+    def _ln_r0(self, totals_rows):
+        """ln(1 + M_w T_NaOH) (n,): the water the dissolved hydroxide brings."""
+        if self.sodium_row is None:
+            return np.zeros(totals_rows.shape[0])
+        return np.log1p(self.water_molar_mass * totals_rows[:, self.sodium_row])
+
+    def dr_dt(self, eq):
+        """d R / d T at fixed y and totals (n, s) (the mass-action rows: ln K, ln gamma, ln a_w)."""
+        return eq.dln_gamma_dt @ self.c.T - eq.dln_aw_dt[:, None] * self.nu_w - eq.dlnk_dt
+
+    def _rows_of_totals(self, totals):
+        """Per stage and row, the apparent molality that row refers to (1 where none), (n, s)."""
+        rows = np.ones((totals.shape[0], len(self.species)))
+        rows[:, self.solute_rows] = totals
+        return rows
+
+    def _cold_start(self, t, totals, ln_k):
+        """Ideal-solution speciation from the charge balance, bisected in ln m(H+) (n, s);
+        species of two molecular masters (carbamate) start at zero."""
+        n = t.size
+        h = self.position["H+"]
+        groups = []  # (derived species, its molecular master or None)
+        for i in self.derived:
+            masters = [j for j in np.flatnonzero(self.c[i]) if j not in (i, h)]
+            if len(masters) <= 1:
+                groups.append((i, masters[0] if masters else None))
+        rows = self._rows_of_totals(totals)
+        low, high = np.full(n, LN_H_BRACKET[0]), np.full(n, LN_H_BRACKET[1])
+        for _ in range(56):
+            mid = 0.5 * (low + high)
+            positive = np.exp(self._ideal(mid, ln_k, rows, groups)) @ self.charges > 0.0
+            high = np.where(positive, mid, high)
+            low = np.where(positive, low, mid)
+        y = self._ideal(0.5 * (low + high), ln_k, rows, groups)
+        off_diagonal = self.c - np.diag(np.diag(self.c))
+        y[:, self.derived] = (ln_k - y @ off_diagonal.T)[:, self.derived]  # carbamate from its masters
+        return y
+
+    def _ideal(self, ln_h, ln_k, rows, groups):
+        """ln m of every species for ln m(H+) = ln_h (n,), ideal solution with a_w = 1."""
+        h = self.position["H+"]
+        y = np.full((ln_h.size, len(self.species)), -700.0)
+        y[:, h] = ln_h
+        relative = {i: ln_k[:, i] - self.c[i, h] * ln_h for i, _ in groups}  # ln m_i - ln m_master
+        for row in np.flatnonzero(self.weak_rows):
+            members = [i for i, master in groups if master == row]
+            y[:, row] = np.log(rows[:, row]) - np.logaddexp.reduce([np.zeros_like(ln_h)] + [relative[i] for i in members])
+            for i in members:
+                y[:, i] = y[:, row] + relative[i]
+        for i, master in groups:
+            if master is None:  # OH-: from H+ alone
+                y[:, i] = relative[i]
+        fixed = np.flatnonzero(np.diag(self.fixed))
+        y[:, fixed] = np.log(rows[:, fixed])
+        return y
+
+    # ------------------------------------------------------------------ solve
+    def solve(self, t, totals, start=None):
+        """Equilibrium at temperatures t (n,) [K] and apparent molalities totals (n, k) [mol/kg],
+        from ``start`` (ln m, (n, s)) if given, else the last solution of this shape."""
+        t = np.asarray(t, dtype=float)
+        totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
+        ln_k, dlnk_dt = self._ln_k(t)
+        rows = self._rows_of_totals(totals)
+        start = self._cache.get(t.shape) if start is None else start
+        for attempt in ("warm", "cold"):
+            if attempt == "cold" or start is None:
+                start = self._cold_start(t, totals, ln_k)
+            result = self._newton(start, t, ln_k, dlnk_dt, rows)
+            if result is not None:
+                break
+        else:
+            raise PropertyRangeError("the aqueous speciation did not converge (electrolyte liquid): "
+                                     f"temperatures {t.min():.1f}-{t.max():.1f} K, largest apparent molality {totals.max():.3g} mol/kg")
+        y, jacobian, m, activity, iterations, dy_dt = result
+        self._cache[t.shape] = y
+        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, iterations, dy_dt)
+
+    def evaluate_at(self, y, t, totals):
+        """The ``Equilibrium`` record of given ln m (n, s), without iterating (for states
+        predicted from a solved one by its sensitivities)."""
+        t = np.asarray(t, dtype=float)
+        totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
+        ln_k, dlnk_dt = self._ln_k(t)
+        terms = self.pitzer.temperature_terms(t)
+        _, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, self._rows_of_totals(totals), terms)
+        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, 0)
+
+    def _newton(self, y, t, ln_k, dlnk_dt, rows):
+        """Newton's method from y; returns (y, Jacobian before the last step, m, activity terms,
+        iterations, d y/dT before the last step), or None when it fails."""
+        with np.errstate(over="ignore", invalid="ignore"):  # a failing start is detected, not warned about
+            return self._newton_steps(np.clip(y, *LN_M_RANGE), t, ln_k, dlnk_dt, rows)
+
+    def _newton_steps(self, y, t, ln_k, dlnk_dt, rows):
+        terms = self.pitzer.temperature_terms(t)
+        for iteration in range(1, MAX_ITERATIONS + 1):
+            r, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, rows, terms)
+            dr_dt = activity[4] @ self.c.T - activity[5][:, None] * self.nu_w - dlnk_dt
+            try:
+                both = np.linalg.solve(jacobian, -np.stack([r, dr_dt], axis=2))  # the step and d y/dT
+            except np.linalg.LinAlgError:
+                return None
+            step = both[:, :, 0]
+            biggest = np.abs(step).max(axis=1, keepdims=True)
+            if not np.all(np.isfinite(biggest)):
+                return None
+            if biggest.max() < TOLERANCE:
+                # converged: take the last step, carrying ln gamma and ln a_w to first order (their
+                # error is then of the order of step**2); the Jacobian is the one before the step
+                y += step
+                m = np.exp(y)
+                dm = m * step
+                ln_gamma, hessian, ln_aw, dln_aw_dm, *rest = activity
+                ln_gamma = ln_gamma + np.matmul(hessian, dm[:, :, None])[:, :, 0]
+                ln_aw = ln_aw + (dln_aw_dm * dm).sum(axis=1)
+                return y, jacobian, m, (ln_gamma, hessian, ln_aw, dln_aw_dm, *rest), iteration, both[:, :, 1]
+            y += step * np.minimum(1.0, MAX_STEP / np.maximum(biggest, 1e-300))
+            np.clip(y, LN_M_RANGE[0], LN_M_RANGE[1], out=y)
+        return None
