@@ -61,6 +61,7 @@ NEEDS = {
     ),
     "table": (),
     "eos": (("critical_temperature", "a library component (critical constants and acentric factor)"),),
+    "electrolyte": (),  # water and a solute the aqueous electrolyte liquid knows (checked by the model)
 }
 
 

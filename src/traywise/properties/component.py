@@ -26,8 +26,9 @@ from .correlations import (
 WATER_CAS = "7732-18-5"
 EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a component's own default model
 # Models a property model can also give a component: they need more than the component's data
-# (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
-MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos")
+# (an activity model of the liquid, an equilibrium table, the other members of the aqueous
+# electrolyte liquid), so they are chosen per case.
+MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos", "electrolyte")
 
 
 @dataclass(frozen=True)

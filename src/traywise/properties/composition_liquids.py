@@ -9,7 +9,8 @@ temperatures, pressures and liquid mole fractions, to each composition-dependent
 
 The liquids are, in this order: the activity-coefficient liquid (``ActivityMembers``, around
 ``liquid.AnchoredLiquid``), each equilibrium-table solute (``TableSolute``), the Peng-Robinson
-liquid of the 'eos' components (``eos_liquid.EosLiquid``) and any further liquid with the same
+liquid of the 'eos' components (``eos_liquid.EosLiquid``), the aqueous electrolyte liquid of the
+'electrolyte' solutes (``electrolyte.AqueousElectrolyte``, built by ``aqueous_electrolyte``) and any further liquid with the same
 two methods (the hook a new composition-dependent liquid plugs into: ``PropertyModel`` takes it
 from ``liquids_of``). Whatever a liquid does to ln K, it must give h_L the matching enthalpy,
 h_L = h_V - R T**2 d ln K/dT at fixed x, so the van 't Hoff identity holds (DESIGN.md section 3).
@@ -25,6 +26,8 @@ from .constants import GAS_CONSTANT
 from .eos_liquid import EosLiquid
 from .equilibrium_table import TINY
 from .liquid import AnchoredLiquid
+
+SODIUM_HYDROXIDE_CAS = "1310-73-2"
 
 
 @dataclass
@@ -159,6 +162,34 @@ def eos_liquid(components, equilibrium):
     members = [i for i, kind in enumerate(equilibrium) if kind == "eos"]
     chosen = [components[i] for i in members]
     return EosLiquid(members, chosen, kij_matrix(chosen)[0]) if chosen else None
+
+
+def aqueous_electrolyte(components, equilibrium):
+    """The aqueous electrolyte liquid (``electrolyte.AqueousElectrolyte``) of the 'electrolyte'
+    solutes, with water (a 'raoult' component) and any non-volatile sodium hydroxide as members;
+    None without 'electrolyte' solutes (then sodium hydroxide is a plain non-volatile liquid, as
+    every component is under physical Henry's law). A solute the liquid does not know, or no
+    water, is refused."""
+    from .electrolyte import AqueousElectrolyte  # only cases with electrolytes load its data
+
+    caustic = [i for i, c in enumerate(components) if c.cas == SODIUM_HYDROXIDE_CAS and equilibrium[i] == "nonvolatile"]
+    solutes = [i for i, kind in enumerate(equilibrium) if kind == "electrolyte"]
+    if not solutes:
+        return None
+    for i in solutes:
+        if components[i].cas not in AqueousElectrolyte.SUPPORTED_CAS or components[i].is_water:
+            raise InputError(components[i].name, "equilibrium model 'electrolyte' is known for ammonia, carbon dioxide, "
+                             "hydrogen sulfide, sulfur dioxide, hydrogen chloride and sodium hydroxide in water "
+                             f"only (CAS {components[i].cas} is none of them)")
+    water = [i for i, c in enumerate(components) if c.is_water and equilibrium[i] == "raoult"]
+    if not water:
+        first = components[(solutes + caustic)[0]].name
+        raise InputError(first, "the aqueous electrolyte liquid needs water in the liquid, with equilibrium 'raoult'")
+    for i in solutes:
+        if components[i].cas == SODIUM_HYDROXIDE_CAS:
+            raise InputError(components[i].name, "sodium hydroxide is non-volatile: give it equilibrium 'nonvolatile' "
+                             "(it joins the electrolyte liquid by itself)")
+    return AqueousElectrolyte(components, sorted(water[:1] + solutes + caustic))
 
 
 def _position(names, name, where):

@@ -35,7 +35,7 @@ import numpy as np
 
 from ..errors import InputError
 from .component import MODEL_KINDS
-from .composition_liquids import ActivityMembers, StageArrays, eos_liquid, table_solutes
+from .composition_liquids import ActivityMembers, StageArrays, aqueous_electrolyte, eos_liquid, table_solutes
 from .constants import GAS_CONSTANT
 from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope
 from .heat_capacity import StackedHeatCapacities
@@ -134,6 +134,7 @@ class PropertyModel:
             "activity": ("henry_in_water", "vapour_pressure"),
             "table": (),
             "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
+            "electrolyte": (),  # its CAS number must be one the electrolyte liquid knows (aqueous_electrolyte)
         }[kind]
         missing = [key for key in needs if getattr(component, key) is None]
         if missing:
@@ -163,6 +164,10 @@ class PropertyModel:
             liquids.append(eos)
             if not self._liquid_index.size:
                 self.reference_liquid[eos.heaviest] = 1.0
+        electrolyte = aqueous_electrolyte(self.components, self.equilibrium)
+        if electrolyte is not None:
+            liquids.append(electrolyte)
+        self.electrolyte = electrolyte
         return liquids
 
     def _liquid_enthalpy_offsets(self, liquid):
@@ -256,7 +261,8 @@ class PropertyModel:
     def range_warnings(self, temperatures, liquid_mole_fractions=None):
         """Plain-language warnings for correlations used outside their valid temperature range,
         and for equilibrium tables used outside their temperatures or (given the liquid mole
-        fractions (n, c) of the stages) their loadings."""
+        fractions (n, c) of the stages) their loadings, and where the stages leave the aqueous
+        electrolyte liquid's stated range (the first n temperatures are the stages')."""
         t_low, t_high = float(np.min(temperatures)), float(np.max(temperatures))
         warnings = [
             f"{name}: {label} used from {t_low:.1f} K to {t_high:.1f} K, outside its "
@@ -268,7 +274,10 @@ class PropertyModel:
         if liquid_mole_fractions is not None:
             x = np.asarray(liquid_mole_fractions, dtype=float).reshape(-1, self.n_components)
         for liquid in self._liquids:
-            if hasattr(liquid, "range_warnings"):
+            if liquid is self.electrolyte:  # its range is the stages' (first temperatures, one per x)
+                if x is not None:
+                    warnings.extend(liquid.range_warnings(np.asarray(temperatures, dtype=float)[: len(x)], x))
+            elif hasattr(liquid, "range_warnings"):
                 warnings.extend(liquid.range_warnings(temperatures, x))
         if self.gas_phase is not None:
             warnings.extend(self.gas_phase.range_warnings(temperatures))
