@@ -250,7 +250,7 @@ class PropertyModel:
         correlation the model evaluates."""
         for component, kind in zip(self.components, self.equilibrium):
             used = [("ideal-gas heat capacity", component.ideal_gas_cp)]
-            if kind in ("henry", "activity"):
+            if kind in ("henry", "activity") or (kind == "electrolyte" and component.henry_in_water is not None):
                 used.append(("Henry's constant", component.henry_in_water))
             if kind in ("raoult", "nonvolatile"):
                 used.append(("liquid heat capacity", component.liquid_cp))

@@ -1,0 +1,46 @@
+"""Case files choosing the aqueous electrolyte liquid per solute (``equilibrium = "electrolyte"``)
+or physical Henry's law, and the clear refusal of a solute the liquid does not know.
+
+Check values: the pure-water limit of SO2's apparent Henry's constant follows from its first
+dissociation (K1 = 1.3e-2 mol/kg at 25 degC, the value the issue names; recalled from memory): with
+dissociation the apparent K of a dilute SO2 solution lies far below the physical one.
+"""
+
+from pathlib import Path
+
+import numpy as np
+import pytest
+
+from traywise.case import parse_case
+from traywise.errors import CaseError
+
+DEMO = Path(__file__).resolve().parents[1] / "cases" / "acid-gas-vent-scrubber.toml"
+FILE = Path("electrolyte.toml")
+
+
+def demo_with(extra):
+    return DEMO.read_text() + "\n" + extra
+
+
+def test_each_solute_chooses_the_electrolyte_liquid_or_henrys_law():
+    case = parse_case(demo_with('[component."sulfur dioxide"]\nequilibrium = "electrolyte"\n'), FILE)
+    names = case.model.names
+    assert case.model.equilibrium[names.index("sulfur dioxide")] == "electrolyte"
+    assert case.model.equilibrium[names.index("carbon dioxide")] == "henry"  # the library's own, unchanged
+    assert case.model.electrolyte is not None and case.key_component == "sulfur dioxide"
+    physical = parse_case(DEMO.read_text(), FILE)
+    assert physical.model.electrolyte is None
+    # dilute SO2 in water (1e-5 mole fraction) at 20 degC: bisulfite takes most of it, K falls
+    x = np.zeros((1, len(names)))
+    i, w = names.index("sulfur dioxide"), names.index("water")
+    x[0, i], x[0, w] = 1e-5, 1.0 - 1e-5
+    with_chemistry = case.model.evaluate([293.15], [1.05e5], x).k[0, i]
+    henry = physical.model.evaluate([293.15], [1.05e5], x).k[0, i]
+    assert with_chemistry < 0.2 * henry
+
+
+def test_a_solute_the_electrolyte_liquid_does_not_know_is_refused_naming_it():
+    with pytest.raises(CaseError) as raised:
+        parse_case(demo_with('[component.oxygen]\nequilibrium = "electrolyte"\n'), FILE)
+    message = str(raised.value)
+    assert "electrolyte.toml" in message and "oxygen" in message and "ammonia" in message
