@@ -44,3 +44,35 @@ def test_a_solute_the_electrolyte_liquid_does_not_know_is_refused_naming_it():
         parse_case(demo_with('[component.oxygen]\nequilibrium = "electrolyte"\n'), FILE)
     message = str(raised.value)
     assert "electrolyte.toml" in message and "oxygen" in message and "ammonia" in message
+
+
+def test_the_run_reports_ph_ionic_strength_and_species_on_every_stage(tmp_path):
+    import csv
+    import json
+
+    from traywise.report.outputs import write_outputs
+    from traywise.run import run_case
+
+    case = parse_case(demo_with('[component."sulfur dioxide"]\nequilibrium = "electrolyte"\n'), FILE)
+    run = run_case(case)
+    assert run.speciation is not None and run.speciation.ph.shape == (case.column.n_stages,)
+    write_outputs(tmp_path / "out", run)
+    record = json.loads((tmp_path / "out" / "results.json").read_text())
+    chemistry = record["electrolyte"]
+    assert "HSO3-" in chemistry["species"] and len(chemistry["pH"]) == case.column.n_stages
+    # the same speciation recomputed from the reported liquid: the record is the converged profile's
+    again = case.model.electrolyte.speciation(np.array(record["stages"]["temperature_K"]),
+                                              np.array(record["stages"]["liquid_mole_fractions"]))
+    assert chemistry["pH"] == pytest.approx(list(again.ph), rel=1e-9)
+    # charge balance of the reported species on every stage (electroneutrality)
+    m = {name: np.array(values) for name, values in chemistry["molality_mol_per_kg"].items()}
+    assert set(m) == {"H+", "OH-", "SO2", "HSO3-", "SO3--"}  # carbon dioxide stays physical
+    positive = m["H+"]
+    negative = m["OH-"] + m["HSO3-"] + 2.0 * m["SO3--"]
+    assert positive == pytest.approx(negative, rel=1e-6)
+    with open(tmp_path / "out" / "stages.csv", newline="") as stream:
+        rows = list(csv.DictReader(stream))
+    assert float(rows[0]["pH"]) == pytest.approx(chemistry["pH"][0], rel=1e-12)
+    assert "m_HSO3-_mol_per_kg" in rows[0] and "ionic_strength_mol_per_kg" in rows[0]
+    assert (tmp_path / "out" / "ph_profile.png").stat().st_size > 1000
+    assert "Liquid chemistry (aqueous electrolyte)" in (tmp_path / "out" / "report.md").read_text()

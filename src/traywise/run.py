@@ -56,6 +56,9 @@ class CaseRun:
                                                it needs (``traywise.mesh.phase_transfer``)
     liquid_volume_flows : dict or None   'solvent_in' and 'liquid_out' -> volume flow [m3/s] or
                                          None (``traywise.properties.liquid_volume``)
+    speciation : Speciation or None      The species, pH and ionic strength of the liquid on every
+                                         stage when the case uses the aqueous electrolyte liquid
+                                         (``traywise.properties.electrolyte``)
     notes : tuple of str          Why a side result is missing; library warnings in our words
     """
 
@@ -69,6 +72,7 @@ class CaseRun:
     sizing: object = None
     solvent_balance: object = None
     liquid_volume_flows: dict | None = None
+    speciation: object = None
 
     @property
     def warnings(self):
@@ -132,9 +136,12 @@ def complete_run(case, solution, *, design=None, settings=RunSettings()):
                 xy = None if other is None else other.isothermal_design
         balance = _side("the solvent balance", notes, lambda: _solvent_balance(case, solution))
         volumes = _side("the liquid volume flows", notes, lambda: _liquid_volumes(case, solution))
+        species = None
+        if getattr(case.model, "electrolyte", None) is not None:
+            species = _side("the speciation of the liquid", notes, lambda: _speciation(case, solution))
     notes.extend(note for note in library_warnings(caught) if note not in notes)
     notes.extend(_feed_pressure_notes(case, solution.column))
-    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing, balance, volumes)
+    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing, balance, volumes, species)
 
 
 def _feed_pressure_notes(case, column):
@@ -261,6 +268,11 @@ def _solvent_balance(case, solution):
     from .mesh.phase_transfer import solvent_balance
 
     return solvent_balance(solution, case.model.names.index(case.solvent))
+
+
+def _speciation(case, solution):
+    """The electrolyte liquid's species on every stage of the converged profile."""
+    return case.model.electrolyte.speciation(solution.temperature, solution.liquid_mole_fractions)
 
 
 def _liquid_volumes(case, solution):
