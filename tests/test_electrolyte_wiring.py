@@ -139,3 +139,10 @@ def test_hcl_absorbed_into_caustic_releases_solution_plus_neutralisation_in_the_
         released[caustic] = solution.heat.released / gas[2]
     assert -released[0.0] == pytest.approx(HCL_SOLUTION, rel=0.02)
     assert released[0.0] - released[2e-3] == pytest.approx(NEUTRALISATION, rel=0.03)
+
+
+def test_the_caustic_used_up_is_in_the_solutions_warnings_and_excess_caustic_gives_none():
+    for ratio, expected in ((0.5, True), (1.5, False)):
+        model, column, _, _ = caustic_column(ratio)
+        warnings = solve_column(column, model).warnings
+        assert any("sodium hydroxide is used up" in warning for warning in warnings) is expected, ratio
