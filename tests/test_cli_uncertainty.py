@@ -31,6 +31,8 @@ def test_uncertainty_writes_its_folder_and_says_how_sure(tmp_path):
     names = [o["name"] for o in record["outputs"]]
     assert names == ["outlet_ppmv:sulfur dioxide", "max_temperature"]
     assert any(i["default"] for i in record["inputs"]) and any(not i["default"] for i in record["inputs"])
+    # the demo rates 8 theoretical stages: its overall efficiency names the trays only, and says so
+    assert [line.split(":")[0] for line in record["not_sampled"]] == ["the overall efficiency"]
     with open(out / "samples.csv", encoding="utf-8") as stream:
         rows = list(csv.reader(stream))
     assert len(rows) == 13 and rows[0][-1] == "reason"

@@ -16,10 +16,14 @@ from traywise.sizing.column import ColumnSizing
 from traywise.sizing.packed import PackedHydraulics, PackedInternals
 from traywise.sizing.stage_loads import StageLoads
 from traywise.sizing.trays import TrayHydraulics, TrayInternals
+from traywise.uncertainty.analysis import UncertaintyResult
+from traywise.uncertainty.inputs import UncertainInput, UncertaintyRequest
+from traywise.uncertainty.statistics import OutputSummary
 
 PUBLIC_RECORDS = (Column, Feed, SideDraw, ColumnSolution, Convergence, HeatBreakdown, StageProperties, InertBasisDesign,
                   ColumnSizing, StageLoads, TrayInternals, TrayHydraulics, PackedInternals, PackedHydraulics, Comparison,
-                  SoluteComparison, IsothermalPoint, SolventBalance)
+                  SoluteComparison, IsothermalPoint, SolventBalance, UncertaintyResult, UncertainInput,
+                  UncertaintyRequest, OutputSummary)
 
 
 def _public_names(record):

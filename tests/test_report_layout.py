@@ -83,6 +83,12 @@ def test_html_report_renders_in_a_browser(demo, tmp_path):
     width, height = int.from_bytes(data[16:20], "big"), int.from_bytes(data[20:24], "big")
     assert (width, height) == (794, 1123)  # A4 at 96 dpi
     assert len(data) > 20_000  # a rendered page, not a blank one
+    pdf = tmp_path / "page.pdf"
+    subprocess.run([browser, "--headless", "--no-sandbox", "--disable-gpu", "--no-pdf-header-footer",
+                    f"--print-to-pdf={pdf}", (folder / "report.html").as_uri()], check=True, timeout=120,
+                   capture_output=True)
+    boxes = re.findall(rb"/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]", pdf.read_bytes())
+    assert boxes and all(abs(float(w) - 595.3) < 1.0 and abs(float(h) - 841.9) < 1.0 for w, h in boxes)  # A4 in points
 
 
 def test_streams_show_mass_and_molar_units_and_liquid_volume(demo):
@@ -221,3 +227,10 @@ def test_an_outlet_target_that_cannot_be_read_as_a_gas_concentration_is_refused(
     with pytest.raises(CaseError, match="design.outlet_mole_fraction") as error:
         case.with_changes(**{"design.outlet_mole_fraction": written})
     assert words in str(error.value)
+
+
+def test_trace_outlets_in_any_table_are_printed_below_the_floor():
+    from traywise.report.tables import number
+
+    assert number(1.7e-49) == "< 1e-12" and number(-3e-16, 2) == "< 1e-12"
+    assert number(0.0) == "0" and number(1.015e-07) == "1.015e-07"

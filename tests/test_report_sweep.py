@@ -112,3 +112,19 @@ def test_labels_for_every_output_are_words():
                 "iterations": "-", "liquid_out_temperature": "K"}[name]
         assert label(record, name, unit) == text
     assert words("stages") == "theoretical stages"
+
+
+def test_without_a_range_the_designed_input_is_swept_around_its_designed_value(tmp_path):
+    text = DEMO.read_text(encoding="utf-8")
+    case_file = tmp_path / "no-range.toml"
+    case_file.write_text(text[:text.index("\n[sweep]")] + "\n", encoding="utf-8")  # the design, no [sweep] table
+    folder = tmp_path / "sweep"
+    result = CliRunner().invoke(main, ["sweep", str(case_file), "--points", "5", "--output", "outlet_ppmv:ammonia",
+                                       "--out", str(folder)])
+    assert result.exit_code == 0, result.output
+    record = strict_json(folder / "sweep.json")
+    designed = record["design"]["designed_value"]
+    flows = [point["solvent_flow_mol_per_s"] for point in record["points"]]
+    assert flows == pytest.approx([0.5 * designed, 0.75 * designed, designed, 1.25 * designed, 1.5 * designed], rel=1e-12)
+    assert record["points"][2]["outlet_ppmv:ammonia"] == pytest.approx(30.0, rel=1e-3)  # the design's target
+    assert "swept around its designed value" in result.stdout

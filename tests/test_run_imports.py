@@ -60,3 +60,39 @@ def test_both_lapack_routes_solve_the_banded_system(below, above, monkeypatch):
     for x in solutions:
         assert np.allclose(x, expected, rtol=1e-9, atol=1e-9)
     assert len(solutions) == (2 if bundled else 1)
+
+
+def _modules_after(arguments, names):
+    """Which of ``names`` are in sys.modules after `traywise ARGUMENTS` in a fresh process."""
+    script = (
+        "import sys\n"
+        "from traywise.cli import main\n"
+        f"try:\n    main({arguments!r})\n"
+        "except SystemExit as end:\n    assert not end.code, end.code\n"
+        f"print(sorted(m for m in {tuple(names)!r} if m in sys.modules))\n"
+    )
+    env = {**os.environ, "PYTHONPATH": str(REPOSITORY / "src")}
+    finished = subprocess.run([sys.executable, "-c", script], capture_output=True, text=True, env=env, check=True)
+    return finished.stdout.strip().splitlines()[-1]
+
+
+# The case reader checks an [uncertainty] table (traywise.uncertainty.inputs); the loop itself
+# and its sampling stay unloaded on a plain run.
+OFF_EVERY_RUN = (
+    "scipy.optimize", "scipy.linalg", "matplotlib.pyplot", "CoolProp", "thermo", "dask", "SALib",
+    "traywise.uncertainty.analysis", "traywise.uncertainty.samples", "traywise.uncertainty.sampling", "traywise.databank",
+)
+
+
+def test_a_run_without_plots_loads_no_plotting_no_property_library_and_no_outer_loop(tmp_path):
+    names = OFF_EVERY_RUN + ("matplotlib", "traywise.report.plots")
+    out = str(tmp_path / "out")
+    assert _modules_after(["run", str(DEMO), "--no-plots", "--quiet", "--out", out], names) == "[]"
+
+
+def test_a_run_with_plots_draws_them_without_pyplot(tmp_path):
+    """Plots go through matplotlib.figure.Figure and the Agg canvas, never pyplot."""
+    names = OFF_EVERY_RUN
+    out = tmp_path / "out"
+    assert _modules_after(["run", str(DEMO), "--quiet", "--out", str(out)], names) == "[]"
+    assert (out / "composition_profiles.png").exists()

@@ -133,3 +133,26 @@ def test_secant_root_and_its_bracketed_fallback_agree(stages):
     for j in (0, stages.temperature.size - 1):
         for start in (0.05, 0.3, 3.0):  # from well inside flood to far below it
             assert _stage_root(stages, internals, j, start) == pytest.approx(_bracketed_root(stages, internals, j, 0.3), rel=1e-9)
+
+
+def test_warm_started_flooding_points_equal_fluids_stichlmair_flood(stages):
+    # flooding_fraction starts each stage's flooding point from its neighbour's; the answer must be
+    # fluids.packed_tower.Stichlmair_flood's own (cold-started) one at every stage, to 1e-9, and
+    # where fluids finds none (deep in flood, D = 0.3 m) neither may the warm start.
+    from traywise.sizing.packed import flooding_fraction
+
+    def cold(packing, liquid, j):
+        try:
+            return stichlmair_flooding_velocity(packing, liquid, stages.gas_density[j], stages.liquid_density[j],
+                                                stages.gas_viscosity[j])
+        except (ArithmeticError, ValueError, UnboundLocalError):
+            return np.nan
+
+    for name in ("ceramic raschig rings 25 mm", "ceramic berl saddles 25 mm"):
+        internals = PackedInternals(name, hetp=0.5)
+        for diameter in (0.3, 0.5, 1.0, 3.0):
+            _, flood = flooding_fraction(stages, internals, diameter)
+            liquid = stages.liquid_volume_flow / (np.pi * diameter ** 2 / 4.0)
+            expected = np.array([cold(internals.data, liquid[j], j) for j in range(liquid.size)])
+            assert np.array_equal(np.isnan(flood), np.isnan(expected))
+            assert flood[~np.isnan(flood)] == pytest.approx(expected[~np.isnan(expected)], rel=1e-9)

@@ -76,7 +76,7 @@ def dilute_run():
 
 
 def _output(result, name):
-    return result.data[:, [n for n, _ in result.outputs].index(name)]
+    return result.sample_outputs[:, [n for n, _ in result.outputs].index(name)]
 
 
 def _kremser_outlet_ppmv(z):
@@ -116,7 +116,7 @@ def test_each_sample_is_the_kremser_outlet_of_its_own_factor(dilute_run):
 
 def test_same_seed_same_numbers_another_seed_others(dilute_run):
     again = _run(DILUTE, 200)
-    assert np.array_equal(again.data, dilute_run.data) and np.array_equal(again.factors, dilute_run.factors)
+    assert np.array_equal(again.sample_outputs, dilute_run.sample_outputs) and np.array_equal(again.factors, dilute_run.factors)
     other = _run(DILUTE, 200, seed=7)
     assert not np.array_equal(other.factors, dilute_run.factors)
 
@@ -124,7 +124,7 @@ def test_same_seed_same_numbers_another_seed_others(dilute_run):
 def test_processes_give_the_numbers_of_one_process():
     one = _run(DILUTE, 24)
     two = _run(DILUTE, 24, processes=2)
-    assert np.array_equal(one.data, two.data)
+    assert np.array_equal(one.sample_outputs, two.sample_outputs)
 
 
 def test_a_failed_sample_is_kept_with_its_reason():
@@ -135,7 +135,7 @@ def test_a_failed_sample_is_kept_with_its_reason():
     absorption = SOLVENT_FLOW / (HENRY * result.factors[:, 0] / PRESSURE * GAS_FLOW)
     assert set(failed) == set(np.flatnonzero(absorption < 0.95)) and failed.size > 0
     assert all("not reached" in result.messages[i] for i in failed)
-    assert np.isnan(result.data[failed]).all()
+    assert np.isnan(result.sample_outputs[failed]).all()
     assert sum(count for _, count in result.failure_reasons()) == failed.size
     assert f"({failed.size} of 12 samples failed" in result.sentence
 
@@ -143,9 +143,9 @@ def test_a_failed_sample_is_kept_with_its_reason():
 def test_the_sentence_states_the_stages_at_90_percent():
     result = _run(DILUTE + '[design]\nsolve_for = "stages"\nfraction_absorbed = "70 %"\n', 30)
     assert result.converged.all()
-    stages = np.sort(result.data[:, 0])
+    stages = np.sort(result.sample_outputs[:, 0])
     n90 = int(stages[math.ceil(0.9 * stages.size) - 1])
-    assert np.mean(result.data[:, 0] <= n90) >= 0.9
+    assert np.mean(result.sample_outputs[:, 0] <= n90) >= 0.9
     assert f", {n90} stages meet the target with 90 % confidence." in result.sentence
 
 
@@ -237,3 +237,116 @@ def test_the_readme_example_table_reads():
     assert by_name["henry_constant:nitrogen"].default  # not listed: the default
     assert correlations == ((list(by_name).index("henry_constant:ammonia"),
                              list(by_name).index("enthalpy_of_solution:ammonia"), 0.3),)
+
+
+# -- the tray efficiency -----------------------------------------------------------------------
+
+def _with_efficiency(text, column_lines, table_lines):
+    text = text.replace(f"stages = {STAGES}\n", f"stages = {STAGES}\n{column_lines}\n")
+    return text.replace('scope = "listed"\n', f'scope = "listed"\n{table_lines}\n')
+
+
+def test_murphree_efficiency_is_sampled_and_each_sample_matches_kremser_through_lewis():
+    text = _with_efficiency(DILUTE, "murphree_efficiency = 0.7", 'tray_efficiency = "10 %"')
+    result = _run(text, 16)
+    assert [e.name for e in result.inputs] == ["henry_constant:test solute", "murphree_efficiency:column"]
+    assert not result.inputs[1].default and result.inputs[1].basis == "stated in the case file"
+    assert result.converged.all() and "the Murphree efficiency is sampled too (u = 10 %" in result.sentence
+    # Dilute, straight equilibrium and operating lines, one Murphree efficiency E on every tray:
+    # the trays equal N E_o theoretical stages with Lewis's E_o = ln(1 + E (1/A - 1)) / ln(1/A)
+    # (W. K. Lewis, Ind. Eng. Chem. 28 (1936) 399), and Kremser's equation holds for that N.
+    absorption = SOLVENT_FLOW / (HENRY * result.factors[:, 0] / PRESSURE * GAS_FLOW)
+    efficiency = np.minimum(1.0, 0.7 * result.factors[:, 1])
+    stripping = 1.0 / absorption
+    theoretical = STAGES * np.log1p(efficiency * (stripping - 1.0)) / np.log(stripping)
+    expected = 1e6 * Y_IN * (1.0 - kremser_fraction_absorbed(absorption, theoretical))
+    assert _output(result, "outlet_ppmv:test solute") == pytest.approx(expected, rel=1e-5)
+
+
+def test_the_overall_efficiency_turns_each_sampled_stage_count_into_trays():
+    text = _with_efficiency(DILUTE, "overall_efficiency = 0.5", 'tray_efficiency = "10 %"')
+    result = _run(text + '[design]\nsolve_for = "stages"\nfraction_absorbed = "70 %"\n', 20)
+    overall = next(e for e in result.inputs if e.quantity == "overall_efficiency")
+    assert overall.value == 0.5 and overall.relative == 0.10
+    stages, trays = _output(result, "stages"), _output(result, "actual_trays")
+    efficiency = np.minimum(1.0, 0.5 * result.factors[:, 1])
+    assert np.array_equal(trays, np.ceil(np.round(stages / efficiency, 9)))
+    t90 = int(np.sort(trays)[math.ceil(0.9 * trays.size) - 1])
+    assert f"with 90 % confidence; with the overall tray efficiency uncertain too, {t90} actual trays" in result.sentence
+
+
+def test_the_tray_efficiency_takes_the_stated_default_unless_the_case_holds_it():
+    text = DILUTE.replace(f"stages = {STAGES}\n", f"stages = {STAGES}\nmurphree_efficiency = 0.7\n")
+    every = parse_case(text.split("[uncertainty]")[0])
+    inputs, _, _, _ = uncertainty_settings(every)
+    murphree = [e for e in inputs if e.quantity == "murphree_efficiency"]
+    assert len(murphree) == 1 and murphree[0].default and murphree[0].relative == 0.10
+    assert "common practice" in murphree[0].basis
+    held = parse_case(text.split("[uncertainty]")[0] + '[uncertainty]\ntray_efficiency = 0\n')
+    assert not [e for e in uncertainty_settings(held)[0] if e.component == "column"]
+    listed = parse_case(text)  # scope "listed" without tray_efficiency: held
+    assert [e.name for e in uncertainty_settings(listed)[0]] == ["henry_constant:test solute"]
+    # a rating column of theoretical stages with an overall efficiency: nothing solved depends on it
+    rating = parse_case(DILUTE.split("[uncertainty]")[0].replace(f"stages = {STAGES}\n",
+                                                                 f"stages = {STAGES}\noverall_efficiency = 0.5\n"))
+    assert not [e for e in uncertainty_settings(rating)[0] if e.component == "column"]
+
+
+# -- first-order indices (SALib, optional) -----------------------------------------------------
+
+def test_first_order_indices_match_the_variance_shares_of_a_known_function():
+    pytest.importorskip("SALib", reason="SALib (optional extra 'sensitivity') is not installed")
+    from traywise.uncertainty.sampling import normal_scores
+    from traywise.uncertainty.statistics import first_order_indices
+
+    z = normal_scores(3, 1000, seed=1)
+    y = z[:, 0] + 0.5 * z[:, 1] ** 2 + 0.1 * z[:, 2]
+    # Var(z0) = 1, Var(z1**2 / 2) = 2/4, Var(0.1 z2) = 0.01 for independent standard normals (the
+    # moments of the normal distribution), so S1 = (1, 0.5, 0.01) / 1.51.
+    exact = np.array([1.0, 0.5, 0.01]) / 1.51
+    found, note = first_order_indices(y, z, ["a", "b", "c"])
+    assert note == "" and [f[0] for f in found] == ["a", "b", "c"]
+    index, half = np.array([f[1] for f in found]), np.array([f[2] for f in found])
+    assert np.all(np.abs(index - exact) <= half + 0.05)  # the estimate's own half-width, and RBD-FAST's bias
+    assert first_order_indices(y, z, ["a", "b", "c"]) == (found, note)  # same samples, same numbers
+
+
+def test_one_input_explains_all_of_the_dilute_outlet(dilute_run):
+    pytest.importorskip("SALib", reason="SALib (optional extra 'sensitivity') is not installed")
+    (name, index, _), = dilute_run.summaries[0].first_order
+    assert name == "henry_constant:test solute" and index > 0.9
+
+
+def test_without_enough_samples_the_indices_say_why():
+    from traywise.uncertainty.statistics import first_order_indices
+
+    found, note = first_order_indices(np.arange(10.0), np.ones((10, 1)), ["a"])
+    assert found == () and "at least 200" in note
+
+
+def test_a_solvent_design_is_re_solved_from_its_own_answer():
+    # The nominal sample starts at the designed flow itself, where the shortfall is zero within the
+    # solver's tolerance: solving a bracket end again must not change its sign.
+    from traywise.design.plan import carry_out_design
+
+    text = (Path(__file__).resolve().parents[1] / "cases" / "ammonia-scrubber-design.toml").read_text(encoding="utf-8")
+    case = parse_case(text)
+    result = _run(text, 3)
+    assert result.design_output == "solvent_mass_flow" and result.converged.all()
+    design = carry_out_design(case.column, case.model, case.design).result
+    flow = float(design.column.solvent.component_flows @ case.model.molar_mass)
+    assert result.nominal[0] == pytest.approx(flow, rel=1e-6)  # the design's tolerance on ln(flow)
+
+
+def test_an_unforeseen_error_in_a_sample_is_kept_as_its_failure(monkeypatch):
+    import traywise.uncertainty.samples as samples
+
+    def broken(*args, **kwargs):
+        raise ValueError("f(0.0) and f(0.69) have the same sign")
+
+    case = parse_case(DILUTE)
+    inputs, _, _, _ = uncertainty_settings(case)
+    job = samples.sample_job(case.column, case.model, inputs, key=1)
+    monkeypatch.setattr(samples, "solve_column", broken)
+    outputs, ok, reason = samples.solve_sample(job, np.ones(len(inputs)))
+    assert not ok and np.isnan(outputs).all() and reason == "unexpected ValueError: f(0.0) and f(0.69) have the same sign"

@@ -283,7 +283,7 @@ def sweep(ctx, case_file, input_name, start, end, points, log, outputs, cooler_s
 
     case, designed = _designed_for_sweep(case, designed_for_sweep)
     request = sweep_request(case, input_name=input_name, start=start, end=end, points=points, log=log, outputs=outputs,
-                            cooler_stage=cooler_stage)
+                            cooler_stage=cooler_stage, around=designed)
     from dataclasses import replace
 
     case = replace(case, warnings=(*case.warnings, *sweep_feed_warnings(case, request)))
@@ -332,9 +332,9 @@ def _designed_for_sweep(case, designed_for_sweep):
 @click.option("--quiet", "-q", is_flag=True, help="Print nothing but warnings (on stderr) and errors.")
 @click.pass_context
 def uncertainty(ctx, case_file, samples, seed, processes, engine, scheduler, out_dir, no_plots, quiet):
-    """Carry the uncertainty of the property data to CASE's results: sample the property values
-    by their stated uncertainties (the [uncertainty] table overrides them), solve every sample
-    (designs re-solved to their target) and write the distributions, their drivers and plots."""
+    """Carry the uncertainty of the property data and of the tray efficiency to CASE's results:
+    sample them by their stated uncertainties (the [uncertainty] table overrides them), solve every
+    sample (designs re-solved to their target) and write the distributions, their drivers and plots."""
     import os
     from pathlib import Path
 

@@ -9,7 +9,9 @@ buffer (median of many), times the number of factorisations the solve used, plus
 evaluation over all stages. ``hybr`` is scipy.optimize.root(method='hybr') on the same scaled
 residuals with a finite-difference Jacobian and the same start (where it converges).
 
-Run: python tests/benchmarks/bench_solver.py [REPEAT]   (REPEAT >= 11 cold solves, default 11)
+Run: python tests/benchmarks/bench_solver.py [REPEAT] [SIZES]   (REPEAT >= 11 cold solves, default
+11; SIZES such as 8x40,6x40,6x320 for components x stages, default every size; the 40-stage
+solve of a component count is timed first whenever that count is asked for, for the t/t(40) column)
 Targets (issue 16): actual / floor at most 2.5 at 40 x 8 and 320 x 6; t(320) / t(40) at most 4
 at 6 components. Times are CPU times of this process (time.process_time, with one BLAS thread:
 set OPENBLAS_NUM_THREADS=1), which a shared machine disturbs far less than wall time; the median
@@ -114,8 +116,12 @@ def baseline(column, model):
     return result.success and np.max(np.abs(result.fun)) < 1e-8
 
 
-def main(repeat=11):
+def main(repeat=11, sizes=None):
     repeat = max(int(repeat), 11)
+    wanted = None
+    if sizes:
+        wanted = {tuple(int(v) for v in size.split("x")) for size in sizes.split(",")}
+        wanted |= {(c, 40) for c, _ in wanted}
     print(
         f"{'comp':>4} {'stages':>6} {'iter':>4} {'median ms':>9} {'min ms':>7} {'max ms':>7} {'wall ms':>8} "
         f"{'floor ms':>8} {'LU ms':>7} {'props ms':>8} {'actual/floor':>12} {'x 40-stage':>10} {'hybr/ours':>9}"
@@ -123,6 +129,8 @@ def main(repeat=11):
     for n_components in (3, 6, 8):
         reference = None
         for n_stages in STAGES:
+            if wanted is not None and (n_components, n_stages) not in wanted:
+                continue
             times, walls, solution = cold_solves(n_components, n_stages, repeat)
             median = float(np.median(times))
             iterations = solution.convergence.iterations
@@ -146,4 +154,4 @@ def main(repeat=11):
 
 
 if __name__ == "__main__":
-    main(sys.argv[1] if len(sys.argv) > 1 else 11)
+    main(sys.argv[1] if len(sys.argv) > 1 else 11, sys.argv[2] if len(sys.argv) > 2 else None)

@@ -6,7 +6,7 @@ import dataclasses
 import math
 
 from ..errors import CaseError, ComponentDataError, InputError
-from ..properties.component import MODEL_KINDS, Quantity
+from ..properties.component import MODEL_KINDS, MODEL_NEEDS, Quantity
 from ..properties.constants import P_STANDARD, T_REFERENCE
 from ..properties.inline import (
     USER,
@@ -45,23 +45,16 @@ COMPONENT_KEYS = (
 # constants given per concentration to the mole-fraction basis (dilute aqueous solution), as in
 # R. Sander, Atmos. Chem. Phys. 15 (2015) 4399, section 2.
 WATER_MOLAR_CONCENTRATION = 55344.55
-# What each equilibrium model needs: (Component attribute, the case-file keys that provide it).
-NEEDS = {
-    "henry": (("henry_in_water", "henry_constant and enthalpy_of_solution"),),
-    "raoult": (
-        ("vapour_pressure", "vapour_pressure (at vapour_pressure_temperature) or normal_boiling_point"),
-        ("heat_of_vaporisation", "heat_of_vaporisation"),
-        ("liquid_cp", "liquid_heat_capacity"),
-    ),
-    "nonvolatile": (("liquid_cp", "liquid_heat_capacity"),),
-    "insoluble": (),
-    "activity": (
-        ("henry_in_water", "henry_constant and enthalpy_of_solution"),
-        ("vapour_pressure", "vapour_pressure (at vapour_pressure_temperature) or normal_boiling_point"),
-    ),
-    "table": (),
-    "eos": (("critical_temperature", "a library component (critical constants and acentric factor)"),),
-    "electrolyte": (),  # water and a solute the aqueous electrolyte liquid knows (checked by the model)
+# The case-file keys that give each Component attribute an equilibrium model needs (the models'
+# needs are properties.component.MODEL_NEEDS).
+KEYS_OF = {
+    "henry_in_water": "henry_constant and enthalpy_of_solution",
+    "vapour_pressure": "vapour_pressure (at vapour_pressure_temperature) or normal_boiling_point",
+    "heat_of_vaporisation": "heat_of_vaporisation",
+    "liquid_cp": "liquid_heat_capacity",
+    "critical_temperature": "a library component (critical constants and acentric factor)",
+    "critical_pressure": "a library component (critical constants and acentric factor)",
+    "acentric_factor": "a library component (critical constants and acentric factor)",
 }
 
 
@@ -377,7 +370,8 @@ class _ComponentReader:
 
     def _check_model(self, component):
         """Every property the equilibrium model needs is there (else name the keys to add)."""
-        for attribute, keys in NEEDS[component.equilibrium]:
+        for attribute in MODEL_NEEDS[component.equilibrium]:
+            keys = KEYS_OF[attribute]
             if getattr(component, attribute) is None:
                 if self.base is None:
                     self.fail(keys.split()[0], f"missing; equilibrium = '{component.equilibrium}' needs {keys}")

@@ -87,7 +87,8 @@ def default_outputs(key):
     return (f"fraction_absorbed:{key}", f"outlet_ppmv:{key}", "max_temperature", "liquid_out_temperature")
 
 
-def sweep_request(case, *, input_name=None, start=None, end=None, points=None, log=None, outputs=(), cooler_stage=None):
+def sweep_request(case, *, input_name=None, start=None, end=None, points=None, log=None, outputs=(), cooler_stage=None,
+                  around=None):
     """The sweep of ``case``: its ``[sweep]`` table with the command-line options that are given
     (not None, not empty) in place of the table's values.
 
@@ -99,6 +100,10 @@ def sweep_request(case, *, input_name=None, start=None, end=None, points=None, l
     log : bool or None
     outputs : tuple of str
     cooler_stage : int or None
+    around : dict or None            The designed input ("input", "value" [SI], "stage";
+                                     ``traywise.run.designed_for_sweep``): when neither the options
+                                     nor the table give a range, the input solved for is swept
+                                     around its designed value (``AROUND``)
 
     Returns
     -------
@@ -110,7 +115,30 @@ def sweep_request(case, *, input_name=None, start=None, end=None, points=None, l
     """
     given = {"input": input_name, "from": start, "to": end, "points": points, "log": log, "outputs": outputs or None,
              "cooler_stage": cooler_stage}
-    return _Reader(case, given).request(complete=True)
+    reader = _Reader(case, given)
+    if around is not None and not any(reader.present(key) for key in ("from", "to")):
+        if not reader.present("input") or reader.raw("input") == around["input"]:
+            return _around(reader, around)
+    return reader.request(complete=True)
+
+
+AROUND = 0.5  # a sweep around a designed value spans it -50 % to +50 % (stages: 4 either side); our choice
+STAGES_AROUND = 4
+
+
+def _around(reader, around):
+    """The SweepRequest around the designed value of the input a design solved for."""
+    variable, value = around["input"], around["value"]
+    if variable == "stages":
+        n = int(round(value))
+        values = tuple(float(v) for v in range(max(1, n - STAGES_AROUND), n + STAGES_AROUND + 1))
+    else:
+        points = reader._points()
+        values = tuple(float(v) for v in np.linspace(value * (1.0 - AROUND), value * (1.0 + AROUND), points))
+    design_variable, _, unit = VARIABLES[variable]
+    note = (f"no range given: the {variable.replace('_', ' ')} is swept around its designed value, "
+            f"{'4 stages either side' if variable == 'stages' else f'{100 * AROUND:.0f} % either side'}")
+    return SweepRequest(variable, design_variable, unit, values, reader._outputs(), around["stage"], False, (note,))
 
 
 def check_sweep_table(case):

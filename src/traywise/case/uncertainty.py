@@ -7,7 +7,7 @@ from .reader import where
 
 DEFAULT_SAMPLES = 200
 DEFAULT_SEED = 1
-UNCERTAINTY_KEYS = ("samples", "seed", "scope", "values")
+UNCERTAINTY_KEYS = ("samples", "seed", "scope", "tray_efficiency", "values")
 CORRELATION_KEY = "henry_correlation"
 UNCERTAINTY_VALUE_KEYS = tuple(QUANTITIES) + (CORRELATION_KEY,)
 
@@ -41,10 +41,12 @@ def read_uncertainty(top, components):
             relative[(name, quantity)] = section.fraction(quantity, low=0.0, high=1.0, open_low=False)
         if CORRELATION_KEY in section:
             correlations[name] = section.fraction(CORRELATION_KEY, low=-1.0, high=1.0, open_high=True)
-    if scope == "listed" and not relative:
+    tray_efficiency = table.fraction("tray_efficiency", None, low=0.0, high=1.0, open_low=False)
+    if scope == "listed" and not relative and tray_efficiency is None:
         table.fail("scope", "is 'listed' but [uncertainty.values] lists no uncertainty; list some, e.g. "
                    "values.ammonia.henry_constant = \"10 %\", or use scope = \"all\"")
-    return UncertaintyRequest(samples=samples, seed=seed, scope=scope, relative=relative, correlations=correlations)
+    return UncertaintyRequest(samples=samples, seed=seed, scope=scope, relative=relative, correlations=correlations,
+                              tray_efficiency=tray_efficiency)
 
 
 def _used(model, i):
@@ -59,10 +61,12 @@ def uncertainty_settings(case, *, samples=None, seed=None):
     from ..uncertainty.inputs import uncertain_inputs
 
     request = case.uncertainty or UncertaintyRequest()
-    inputs, correlations = uncertain_inputs(case.model, request)
+    stage_design = case.design is not None and case.design.solve_for == "n_stages"
+    inputs, correlations = uncertain_inputs(case.model, request, column=case.column,
+                                            overall_efficiency=case.overall_efficiency, stage_design=stage_design)
     if not inputs:
-        raise CaseError(where(case.source, "uncertainty"), "no property value of this case is uncertain (every "
-                        "uncertainty listed is 0 %); list some under [uncertainty.values]")
+        raise CaseError(where(case.source, "uncertainty"), "nothing in this case is uncertain (every "
+                        "uncertainty listed is 0 %); list some under [uncertainty.values] or give tray_efficiency")
     n_samples = samples or request.samples or DEFAULT_SAMPLES
     for given in (seed, request.seed, DEFAULT_SEED):
         if given is not None:

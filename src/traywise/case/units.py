@@ -14,6 +14,7 @@ pint is imported on first use, with one cached registry. Conventions (cases/READ
 import functools
 import math
 import re
+import sys
 
 from ..properties.constants import GAS_CONSTANT, P_STANDARD
 
@@ -96,10 +97,31 @@ class UnitProblem(ValueError):
     """A value that cannot be read as the quantity asked for; the message says why and what would do."""
 
 
+def import_pint():
+    """pint, imported without its optional dask and scipy support: pint.compat imports both when
+    they are installed (0.1 s of start-up with dask) for a dask Quantity and a preferred-units
+    search that traywise never uses. Both stay importable afterwards."""
+    if "pint" in sys.modules:
+        return sys.modules["pint"]
+    blocked = [name for name in _PINT_OPTIONAL if name not in sys.modules]
+    for name in blocked:
+        sys.modules[name] = None  # the import system's way to make "import dask" fail
+    try:
+        import pint
+    finally:
+        for name in blocked:
+            if sys.modules.get(name, False) is None:
+                del sys.modules[name]
+    return pint
+
+
+_PINT_OPTIONAL = ("dask", "scipy")
+
+
 @functools.cache
 def registry():
     """The one pint UnitRegistry of traywise, with the units of the trade added (see module docstring)."""
-    import pint
+    pint = import_pint()
 
     try:  # pint keeps its parsed definitions in the user's cache folder: 0.02 s instead of 0.15-0.45 s
         units = pint.UnitRegistry(autoconvert_offset_to_baseunit=False, cache_folder=":auto:")
@@ -135,7 +157,7 @@ def normalised_unit_text(unit_text, *, absolute_temperature):
 
 def quantity(text, *, absolute_temperature=False):
     """A pint Quantity from "number unit" text; UnitProblem when it cannot be read."""
-    import pint
+    pint = import_pint()
 
     number, unit_text = split_number(text)
     unit_text = normalised_unit_text(unit_text, absolute_temperature=absolute_temperature)
@@ -151,7 +173,7 @@ def to_si(text, kinds):
     Returns (value in SI [float], the kind that fitted). Raises UnitProblem naming what was
     found and what would be valid.
     """
-    import pint
+    pint = import_pint()
 
     if isinstance(kinds, str):
         kinds = (kinds,)

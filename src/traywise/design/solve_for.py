@@ -119,11 +119,14 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
     base = column.solvent.flow
 
     short = {}  # converged flows that fall short of the target [mol/s] -> the solution
+    known = {}  # u -> shortfall: a point solved again (warm-started differently) must keep its sign near the root
 
     def shortfall(u):
+        if u in known:
+            return known[u]
         flow = base * math.exp(u)
         solution = solve(with_solvent_flow(column, flow), f"solvent flow {flow:.6g} mol/s")
-        value = target.shortfall(solution)
+        value = known[u] = target.shortfall(solution)
         if value > 0.0:
             short[flow] = solution
         return value
@@ -244,8 +247,13 @@ def cooler_duty_for_limit(column, model, limit, *, stage, settings=SolverSetting
     """
     solve = _Solver(model, settings)
 
+    known = {}  # duty -> shortfall, as for the solvent flow
+
     def shortfall(duty):
-        return limit.shortfall(solve(with_cooler_duty(column, duty, stage=stage), f"{duty:.6g} W on stage {stage}"))
+        if duty not in known:
+            known[duty] = limit.shortfall(solve(with_cooler_duty(column, duty, stage=stage),
+                                                f"{duty:.6g} W on stage {stage}"))
+        return known[duty]
 
     excess = shortfall(0.0)
     duty = 0.0

@@ -29,6 +29,18 @@ EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a compone
 # (an activity model of the liquid, an equilibrium table, the other members of the aqueous
 # electrolyte liquid), so they are chosen per case.
 MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos", "electrolyte")
+# What each equilibrium model needs of a component: the Component attributes that must not be
+# None (an activity model or an equilibrium table, needed too, belongs to the case, not here).
+MODEL_NEEDS = {
+    "henry": ("henry_in_water",),
+    "raoult": ("vapour_pressure", "heat_of_vaporisation", "liquid_cp"),
+    "nonvolatile": ("liquid_cp",),
+    "insoluble": (),
+    "activity": ("henry_in_water", "vapour_pressure"),
+    "table": (),
+    "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
+    "electrolyte": (),  # its CAS number must be one the electrolyte liquid knows (composition_liquids)
+}
 
 
 @dataclass(frozen=True)

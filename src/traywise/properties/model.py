@@ -34,7 +34,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..errors import InputError
-from .component import MODEL_KINDS
+from .component import MODEL_KINDS, MODEL_NEEDS
 from .composition_liquids import ActivityMembers, StageArrays, aqueous_electrolyte, eos_liquid, table_solutes
 from .constants import GAS_CONSTANT
 from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope
@@ -126,16 +126,7 @@ class PropertyModel:
     def _check(component, kind):
         if kind not in MODEL_KINDS:
             raise InputError(component.name, f"equilibrium model '{kind}' unknown; use one of {MODEL_KINDS}")
-        needs = {
-            "henry": ("henry_in_water",),
-            "raoult": ("vapour_pressure", "liquid_cp", "heat_of_vaporisation"),
-            "nonvolatile": ("liquid_cp",),
-            "insoluble": (),
-            "activity": ("henry_in_water", "vapour_pressure"),
-            "table": (),
-            "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
-            "electrolyte": (),  # its CAS number must be one the electrolyte liquid knows (aqueous_electrolyte)
-        }[kind]
+        needs = MODEL_NEEDS[kind]
         missing = [key for key in needs if getattr(component, key) is None]
         if missing:
             raise InputError(component.name, f"equilibrium model '{kind}' needs {', '.join(missing)}, which it lacks")

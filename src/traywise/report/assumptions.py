@@ -85,7 +85,13 @@ def _stage_line(column):
 def _mode_line(column, inputs, units):
     if column["mode"] == "isothermal":
         temperature = inputs.get("column", {}).get("isothermal_temperature_K")
-        at = "" if temperature is None else f" at {units.temperature(temperature)} {units.t_unit}"
+        if temperature is None:
+            at = ""
+        elif isinstance(temperature, (int, float)):
+            at = f" at {units.temperature(temperature)} {units.t_unit}"
+        else:  # one temperature per stage
+            low, high = min(temperature), max(temperature)
+            at = f" at {units.temperature(low)} to {units.temperature(high)} {units.t_unit} (given per stage)"
         return f"Isothermal stages{at}: stage temperatures fixed, no energy balances."
     return "Adiabatic stages: the heat of absorption and the solvent's evaporation or condensation enter the energy balances."
 

@@ -6,8 +6,8 @@ flow with the pinch, and the trays by each efficiency route.
 the text functions read that section, so that every output shows the same numbers.
 """
 
-from .results import plain
-from .tables import SECONDS_PER_HOUR, celsius, concentration, kilowatt, kmol_per_hour, number, percent
+from .results import DEFAULT_UNITS, plain
+from .tables import SECONDS_PER_HOUR, Display, concentration, kilowatt, kmol_per_hour, number, percent
 
 SOURCE_WORDS = {"given": "given", "O'Connell's absorber correlation": "O'Connell"}  # short labels for tables
 SOLVE_FOR_WORDS = {"solvent_flow": "solvent_flow", "n_stages": "stages", "cooler_duty": "cooler_duty"}  # design -> case
@@ -94,13 +94,14 @@ def _trays_json(trays):
 def design_lines(results):
     """Sentences on the design: what was solved for, the target, the limit, the minimum solvent."""
     design = results["design"]
+    units = Display(results.get("display_units") or DEFAULT_UNITS)
     lines = [_solved_line(design)]
     if design["target"] is not None:
         lines.append(_target_line(design["target"]))
     if design["temperature_limit"] is not None:
-        lines.append(_limit_line(design["temperature_limit"]))
+        lines.append(_limit_line(design["temperature_limit"], units))
     if design["minimum_solvent"] is not None:
-        lines.extend(_minimum_lines(design["minimum_solvent"]))
+        lines.extend(_minimum_lines(design["minimum_solvent"], units))
     for route in design["trays"]:
         source = SOURCE_WORDS.get(route["efficiency_source"], route["efficiency_source"])
         lines.append(f"Trays to use, E_o {number(route['overall_efficiency'], 3)} ({source}): "
@@ -144,14 +145,14 @@ def _target_line(target):
     return f"Target: {key} in the gas out at most {shown(target['required'])}; reached {shown(target['reached'])} ({state})."
 
 
-def _limit_line(limit):
+def _limit_line(limit, units):
     state = "solved for" if limit["solved_for"] else ("held" if limit["held"] else "BROKEN")
     where = "liquid outlet" if limit["place"] == "liquid_outlet" else "hottest stage"
-    return (f"Temperature limit: {where} at most {celsius(limit['limit_K'])} degC; reached "
-            f"{celsius(limit['reached_K'])} degC ({state}).")
+    return (f"Temperature limit: {where} at most {units.temperature(limit['limit_K'])} {units.t_unit}; reached "
+            f"{units.temperature(limit['reached_K'])} {units.t_unit} ({state}).")
 
 
-def _minimum_lines(minimum):
+def _minimum_lines(minimum, units):
     pinch = minimum["pinch"]
     low, high = minimum["common_practice_range"]
     zone = f"stages {pinch['zone'][0]}-{pinch['zone'][1]} of {minimum['stages_used']}"
@@ -161,8 +162,9 @@ def _minimum_lines(minimum):
         f"Minimum solvent flow (rigorous, {minimum['stages_used']} stages for infinitely many): "
         f"{_kg_per_hour(minimum['solvent_mass_flow_kg_per_s'])} kg/h; the design is {minimum['design_multiple']:.3g} "
         f"x the minimum (common practice {low:g}-{high:g} x). Pinch {where}: {zone}, "
-        f"{celsius(pinch['temperature_K'])} degC at stage {pinch['stage']}.",
-        f"Minimum solvent flow (isothermal inert basis at {celsius(minimum['inert_basis_temperature_K'])} degC): "
+        f"{units.temperature(pinch['temperature_K'])} {units.t_unit} at stage {pinch['stage']}.",
+        f"Minimum solvent flow (isothermal inert basis at {units.temperature(minimum['inert_basis_temperature_K'])} "
+        f"{units.t_unit}): "
         f"{_kg_per_hour(minimum['inert_basis_solvent_mass_flow_kg_per_s'])} kg/h "
         f"(L'/V' {minimum['inert_basis_liquid_to_gas_ratio']:.4g}); the design is "
         f"{minimum['inert_basis_design_multiple']:.3g} x that.",

@@ -23,8 +23,7 @@ th, td { border: 1px solid #bbb; padding: 2px 6px; vertical-align: top; }
 th { background: #eee; text-align: left; } td.n { text-align: right; font-variant-numeric: tabular-nums; }
 img { max-width: 100%; height: auto; display: block; margin: 0.6em 0; }
 figure { margin: 0.6em 0; } figcaption { font-size: 9pt; color: #444; }
-.cautions { border: 2px solid #b00; padding: 0.3em 0.8em; background: #fff4f4; }
-.notes { white-space: pre-wrap; }
+.cautions { border: 2px solid #b00; padding: 0.3em 0.8em 0.3em 2em; background: #fff4f4; }
 code { font-family: "DejaVu Sans Mono", monospace; font-size: 9pt; }
 @page { size: A4; margin: 15mm 12mm 15mm 12mm; }
 @media print {
@@ -43,7 +42,8 @@ def html_report(results, folder):
              f"<p>Case file <code>{_e(case['file'])}</code>, solved by traywise {_e(results['software']['version'])}. "
              "Machine-readable results: <code>results.json</code> (all values in SI) and <code>stages.csv</code>.</p>"]
     if case["notes"]:
-        parts += ["<h2>Notes</h2>", f"<p class=\"notes\">{_e(case['notes'].strip())}</p>"]
+        parts += ["<h2>Notes</h2>", *(f"<p>{_inline(' '.join(paragraph.split()))}</p>"
+                                      for paragraph in case["notes"].strip().split("\n\n") if paragraph.strip())]
     for heading, kind, body in report_blocks(results):
         if heading is not None:
             parts.append(f"<h2>{_e(heading)}</h2>")

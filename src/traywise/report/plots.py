@@ -61,6 +61,17 @@ def _save(path, draw):
     figure.savefig(path, format="png")
 
 
+def log_scale(axes, which):
+    """Make the ``which`` ("x" or "y") axis of ``axes`` logarithmic with plain-text labels ("1e-05"): the
+    default 10^n labels go through mathtext, whose parser costs 0.2-0.4 s of a cold run."""
+    from matplotlib.ticker import LogFormatter
+
+    getattr(axes, f"set_{which}scale")("log")
+    axis = getattr(axes, f"{which}axis")
+    axis.set_major_formatter(LogFormatter())
+    axis.set_minor_formatter(LogFormatter(labelOnlyBase=False))
+
+
 def _stage_axis(axes, n_stages, *, feeds=False):
     """Stages on the vertical axis, stage 1 at the top (common practice for column profiles);
     with ``feeds`` the axis reaches 0 (solvent in) and N + 1 (gas in)."""
@@ -108,7 +119,7 @@ def _composition_profiles(figure, solution):
             shown = np.where(fractions[:, i] > 0.0, fractions[:, i], np.nan)
             if np.any(np.isfinite(shown)):
                 axes.plot(shown, stages, ".-", label=name)
-        axes.set_xscale("log")
+        log_scale(axes, "x")
         axes.set_xlabel("mole fraction [-]")
         axes.set_title(title)
         _stage_axis(axes, solution.n_stages)
@@ -160,8 +171,8 @@ def _xy_diagram(figure, solution, design):
     panels[0].set_ylabel(f"Y, {design.key} per solute-free gas [mol/mol]")
     panels[0].legend(loc="best", fontsize="small")
     if logarithmic:
-        panels[1].set_xscale("log")
-        panels[1].set_yscale("log")
+        log_scale(panels[1], "x")
+        log_scale(panels[1], "y")
         panels[1].set_ylim(bottom=0.3 * design.gas_ratio_out, top=2.0 * design.gas_ratio_in)
         panels[1].set_title("log-log, lean end", fontsize="small")
     figure.suptitle(f"x-y diagram of {design.key}, isothermal at {design.temperature - ZERO_CELSIUS:.1f} degC")

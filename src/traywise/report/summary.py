@@ -19,6 +19,7 @@ from .sections import (
     stage_profile_table,
     stream_table,
     temperature_line,
+    water_balance_lines,
 )
 from .tables import text_table
 
@@ -35,7 +36,7 @@ def summary_text(results, *, verbose=False, folder=None):
     parts.append(text_table(*stream_table(results)))
     parts.append(text_table(*component_table(results)))
     parts.append("\n".join([key_line(results), temperature_line(results)]))
-    parts.append(text_table(*heat_table(results)))
+    parts.append("\n".join([text_table(*heat_table(results)), *water_balance_lines(results)]))
     parts.append(comparison_text(results))
     if verbose:
         parts.append(text_table(*stage_profile_table(results)))

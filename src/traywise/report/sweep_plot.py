@@ -8,7 +8,7 @@ out silently. matplotlib through its object interface (as in ``plots``)."""
 
 import numpy as np
 
-from .plots import DPI, MARGINS
+from .plots import DPI, MARGINS, log_scale
 from .sweep_labels import converter, is_whole, label, reference_lines, words
 
 PANEL_HEIGHT = 2.0  # inches per output
@@ -48,7 +48,7 @@ def write_sweep_plot(path, record, table):
         axes.plot(x[~failed], y[~failed], "o-", ms=3, color="tab:blue", **style)
         shown = y[~failed]
         if shown.size and np.all(shown > 0.0) and shown.max() > LOG_SPAN * shown.min():
-            axes.set_yscale("log")
+            log_scale(axes, "y")
         for value, text in reference_lines(record, name):
             axes.axhline(float(convert(value)), color="tab:orange", ls="--", lw=1.0, label=f"design {text}")
         if design is not None and design["designed_input"] == variable:
@@ -66,7 +66,7 @@ def write_sweep_plot(path, record, table):
         axes.set_ylabel(_wrapped(label(record, name, output_unit)), fontsize="small")
         axes.grid(True, alpha=0.3)
     if sweep["log"]:
-        panels[-1].set_xscale("log")
+        log_scale(panels[-1], "x")
     if steps:
         panels[-1].xaxis.get_major_locator().set_params(integer=True)
     panels[-1].set_xlabel(label(record, variable, unit))

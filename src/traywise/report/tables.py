@@ -105,9 +105,12 @@ def concentration(fraction):
 
 
 def number(value, digits=4):
-    """A float in ``digits`` significant figures; '-' where it is not defined (NaN, None)."""
+    """A float in ``digits`` significant figures; '-' where it is not defined (NaN, None), and
+    "< 1e-12" for magnitudes below the trace floor (trace outlets, closures at round-off)."""
     if value is None or (isinstance(value, float) and math.isnan(value)):
         return "-"
+    if 0.0 < abs(value) < TRACE_FLOOR:
+        return TRACE_TEXT
     return f"{value:.{digits}g}"
 
 

@@ -22,7 +22,7 @@ def write_histograms(path, result):
     FigureCanvasAgg(figure)
     panels = figure.subplots(n, 1, squeeze=False)[:, 0]
     failed = int((~result.converged).sum())
-    for axes, (name, unit), column, summary in zip(panels, result.outputs, result.data.T, result.summaries):
+    for axes, (name, unit), column, summary in zip(panels, result.outputs, result.sample_outputs.T, result.summaries):
         shown_unit, values = display(unit, column[result.converged])
         axes.hist(values, bins=min(40, max(5, values.size // 10)), color="tab:blue", alpha=0.75)
         for label, value, style in (("nominal", summary.nominal, "-"), ("P10", summary.p10, ":"),

@@ -12,6 +12,7 @@ import math
 
 from .. import __version__
 from .cautions import SAFETY_CAUTIONS, safety_one_line
+from ..uncertainty.inputs import COLUMN, MURPHREE, OVERALL
 from .folder import MARKER, write_results_folder
 
 DISPLAY = {  # SI unit -> (display unit, scale, offset)
@@ -43,7 +44,7 @@ def uncertainty_record(case, result, files=()):
                     "basis": e.basis, "default": e.default} for e in result.inputs],
         "correlations": [{"inputs": [result.inputs[i].name, result.inputs[j].name], "coefficient": rho}
                          for i, j, rho in result.correlations],
-        "not_sampled": not_sampled(case.model),
+        "not_sampled": not_sampled(case, result.inputs),
         "outputs": [_summary_json(s) for s in result.summaries],
         "seconds": result.seconds,
         "files": list(files),
@@ -51,18 +52,36 @@ def uncertainty_record(case, result, files=()):
     }
 
 
-def not_sampled(model):
-    """What the samples leave out, each in one line: the equilibrium tables a case brings."""
-    return [f"the equilibrium table of {model.names[i]} (the case's own data, with no uncertainty stated): the "
-            "figures here leave its uncertainty out"
-            for i, kind in enumerate(model.equilibrium) if kind == "table"]
+def not_sampled(case, inputs):
+    """What the samples leave out, each in one line: the equilibrium tables a case brings, and a
+    tray efficiency that is not sampled (``uncertainty.inputs``)."""
+    model = case.model
+    lines = [f"the equilibrium table of {model.names[i]} (the case's own data, with no uncertainty stated): the "
+             "figures here leave its uncertainty out"
+             for i, kind in enumerate(model.equilibrium) if kind == "table"]
+    sampled = {e.quantity for e in inputs if e.component == COLUMN}
+    held = "held at the case's value (uncertainty.tray_efficiency is 0 %, or scope 'listed' without it)"
+    murphree_given = bool((case.column.murphree < 1.0).any())
+    if murphree_given and MURPHREE not in sampled:
+        lines.append(f"the Murphree efficiency: {held}")
+    if case.overall_efficiency is not None and OVERALL not in sampled:
+        stage_design = case.design is not None and case.design.solve_for == "n_stages"
+        lines.append("the overall efficiency: " + (held if stage_design else "it turns theoretical stages into trays "
+                     "and changes nothing solved on a column of fixed stages (it is sampled for a design on the stage "
+                     "count)"))
+    if not murphree_given and case.overall_efficiency is None:
+        lines.append("the tray efficiency: the stages are theoretical, with no efficiency given to sample")
+    return lines
 
 
 def _summary_json(s):
     return {"name": s.name, "unit": s.unit, "nominal": s.nominal, "mean": _finite(s.mean), "std": _finite(s.std),
             "p10": _finite(s.p10), "p50": _finite(s.p50), "p90": _finite(s.p90),
             "drivers": [{"input": name, "spearman": _finite(rho), "swing_per_standard_uncertainty": swing}
-                        for name, rho, swing in s.drivers]}
+                        for name, rho, swing in s.drivers],
+            "first_order_indices": [{"input": name, "index": _finite(index), "half_width_95": _finite(half)}
+                                    for name, index, half in s.first_order],
+            "first_order_note": s.first_order_note}
 
 
 def _finite(value):
@@ -98,7 +117,7 @@ def sample_rows(result):
               *(f"{name} [{unit}]" for name, unit in result.outputs), "reason"]
     rows = [header]
     for i in range(result.n_samples):
-        outputs = ["" if math.isnan(v) else repr(float(v)) for v in result.data[i]]
+        outputs = ["" if math.isnan(v) else repr(float(v)) for v in result.sample_outputs[i]]
         rows.append([i + 1, *(repr(float(f)) for f in result.factors[i]), bool(result.converged[i]), *outputs,
                      result.messages[i]])
     return rows
@@ -112,6 +131,18 @@ def _table(record):
         shown = [_shown(s["unit"], s[k]) for k in ("nominal", "p10", "p50", "p90", "mean")]
         drivers = ", ".join(f"{d['input']} ({d['spearman']:+.2f})" for d in s["drivers"][:3] if d["spearman"] is not None)
         lines.append(f"| {s['name']} | {unit} | " + " | ".join(shown) + f" | {drivers or 'none (does not vary)'} |")
+    return "\n".join(lines)
+
+
+def _first_order_section(record):
+    """The first-order indices of each output, largest three, or why they are missing."""
+    lines = ["## Share of each output's variance an input explains alone\n\nFirst-order sensitivity indices "
+             "(an estimate of Sobol's) by RBD-FAST from the same samples (S. Tarantola, D. Gatelli, T. A. Mara, "
+             "Reliab. Eng. Syst. Saf. 91 (2006) 717; SALib), with the 95 % half-width of the estimate.\n"]
+    for s in record["outputs"]:
+        found = sorted((d for d in s["first_order_indices"] if d["index"] is not None), key=lambda d: -d["index"])
+        shown = ", ".join(f"{d['input']} {d['index']:.2f} +/- {d['half_width_95'] or 0.0:.2f}" for d in found[:3])
+        lines.append(f"- {s['name']}: {shown or s['first_order_note']}")
     return "\n".join(lines)
 
 
@@ -129,6 +160,7 @@ def uncertainty_markdown(record):
         f"{record['converged_samples']} converged, {failed} failed.",
         f"**{record['statement']}**",
         "## Outputs\n\nP90 is the value the output stays at or below in 90 % of the converged samples.\n\n" + _table(record),
+        _first_order_section(record),
         "## Uncertain inputs\n\nEach is sampled as a log-normal factor of median 1 and log-standard deviation u. "
         "'default' marks a stated default where the source gives no uncertainty.\n\n"
         "| input | u | default | basis |\n| --- | --- | --- | --- |\n"
@@ -146,7 +178,8 @@ def uncertainty_markdown(record):
     parts.append("## Method\n\nProperty uncertainties carried through the rigorous stage model by sampling, after "
                  "W. B. Whiting, V. R. Vasquez, M. M. Meerschaert, Fluid Phase Equilib. 158-160 (1999) 627. Drivers: "
                  "Spearman's rank correlation between an input's sampled value and the output. The figures cover the "
-                 "property data only, not the model's own assumptions, the feed or the tray efficiency.")
+                 "property data and, where the case gives one, the tray efficiency (see the inputs); not the model's own "
+                 "assumptions or the feed.")
     parts.append("## Safety\n\n" + "\n".join(f"- {c}" for c in record["cautions"]))
     return "\n\n".join(parts) + "\n"
 

@@ -14,9 +14,10 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..mesh.newton import SolverSettings, solve_column
+from .inputs import COLUMN, MURPHREE
 from .sampling import factors_from_scores, normal_scores
 from .samples import run_local, sample_job, solve_sample
-from .statistics import confidence_sentence, summarise
+from .statistics import confidence_sentence, summarise, trays_clause
 
 ENGINES = ("local", "dask")
 
@@ -31,7 +32,7 @@ class UncertaintyResult:
     factors : ndarray (n, d)     The factor applied to each input [-]
     outputs : tuple of (name, unit)   (``samples.py``)
     nominal : ndarray (m,)       Outputs of the unperturbed case
-    data : ndarray (n, m)        Outputs per sample; NaN where it failed
+    sample_outputs : ndarray (n, m)   Outputs per sample; NaN where it failed
     converged : ndarray (n,) bool; messages : tuple of str (why a sample failed, '' otherwise)
     summaries : tuple of OutputSummary (``statistics.py``)
     design_output : str or None  The output a design adjusts ('stages', 'solvent_mass_flow',
@@ -50,7 +51,7 @@ class UncertaintyResult:
     factors: np.ndarray
     outputs: tuple
     nominal: np.ndarray
-    data: np.ndarray
+    sample_outputs: np.ndarray
     converged: np.ndarray
     messages: tuple
     summaries: tuple
@@ -122,6 +123,13 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     lead = design_output or f"outlet_ppmv:{model.names[key]}"
     column_of = [name for name, _ in job.outputs].index(lead)
     sentence = confidence_sentence(data[:, column_of], converged, design_output=design_output, key=model.names[key])
+    if "actual_trays" in [name for name, _ in job.outputs]:
+        trays = data[:, [name for name, _ in job.outputs].index("actual_trays")]
+        sentence = sentence.replace(" with 90 % confidence", " with 90 % confidence" + trays_clause(trays, converged), 1)
+    murphree = [e for e in inputs if e.component == COLUMN and e.quantity == MURPHREE]
+    if murphree:
+        stated = "a stated default" if murphree[0].default else "stated in the case"
+        sentence = f"{sentence[:-1]}; the Murphree efficiency is sampled too (u = {100 * murphree[0].relative:.3g} %, {stated})."
     tables = [name for name, kind in zip(model.names, model.equilibrium) if kind == "table"]
     if tables:
         sentence = f"{sentence[:-1]}; the equilibrium table of {' and '.join(tables)} is not sampled."

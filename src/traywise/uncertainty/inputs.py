@@ -21,6 +21,17 @@ value comes from, per quantity (``basis`` says which, ``default`` marks the stat
   liquid_heat_capacity  default 1 % (common practice); the file states only how closely the fit
                         follows its own source.
 
+Beside the property data, the tray efficiency the case gives (``COLUMN``; component 'column'):
+
+  murphree_efficiency   the Murphree vapour efficiency of every stage, scaled together, capped at 1;
+                        sampled when the case gives efficiencies below 1 (real trays).
+  overall_efficiency    the theoretical stages per actual tray; sampled only for a design on the
+                        stage count, where it turns the stages found into actual trays (a column
+                        of fixed theoretical stages solves the same whatever it is).
+  Default 10 % on either (common practice: a tray efficiency taken from a correlation or
+  from a similar column is commonly trusted to about this, relative); the case may state its own
+  (``tray_efficiency``) or 0 % to hold it fixed.
+
 The two Henry's-law parameters are sampled at the reference temperature, where a van 't Hoff fit's
 value and slope are least correlated; the sources give no correlation, so the default is 0 and
 a case may state one (``correlations``).
@@ -57,6 +68,10 @@ ATTRIBUTES = {  # quantity -> the Component attribute it perturbs
     "gas_heat_capacity": "ideal_gas_cp",
     "liquid_heat_capacity": "liquid_cp",
 }
+COLUMN = "column"  # the component name of the tray-efficiency inputs
+MURPHREE, OVERALL = "murphree_efficiency", "overall_efficiency"
+TRAY_EFFICIENCY_DEFAULT = 0.10
+TRAY_EFFICIENCY_WHY = "default: 10 % on a tray efficiency (common practice); the case states no uncertainty"
 SCOPES = ("all", "listed")
 REFERENCE_TEMPERATURE = T_REFERENCE  # [K], where the Henry's-law pair is sampled
 _NUMBER = r"([+-]?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?) %"
@@ -66,11 +81,13 @@ _NUMBER = r"([+-]?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?) %"
 class UncertainInput:
     """One sampled property value.
 
-    component : str      Component name
-    quantity : str       One of ``QUANTITIES``
+    component : str      Component name ('column' for a tray efficiency)
+    quantity : str       One of ``QUANTITIES``, or 'murphree_efficiency' / 'overall_efficiency'
     relative : float     Relative standard uncertainty u [-]
     basis : str          Where u comes from (source, component-file statement, default, case)
     default : bool       True when u is a stated default, not taken from the value's source
+    value : float or None   The nominal overall efficiency [-] for 'overall_efficiency' (the
+                            column does not carry it), None otherwise
     """
 
     component: str
@@ -78,6 +95,7 @@ class UncertainInput:
     relative: float
     basis: str
     default: bool
+    value: float | None = None
 
     @property
     def name(self):
@@ -97,6 +115,8 @@ class UncertaintyRequest:
     relative : dict              (component, quantity) -> u [-] stated in the case
     correlations : dict          component -> correlation coefficient [-] between its
                                  henry_constant and enthalpy_of_solution
+    tray_efficiency : float or None   u [-] of the tray efficiency stated in the case (None:
+                                 the default with scope 'all', not sampled with 'listed')
     """
 
     samples: int | None = None
@@ -104,15 +124,21 @@ class UncertaintyRequest:
     scope: str = "all"
     relative: dict = None
     correlations: dict = None
+    tray_efficiency: float | None = None
 
 
-def uncertain_inputs(model, request=UncertaintyRequest()):
-    """The sampled inputs of a property model and the correlations between them.
+def uncertain_inputs(model, request=UncertaintyRequest(), *, column=None, overall_efficiency=None,
+                     stage_design=False):
+    """The sampled inputs of a property model (and of the column's tray efficiency) and the
+    correlations between them.
 
     Parameters
     ----------
     model : PropertyModel
     request : UncertaintyRequest
+    column : Column, optional        Its Murphree efficiencies are sampled when any is below 1
+    overall_efficiency : float, optional   E_o of the case [-]; sampled when ``stage_design``
+    stage_design : bool              The case designs the stage count
 
     Returns
     -------
@@ -134,6 +160,7 @@ def uncertain_inputs(model, request=UncertaintyRequest()):
                 entry = library_uncertainty(component, quantity)
             if entry.relative > 0.0:
                 inputs.append(entry)
+    inputs += [e for e in efficiency_inputs(request, column, overall_efficiency, stage_design) if e.relative > 0.0]
     names = [entry.name for entry in inputs]
     correlations = []
     for component, rho in (request.correlations or {}).items():
@@ -141,6 +168,23 @@ def uncertain_inputs(model, request=UncertaintyRequest()):
         if all(name in names for name in pair) and rho != 0.0:
             correlations.append((names.index(pair[0]), names.index(pair[1]), float(rho)))
     return tuple(inputs), tuple(correlations)
+
+
+def efficiency_inputs(request, column, overall_efficiency, stage_design):
+    """The tray-efficiency inputs (module docstring): u as the case states it, else the default
+    (scope 'all'), else none (scope 'listed')."""
+    if request.tray_efficiency is not None:
+        relative, basis, default = float(request.tray_efficiency), "stated in the case file", False
+    elif request.scope == "listed":
+        return []
+    else:
+        relative, basis, default = TRAY_EFFICIENCY_DEFAULT, TRAY_EFFICIENCY_WHY, True
+    found = []
+    if column is not None and (column.murphree < 1.0).any():
+        found.append(UncertainInput(COLUMN, MURPHREE, relative, basis, default))
+    if overall_efficiency is not None and stage_design:
+        found.append(UncertainInput(COLUMN, OVERALL, relative, basis, default, float(overall_efficiency)))
+    return found
 
 
 def library_uncertainty(component, quantity):

@@ -10,6 +10,8 @@ A factor f multiplies, per quantity (``inputs.QUANTITIES``):
   vapour_pressure       Psat(T) at every T (its slope, and so Clapeyron's latent heat, unchanged)
   heat_of_vaporisation  the latent heat at its temperature
   gas_heat_capacity, liquid_heat_capacity   Cp at every T (all coefficients)
+  murphree_efficiency   every stage's Murphree efficiency (capped at 1, ``perturbed_column``)
+  overall_efficiency    the theoretical stages per actual tray (``sampled_overall_efficiency``)
 """
 
 import math
@@ -17,7 +19,9 @@ from dataclasses import dataclass, replace
 
 from ..properties.component import VapourPressure
 from ..properties.model import PropertyModel
-from .inputs import HENRY, REFERENCE_TEMPERATURE, SOLUTION
+import numpy as np
+
+from .inputs import COLUMN, HENRY, MURPHREE, OVERALL, REFERENCE_TEMPERATURE, SOLUTION
 
 
 @dataclass(frozen=True)
@@ -46,9 +50,30 @@ def perturbed_model(model, inputs, factors):
     """
     scaled = {}
     for entry, factor in zip(inputs, factors):
-        scaled.setdefault(entry.component, {})[entry.quantity] = float(factor)
+        if entry.component != COLUMN:
+            scaled.setdefault(entry.component, {})[entry.quantity] = float(factor)
+    if not scaled:
+        return model
     components = [perturbed_component(c, scaled.get(c.name, {})) for c in model.components]
     return PropertyModel(components, model.equilibrium, activity=model.activity, tables=model.tables)
+
+
+def perturbed_column(column, inputs, factors):
+    """The column with its Murphree efficiencies times the factor of a 'murphree_efficiency'
+    input, capped at 1 (the column itself without one)."""
+    for entry, factor in zip(inputs, factors):
+        if entry.component == COLUMN and entry.quantity == MURPHREE:
+            return replace(column, murphree=np.minimum(1.0, column.murphree * float(factor)))
+    return column
+
+
+def sampled_overall_efficiency(inputs, factors):
+    """The overall efficiency [-] of a sample (nominal times its factor, capped at 1), or None
+    without an 'overall_efficiency' input."""
+    for entry, factor in zip(inputs, factors):
+        if entry.component == COLUMN and entry.quantity == OVERALL:
+            return min(1.0, entry.value * float(factor))
+    return None
 
 
 def perturbed_component(component, factors):

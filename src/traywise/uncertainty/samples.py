@@ -8,6 +8,8 @@ whose solve or design fails keeps its row, NaN outputs and the reason.
 Outputs (name, unit), per case:
   stages [-], fractional_stages [-]    a design for the stage count: the stages that meet the
                                        target (and the count interpolated between N - 1 and N)
+  actual_trays [-]                     the same with the overall efficiency sampled: the trays
+                                       ceil(stages / E_o) of the sample's E_o
   solvent_mass_flow [kg/s]             a design for the solvent flow: the flow that meets it
   cooler_duty [W]                      a design for a cooler's duty: the duty that holds the limit
   outlet_ppmv:KEY [ppmv]               the key solute in the gas leaving (not for a solvent
@@ -23,10 +25,12 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
+from ..column import actual_trays
 from ..errors import TraywiseError
 from ..mesh.newton import SolverSettings, solve_column
 from ..workers import end_with_parent, issue_again, recording_warnings
-from .perturb import perturbed_model
+from .inputs import COLUMN, OVERALL
+from .perturb import perturbed_column, perturbed_model, sampled_overall_efficiency
 
 MAX_CHUNK = 25  # samples per chunk at most: progress stays live, and a chunk's overhead stays small
 
@@ -65,6 +69,8 @@ def sample_job(column, model, inputs, *, key, design=None, start=None, settings=
         solved_for = _solved_for(design)
         outputs += {"n_stages": [("stages", "-"), ("fractional_stages", "-")],
                     "solvent_flow": [("solvent_mass_flow", "kg/s")]}.get(solved_for, [("cooler_duty", "W")])
+        if any(entry.component == COLUMN and entry.quantity == OVERALL for entry in inputs):
+            outputs.append(("actual_trays", "-"))
     if design is None or _solved_for(design) != "solvent_flow":  # a solvent design fixes the outlet at its target
         outputs.append((f"outlet_ppmv:{model.names[key]}", "ppmv"))
     outputs.append(("max_temperature", "K"))
@@ -82,22 +88,28 @@ def solve_sample(job, factors):
     """(outputs list, converged, message) of one sample with the given factors."""
     try:
         model = perturbed_model(job.model, job.inputs, factors)
+        column = perturbed_column(job.column, job.inputs, factors)
         if job.design is None:
-            solution = solve_column(job.column, model, settings=job.settings, start=job.start)
+            solution = solve_column(column, model, settings=job.settings, start=job.start)
             result = None
         else:
             from ..design.plan import carry_out_design
 
-            result = carry_out_design(job.column, model, job.design, settings=job.settings).result
+            result = carry_out_design(column, model, job.design, settings=job.settings).result
             solution = result.solution
     except TraywiseError as failure:
         return [math.nan] * len(job.outputs), False, " ".join(str(failure).split())
-    return [_output(name, job, solution, result) for name, _ in job.outputs], True, ""
+    except (ArithmeticError, ValueError, RuntimeError) as failure:  # not foreseen: kept, with its type, not fatal
+        return [math.nan] * len(job.outputs), False, f"unexpected {type(failure).__name__}: {' '.join(str(failure).split())}"
+    overall = sampled_overall_efficiency(job.inputs, factors)
+    return [_output(name, job, solution, result, overall) for name, _ in job.outputs], True, ""
 
 
-def _output(name, job, solution, result):
+def _output(name, job, solution, result, overall):
     if name == "stages":
         return float(result.column.n_stages)
+    if name == "actual_trays":
+        return float(actual_trays(result.column.n_stages, overall))
     if name == "fractional_stages":
         return float(result.fractional_stages if result.fractional_stages is not None else result.column.n_stages)
     if name == "solvent_mass_flow":
@@ -150,7 +162,7 @@ _WORKER_JOB = None
 
 def _start_worker(job, parent):
     """Worker initialiser: keep the job, and end this worker when its parent ends (on Linux by
-    prctl PR_SET_PDEATHSIG, elsewhere by polling, as the sweep's workers do)."""
+    prctl PR_SET_PDEATHSIG, elsewhere by polling; ``traywise.workers``)."""
     global _WORKER_JOB
     _WORKER_JOB = job
     end_with_parent(parent)

@@ -7,7 +7,11 @@ ranked by Spearman's rank correlation between an input's sampled score and the o
 (C. Spearman, Am. J. Psychol. 15 (1904) 72; scipy.stats.spearmanr); the swing is the output's
 change for one standard uncertainty of the input, the slope of the output against that input's
 score alone (a first-order estimate that the other, independent inputs only add noise to;
-beside the rank correlation, which needs no linearity).
+beside the rank correlation, which needs no linearity). Where SALib is installed (optional:
+``pip install "traywise[sensitivity]"``), each output also gets first-order sensitivity indices
+(the share of its variance an input explains alone, an estimate of Sobol's first-order index)
+by RBD-FAST from the same Latin hypercube samples (S. Tarantola, D. Gatelli, T. A. Mara, Reliab.
+Eng. Syst. Saf. 91 (2006) 717; SALib.analyze.rbd_fast, with its bootstrap 95 % half-width).
 """
 
 import math
@@ -28,6 +32,10 @@ class OutputSummary:
     p10, p50, p90 : float    Percentiles [unit]
     drivers : tuple of (input name, spearman rho [-], swing per standard uncertainty [unit])
                              sorted by |rho|, largest first (rho NaN when the output does not vary)
+    first_order : tuple of (input name, index [-], 95 % half-width [-]) in input order; () when
+                             SALib is not installed, the output does not vary or the samples
+                             are too few (``first_order_note`` says which)
+    first_order_note : str   '' when the indices are there, else why not
     """
 
     name: str
@@ -39,6 +47,8 @@ class OutputSummary:
     p50: float
     p90: float
     drivers: tuple
+    first_order: tuple = ()
+    first_order_note: str = ""
 
 
 def percentiles(values):
@@ -68,7 +78,29 @@ def summarise(name, unit, nominal, values, scores, input_names):
         drivers = [(input_name, math.nan, 0.0) for input_name in input_names]
     std = float(np.std(values, ddof=1)) if values.size > 1 else math.nan
     mean = float(np.mean(values)) if values.size else math.nan
-    return OutputSummary(name, unit, float(nominal), mean, std, p10, p50, p90, tuple(drivers))
+    first_order, note = first_order_indices(values, scores, input_names)
+    return OutputSummary(name, unit, float(nominal), mean, std, p10, p50, p90, tuple(drivers), first_order, note)
+
+
+MIN_SAMPLES_FIRST_ORDER = 200  # fewer leave the estimates too noisy to rank by (95 % half-widths near 0.5 at 60)
+FIRST_ORDER_SEED = 1  # the bootstrap of the half-widths: fixed, so the same samples give the same numbers
+
+
+def first_order_indices(values, scores, input_names):
+    """(tuple of (input, S1, 95 % half-width), note) by RBD-FAST (module docstring) of values (n,)
+    against scores (n, d); ((), why) when they cannot be had."""
+    if values.size < MIN_SAMPLES_FIRST_ORDER:
+        return (), f"first-order indices need at least {MIN_SAMPLES_FIRST_ORDER} converged samples"
+    if not scores.shape[1] or np.ptp(values) == 0.0:
+        return (), "the output does not vary"
+    try:
+        from SALib.analyze import rbd_fast
+    except ImportError:
+        return (), 'first-order indices need SALib (pip install "traywise[sensitivity]")'
+    bounds = [[float(c.min()), float(c.max())] for c in scores.T]
+    problem = {"num_vars": scores.shape[1], "names": list(input_names), "bounds": bounds}
+    found = rbd_fast.analyze(problem, scores, values, seed=FIRST_ORDER_SEED)
+    return tuple((n, float(s1), float(c)) for n, s1, c in zip(input_names, found["S1"], found["S1_conf"])), ""
 
 
 def confidence_sentence(values, converged, *, design_output=None, key=None):
@@ -93,3 +125,13 @@ def confidence_sentence(values, converged, *, design_output=None, key=None):
     if design_output == "cooler_duty":
         return f"{lead}, a cooler duty of {p90 / 1e3:.4g} kW holds the limit with 90 % confidence{failed}."
     return f"{lead}, {key} leaves at or below {p90:.4g} ppmv with 90 % confidence{failed}."
+
+
+def trays_clause(values, converged):
+    """'; N actual trays with the overall tray efficiency uncertain too' for the sentence: the P90 of
+    the sampled trays (a failed sample counts as not meeting the target), '' when none is stated."""
+    values = np.where(np.asarray(converged, dtype=bool), np.asarray(values, dtype=float), np.inf)
+    p90 = float(np.percentile(values, 90.0, method="inverted_cdf")) if values.size else math.inf
+    if not math.isfinite(p90):
+        return ""
+    return f"; with the overall tray efficiency uncertain too, {int(p90)} actual trays"
