@@ -76,3 +76,16 @@ def test_the_run_reports_ph_ionic_strength_and_species_on_every_stage(tmp_path):
     assert "m_HSO3-_mol_per_kg" in rows[0] and "ionic_strength_mol_per_kg" in rows[0]
     assert (tmp_path / "out" / "ph_profile.png").stat().st_size > 1000
     assert "Liquid chemistry (aqueous electrolyte)" in (tmp_path / "out" / "report.md").read_text()
+
+
+def test_the_assumptions_say_which_solutes_ionise():
+    from traywise.report.assumptions import _chemistry_line
+
+    def line(kind):
+        return _chemistry_line({"components": [{"name": "water", "equilibrium_model": "raoult"},
+                                               {"name": "sulfur dioxide", "equilibrium_model": kind},
+                                               {"name": "nitrogen", "equilibrium_model": "henry"}]})
+
+    assert line("electrolyte").startswith("Ionisation and reactions in the liquid for sulfur dioxide")
+    assert "nitrogen physical" in line("electrolyte")
+    assert line("henry").startswith("No chemical reactions or ionisation")
