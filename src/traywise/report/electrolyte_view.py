@@ -19,4 +19,20 @@ def electrolyte_blocks(results):
          *(f"{chemistry['molality_mol_per_kg'][name][j]:.3g}" for name in species))
         for j in range(len(chemistry["pH"]))
     ]
-    return [(SECTION, "table", (headers, rows)), (None, "text", NOTE)]
+    return [(SECTION, "table", (headers, rows)), (None, "text", NOTE), *_with_and_without(results)]
+
+
+def _with_and_without(results):
+    """The same column with and without the electrolyte liquid: absorbed per solute, both closures."""
+    physical = results["electrolyte"]["with_henry"]
+    if physical is None:
+        return []
+    names = [c["name"] for c in results["components"] if c["equilibrium_model"] == "electrolyte"]
+    rows = [(name, f"{100 * results['fraction_absorbed'][name]:.6g}", f"{100 * physical['fraction_absorbed'][name]:.6g}")
+            for name in names]
+    closure = max(results["convergence"]["component_closure"].values())
+    rows.append(("largest component balance closure [-]", f"{closure:.1e}", f"{physical['max_component_closure']:.1e}"))
+    rows.append(("energy balance closure [-]", f"{results['convergence']['energy_closure']:.1e}",
+                 f"{physical['energy_closure']:.1e}"))
+    headers = ["absorbed [%]", "electrolyte liquid (this run)", "physical Henry's law (same column)"]
+    return [("With and without the electrolyte liquid", "table", (headers, rows))]
