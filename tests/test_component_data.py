@@ -16,6 +16,8 @@ from traywise.properties.model import PropertyModel
 COMPONENTS = list(library().values())
 IDS = [c.name for c in COMPONENTS]
 HENRY_COMPONENTS = [c for c in COMPONENTS if c.henry_in_water is not None]
+# Dissolved non-volatile solutes (sodium hydroxide) have no vapour-liquid critical point in the file.
+CRITICAL_COMPONENTS = [c for c in COMPONENTS if c.critical_temperature is not None]
 CP_TEMPERATURES = (300.0, 400.0, 500.0)
 SECOND_CP_METHODS = ("POLING_POLY", "TRCIG", "WEBBOOK_SHOMATE", "JANAF")
 
@@ -149,10 +151,25 @@ def test_van_t_hoff_consistency(component, temperature):
 # Fluid Phase Equilib. 227 (2005) 157) as shipped in chemicals. Compilations differ by up to about
 # 2 % in Pc (ethanol, HCl) and 0.01 in omega (three decimals, different vapour-pressure data):
 # Tc 1 %, Pc 2 %, omega 0.012 absolute.
-@pytest.mark.parametrize("component", COMPONENTS, ids=IDS)
+@pytest.mark.parametrize("component", CRITICAL_COMPONENTS, ids=[c.name for c in CRITICAL_COMPONENTS])
 def test_critical_constants_against_a_second_compilation(component):
     from chemicals import Pc, Tc, omega
 
     assert component.critical_temperature.value == pytest.approx(Tc(component.cas, method="PSRK"), rel=0.01)
     assert component.critical_pressure.value == pytest.approx(Pc(component.cas, method="PSRK"), rel=0.02)
     assert component.acentric_factor.value == pytest.approx(omega(component.cas, method="PSRK"), abs=0.012)
+
+
+def test_every_component_without_critical_constants_is_a_dissolved_solute():
+    assert {c.name for c in COMPONENTS if c.critical_temperature is None} == {"sodium hydroxide"}
+
+
+def test_sodium_hydroxide_against_second_sources():
+    caustic = next(c for c in COMPONENTS if c.name == "sodium hydroxide")
+    assert caustic.equilibrium == "nonvolatile" and caustic.cas == "1310-73-2"
+    # molar mass from the IUPAC standard atomic weights Na 22.98977, O 15.999, H 1.008 (recalled from memory)
+    assert caustic.molar_mass.value == pytest.approx((22.98977 + 15.999 + 1.008) * 1e-3, rel=1e-4)
+    # standard partial molar heat capacity at infinite dilution: -102 J/(mol K) at 25 degC, as in
+    # CRC Handbook of Chemistry and Physics, "Standard thermodynamic properties of chemical substances"
+    # (NaOH, aq, standard state m = 1; recalled from memory)
+    assert caustic.liquid_cp.heat_capacity(np.array([298.15]))[0] == pytest.approx(-102.0, abs=1.0)

@@ -102,7 +102,8 @@ class Result:
         units in the names, stage 1 at the top)."""
         from .report.stages import component_labels, stage_table
 
-        headers, rows = stage_table(self.run.solution, component_labels(self.run.case.model.components))
+        headers, rows = stage_table(self.run.solution, component_labels(self.run.case.model.components),
+                                    self.run.speciation)
         return [dict(zip(headers, row)) for row in rows]
 
     def stage_frame(self):

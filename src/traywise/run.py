@@ -56,6 +56,11 @@ class CaseRun:
                                                it needs (``traywise.mesh.phase_transfer``)
     liquid_volume_flows : dict or None   'solvent_in' and 'liquid_out' -> volume flow [m3/s] or
                                          None (``traywise.properties.liquid_volume``)
+    speciation : Speciation or None      The species, pH and ionic strength of the liquid on every
+                                         stage when the case uses the aqueous electrolyte liquid
+                                         (``traywise.properties.electrolyte``)
+    physical_henry : ColumnSolution or None   With the electrolyte liquid: the same column solved
+                                         with physical Henry's law for its solutes, for comparison
     notes : tuple of str          Why a side result is missing; library warnings in our words
     """
 
@@ -69,6 +74,8 @@ class CaseRun:
     sizing: object = None
     solvent_balance: object = None
     liquid_volume_flows: dict | None = None
+    speciation: object = None
+    physical_henry: object = None
 
     @property
     def warnings(self):
@@ -132,9 +139,16 @@ def complete_run(case, solution, *, design=None, settings=RunSettings()):
                 xy = None if other is None else other.isothermal_design
         balance = _side("the solvent balance", notes, lambda: _solvent_balance(case, solution))
         volumes = _side("the liquid volume flows", notes, lambda: _liquid_volumes(case, solution))
+        species = physical = None
+        if getattr(case.model, "electrolyte", None) is not None:
+            species = _side("the speciation of the liquid", notes, lambda: _speciation(case, solution))
+            if settings.side_results:
+                physical = _side("the column with Henry's law instead of the electrolyte liquid", notes,
+                                 lambda: _physical_henry(case, solution))
     notes.extend(note for note in library_warnings(caught) if note not in notes)
     notes.extend(_feed_pressure_notes(case, solution.column))
-    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing, balance, volumes)
+    return CaseRun(case, solution, design, comparison, kremser, xy, tuple(notes), sizing, balance, volumes, species,
+                   physical)
 
 
 def _feed_pressure_notes(case, column):
@@ -261,6 +275,23 @@ def _solvent_balance(case, solution):
     from .mesh.phase_transfer import solvent_balance
 
     return solvent_balance(solution, case.model.names.index(case.solvent))
+
+
+def _speciation(case, solution):
+    """The electrolyte liquid's species on every stage of the converged profile."""
+    return case.model.electrolyte.speciation(solution.temperature, solution.liquid_mole_fractions)
+
+
+def _physical_henry(case, solution):
+    """The solved column again, its 'electrolyte' solutes under physical Henry's law."""
+    from .mesh.newton import solve_column
+    from .properties.model import PropertyModel
+
+    model = case.model
+    kinds = ["henry" if kind == "electrolyte" else kind for kind in model.equilibrium]
+    physical = PropertyModel(model.components, kinds, activity=model.activity, tables=model.tables,
+                             gas_phase=model.gas_phase)
+    return solve_column(solution.column, physical)
 
 
 def _liquid_volumes(case, solution):

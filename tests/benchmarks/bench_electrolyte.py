@@ -20,7 +20,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
 from support.electrolyte import ElectrolyteCase  # noqa: E402
 
-from traywise.properties.model import _Arrays  # noqa: E402
+from traywise.properties.composition_liquids import StageArrays as _Arrays  # noqa: E402
 
 STAGES = 40
 CASES = {

@@ -24,7 +24,8 @@ from traywise.column import Column, Feed  # noqa: E402
 from traywise.mesh.newton import solve_column  # noqa: E402
 from traywise.properties.electrolyte import AqueousElectrolyte  # noqa: E402
 from traywise.properties.library import find_component  # noqa: E402
-from traywise.properties.model import PropertyModel, StageProperties, _Arrays  # noqa: E402
+from traywise.properties.composition_liquids import StageArrays as _Arrays  # noqa: E402
+from traywise.properties.model import PropertyModel, StageProperties  # noqa: E402
 
 STAGES = 40
 

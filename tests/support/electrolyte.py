@@ -10,7 +10,8 @@ from traywise.properties.component import Quantity
 from traywise.properties.electrolyte import AqueousElectrolyte
 from traywise.properties.inline import inline_component
 from traywise.properties.library import find_component
-from traywise.properties.model import PropertyModel, _Arrays
+from traywise.properties.composition_liquids import StageArrays as _Arrays
+from traywise.properties.model import PropertyModel
 
 NAMES = {"NH3": "ammonia", "CO2": "carbon dioxide", "H2S": "hydrogen sulfide", "SO2": "sulfur dioxide",
          "HCl": "hydrogen chloride"}

@@ -50,7 +50,7 @@ TOP_KEYS = (
 REPORT_KEYS = ("plots", "xy_solute", "units")
 LONGEST_INTEGER = 4301  # digits: Python refuses to turn a longer text into an int (sys.get_int_max_str_digits)
 LIQUID_KINDS = ("raoult", "nonvolatile", "eos")  # equilibrium models of components that can be the solvent
-SOLUBLE_KINDS = ("henry", "raoult", "activity", "table", "eos")  # models with a finite, non-zero K: candidates for the key
+SOLUBLE_KINDS = ("henry", "raoult", "activity", "table", "eos", "electrolyte")  # models with a finite, non-zero K: candidates for the key
 
 
 @dataclass(frozen=True, eq=False)

@@ -1,6 +1,6 @@
 """Generate the component library: one TOML file per component in components/.
 
-    python -m traywise.databank.build                  rebuild the 22 default components
+    python -m traywise.databank.build                  rebuild the 23 default components
     python -m traywise.databank.build "1-butanol" 71-43-2   add or rebuild components by name or CAS
     python -m traywise.databank.build --output DIR ...      write somewhere else (for audits)
 
@@ -34,12 +34,12 @@ DEFAULT_COMPONENTS = (
     "water", "nitrogen", "oxygen", "argon", "carbon dioxide", "sulfur dioxide", "hydrogen sulfide",
     "ammonia", "hydrogen chloride", "methane", "acetone", "methanol", "ethanol",
     "hydrogen", "carbon monoxide", "ethane", "propane", "n-butane", "chlorine", "benzene", "toluene",
-    "n-hexadecane",
+    "n-hexadecane", "sodium hydroxide",
 )
 # Formulas as engineers write them (chemicals gives Hill order, e.g. 'O2S'), by CAS number.
 FORMULAS = {
     "7446-09-5": "SO2", "7664-41-7": "NH3", "7647-01-0": "HCl", "7783-06-4": "H2S",
-    "67-64-1": "CH3COCH3", "67-56-1": "CH3OH", "64-17-5": "C2H5OH", "108-88-3": "C6H5CH3",
+    "67-64-1": "CH3COCH3", "67-56-1": "CH3OH", "64-17-5": "C2H5OH", "108-88-3": "C6H5CH3", "1310-73-2": "NaOH",
 }
 ALIASES = {
     "7446-09-5": ["sulphur dioxide"], "7783-06-4": ["hydrogen sulphide"], "67-64-1": ["propanone"],
@@ -83,6 +83,8 @@ def build_component(text):
     formula = FORMULAS.get(cas, hill)
     liquid_at_25c = cas == tables.WATER or (Tm(cas) or 0.0) < T_REFERENCE < (Tb(cas) or 0.0)
     found = {"molar_mass": tables.molar_mass(cas), "ideal_gas_cp": tables.ideal_gas_cp(cas)}
+    if cas in tables.DISSOLVED_SOLUTES:  # a non-volatile solute of aqueous solvents (sodium hydroxide)
+        return _dissolved_solute_file(name, cas, formula, found)
     if liquid_at_25c:
         found.update(melting_point=tables.melting_point(cas), liquid_cp=tables.liquid_cp(cas),
                      vapour_pressure=tables.vapour_pressure(cas), heat_of_vaporisation=tables.heat_of_vaporisation(cas))
@@ -105,6 +107,19 @@ def build_component(text):
         sources.update(table.sources)
     body = {key: table.fields for key, table in found.items()} | {"sources": sources}
     header = [line.format(name=name, formula=formula, cas=cas) for line in HEADER]
+    return file_name(name), component_text(header, identity, body)
+
+
+def _dissolved_solute_file(name, cas, formula, found):
+    """(file name, TOML text) of a non-volatile solute of aqueous solvents: molar mass, ideal-gas
+    heat capacity (the enthalpy reference), its solution heat capacity; equilibrium 'nonvolatile'."""
+    found["liquid_cp"] = tables.solution_cp(cas)
+    sources = {}
+    for table in found.values():
+        sources.update(table.sources)
+    body = {key: found[key].fields for key in TABLE_ORDER if key in found} | {"sources": sources}
+    header = [line.format(name=name, formula=formula, cas=cas) for line in HEADER]
+    identity = {"name": name, "formula": formula, "cas": cas, "equilibrium": "nonvolatile"}
     return file_name(name), component_text(header, identity, body)
 
 

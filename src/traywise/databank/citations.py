@@ -148,3 +148,10 @@ STAUDINGER_ROBERTS_2001 = (
     "R. Sander, Compilation of Henry's law constants (version 4.0) for water as solvent, Atmos. Chem. Phys. 15 "
     "(2015) 4399-4981 (values recalled from memory)"
 )
+
+NBS_TABLES_1982 = (
+    "D. D. Wagman, W. H. Evans, V. B. Parker, R. H. Schumm, I. Halow, S. M. Bailey, K. L. Churney, "
+    "R. L. Nuttall, The NBS tables of chemical thermodynamic properties, J. Phys. Chem. Ref. Data 11 (1982) "
+    "Suppl. 2: standard partial molar heat capacity of NaOH in water at infinite dilution, 25 degC, from "
+    "Cp(Na+, aq) = 46.4 and Cp(OH-, aq) = -148.5 J/(mol K) (values recalled from memory)"
+)

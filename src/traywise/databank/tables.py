@@ -311,3 +311,22 @@ def henry_in_water(cas):
     fields.update({"unit": "Pa", "t_min": t_range[0], "t_max": t_range[1], "source": source,
                    "note": " ".join(notes)})
     return Table(fields, sources)
+
+
+# Non-volatile solutes of aqueous solvent feeds (the aqueous electrolyte liquid's sodium hydroxide):
+# CAS -> standard partial molar heat capacity at infinite dilution in water at 25 degC [J/(mol K)].
+DISSOLVED_SOLUTES = {"1310-73-2": -102.1}  # NBS tables 1982 (citations.NBS_TABLES_1982)
+SOLUTION_CP_RANGE = (273.15, 373.15)  # K, the liquid-water range the constant is used over
+
+
+def solution_cp(cas):
+    """The heat capacity of a dissolved non-volatile solute: its standard partial molar heat
+    capacity in water at infinite dilution, held constant (the electrolyte liquid adds the excess
+    part); negative for sodium hydroxide, as the hydroxide ion orders the water around it."""
+    value = DISSOLVED_SOLUTES[cas]
+    fields = {"form": "polynomial", "coefficients": [value], "unit": "J/(mol K)",
+              "t_min": SOLUTION_CP_RANGE[0], "t_max": SOLUTION_CP_RANGE[1], "source": "nbs_tables_1982",
+              "note": "Solution basis: the standard partial molar heat capacity in water at infinite dilution at "
+                      "25 degC (not the pure solid's or melt's), held constant over 0-100 degC (its "
+                      "temperature dependence is not represented)."}
+    return Table(fields, {"nbs_tables_1982": citations.NBS_TABLES_1982})

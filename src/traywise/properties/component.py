@@ -26,8 +26,9 @@ from .correlations import (
 WATER_CAS = "7732-18-5"
 EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a component's own default model
 # Models a property model can also give a component: they need more than the component's data
-# (an activity model of the liquid, or an equilibrium table), so they are chosen per case.
-MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos")
+# (an activity model of the liquid, an equilibrium table, the other members of the aqueous
+# electrolyte liquid), so they are chosen per case.
+MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos", "electrolyte")
 # What each equilibrium model needs of a component: the Component attributes that must not be
 # None (an activity model or an equilibrium table, needed too, belongs to the case, not here).
 MODEL_NEEDS = {
@@ -38,6 +39,7 @@ MODEL_NEEDS = {
     "activity": ("henry_in_water", "vapour_pressure"),
     "table": (),
     "eos": ("critical_temperature", "critical_pressure", "acentric_factor"),
+    "electrolyte": (),  # its CAS number must be one the electrolyte liquid knows (composition_liquids)
 }
 
 

@@ -41,7 +41,7 @@ class EosLiquid:
 
     def apply(self, props, t, p, x):
         """Set ln K (= ln phi_L; the gas phase divides by phi_V), its T- and x-derivatives and
-        the liquid enthalpies of the members in ``props`` (model._Arrays), in place."""
+        the liquid enthalpies of the members in ``props`` (composition_liquids.StageArrays), in place."""
         n, m = t.size, self.members.size
         members = self.members
         x_members = np.maximum(x[:, members], 0.0)

@@ -35,12 +35,10 @@ import numpy as np
 
 from ..errors import InputError
 from .component import MODEL_KINDS, MODEL_NEEDS
-from .binary import kij_matrix
-from .constants import GAS_CONSTANT, T_REFERENCE
-from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope, stable_polynomial_antiderivative
-from .eos_liquid import EosLiquid
-from .equilibrium_table import TINY
-from .liquid import AnchoredLiquid
+from .composition_liquids import ActivityMembers, StageArrays, aqueous_electrolyte, eos_liquid, table_solutes
+from .constants import GAS_CONSTANT
+from .correlations import iapws_henry, ln_henry_terms, solution_enthalpy_from_slope
+from .heat_capacity import StackedHeatCapacities
 
 
 @dataclass(frozen=True)
@@ -59,62 +57,6 @@ class StageProperties:
     dh_liquid_dt: np.ndarray
     dlnk_dx: np.ndarray | None = None
     dlnk_dy: np.ndarray | None = None
-
-
-@dataclass
-class _Arrays:
-    """The arrays of ``StageProperties`` while they are filled in, with ln K in place of K."""
-
-    ln_k: np.ndarray
-    dlnk_dt: np.ndarray
-    h_vapour: np.ndarray
-    dh_vapour_dt: np.ndarray
-    h_liquid: np.ndarray
-    dh_liquid_dt: np.ndarray
-    dlnk_dx: np.ndarray
-
-
-class _StackedPolynomials:
-    """Several heat-capacity polynomials evaluated together: Cp and its integral from T_ref.
-
-    Both are power sums over one table of powers of s (built by doubling) contracted with the
-    coefficients in one batched matrix product: a handful of numpy calls for any number of
-    components and any degree, instead of a Horner loop over the coefficients.
-    """
-
-    def __init__(self, heat_capacities):
-        degree = max(len(cp.coefficients) for cp in heat_capacities)
-        coefficients = np.zeros((degree, len(heat_capacities)))
-        for j, cp in enumerate(heat_capacities):
-            coefficients[degree - len(cp.coefficients) :, j] = cp.coefficients
-        self.offset = np.array([cp.offset for cp in heat_capacities])[:, None]
-        self.scale = np.array([cp.scale for cp in heat_capacities])[:, None]
-        integral = stable_polynomial_antiderivative(coefficients, self.scale[:, 0])
-        cp_padded = np.concatenate([np.zeros((1, len(heat_capacities))), coefficients])
-        # (component, [integral, Cp], power), lowest power first; d/dT Q(s) = Q'(s) scale = P(s).
-        self._coefficients = np.ascontiguousarray(np.stack([integral[::-1].T, cp_padded[::-1].T], axis=1))
-        self.integral_at_reference = self._integral(np.array([T_REFERENCE]))[0][0]
-
-    def _integral(self, temperature):
-        """Integral polynomial and its T-derivative (= Cp), each (n, m)."""
-        s = self.scale * np.reshape(temperature, (1, -1)) + self.offset  # (m, n)
-        n_powers = self._coefficients.shape[2]
-        powers = np.empty((n_powers,) + s.shape)  # s**k for k = 0 .. n_powers-1
-        powers[0] = 1.0
-        if n_powers > 1:
-            powers[1] = s
-        done = 2
-        while done < n_powers:
-            block = min(done, n_powers - done)
-            np.multiply(powers[:block], powers[done - 1] * s, out=powers[done : done + block])
-            done += block
-        both = np.matmul(self._coefficients, powers.transpose(1, 0, 2))  # (m, 2, n)
-        return both[:, 0, :].T, both[:, 1, :].T
-
-    def enthalpy(self, temperature):
-        """(integral of Cp from T_ref to T [J/mol], Cp [J/(mol K)]), shape (n, m)."""
-        value, cp = self._integral(temperature)
-        return value - self.integral_at_reference, cp
 
 
 class PropertyModel:
@@ -159,7 +101,7 @@ class PropertyModel:
         liquid = list(index["raoult"]) + list(index["nonvolatile"])
         self._liquid_index = np.array(liquid, dtype=int)
         # One stack of heat capacities: ideal gas of every component, then liquid of the liquids.
-        self._cp = _StackedPolynomials(
+        self._cp = StackedHeatCapacities(
             [c.ideal_gas_cp for c in self.components] + [self.components[i].liquid_cp for i in liquid]
         )
         forms = np.array([self.components[i].henry_in_water.form for i in index["henry"]], dtype=object)
@@ -176,13 +118,8 @@ class PropertyModel:
             self.reference_liquid[min(liquid)] = 1.0
         self.activity = activity
         self.tables = dict(tables or {})
-        self._activity_liquid = self._anchored_liquid(activity)
-        self._table_models = self._prepared_tables()
-        self._eos_liquid = _eos_liquid(self.components, index["eos"])
-        if self._eos_liquid is not None and not liquid:
-            self.reference_liquid[self._eos_liquid.heaviest] = 1.0
-        self.composition_dependent = (self._activity_liquid is not None or bool(self._table_models)
-                                      or self._eos_liquid is not None)
+        self._liquids = self._composition_liquids(activity)
+        self.composition_dependent = bool(self._liquids)
         self.gas_phase = gas_phase
 
     @staticmethod
@@ -201,52 +138,28 @@ class PropertyModel:
                 return i
         raise InputError("key_solute", f"'{key}' is not a component of the model; expected one of {', '.join(self.names)}")
 
-    def _position(self, name, where):
-        if name not in self.names:
-            raise InputError(where, f"'{name}' is not a component of the model; expected one of {', '.join(self.names)}")
-        return self.names.index(name)
-
-    def _anchored_liquid(self, activity):
-        """The ``AnchoredLiquid`` of the activity model's members, or None without one."""
-        if activity is None:
-            if self.index["activity"].size:
-                name = self.names[self.index["activity"][0]]
-                raise InputError(name, "equilibrium model 'activity' needs an activity model of the liquid (activity=...)")
-            return None
-        members = [self._position(name, "activity") for name in activity.names]
-        for i in members:
-            if self.equilibrium[i] not in ("raoult", "activity", "nonvolatile"):
-                raise InputError(self.names[i], f"a member of the liquid activity model must be 'raoult', 'activity' or "
-                                               f"'nonvolatile', not '{self.equilibrium[i]}'")
-        outside = [self.names[i] for i in self.index["activity"] if i not in members]
-        if outside:
-            raise InputError("activity", f"{', '.join(outside)} use model 'activity' but are not in the activity model")
-        water = [p for p, i in enumerate(members) if self.components[i].is_water]
-        anchored = [(p, self.components[i].henry_in_water, self.components[i].vapour_pressure)
-                    for p, i in enumerate(members) if self.equilibrium[i] == "activity"]
-        liquid = AnchoredLiquid(activity, members, anchored, water[0] if water else None)
-        self._ideal_members = np.array([p for p, i in enumerate(members) if self.equilibrium[i] != "activity"], dtype=int)
-        self._member_pairs = (np.array(members)[:, None] * self.n_components + np.array(members)[None, :]).reshape(-1)
-        return liquid
-
-    def _prepared_tables(self):
-        """{component index: (solvent index, TableEquilibrium)} for the 'table' components."""
-        prepared = {}
-        for i in self.index["table"]:
-            table = self.tables.get(self.names[i])
-            if table is None:
-                raise InputError(self.names[i], "equilibrium model 'table' needs an equilibrium table (tables={name: ...})")
-            s = self._position(table.solvent, f"{self.names[i]}: table.solvent")
-            if self.equilibrium[s] not in ("raoult", "nonvolatile"):
-                raise InputError(
-                    f"{self.names[i]}: table.solvent", f"'{table.solvent}' must be a 'raoult' or 'nonvolatile' liquid"
-                )
-            prepared[i] = (s, table.prepared(self.molar_mass[i], self.molar_mass[s]))
-        table_names = {self.names[i] for i in self.index["table"]}
-        extra = [name for name in self.tables if name not in table_names]
-        if extra:
-            raise InputError("tables", f"tables given for {', '.join(extra)}, whose equilibrium model is not 'table'")
-        return prepared
+    def _composition_liquids(self, activity):
+        """The composition-dependent liquids, in the order they are applied
+        (``composition_liquids``): the activity model's members, the table solutes, the
+        Peng-Robinson liquid. A new liquid with ``apply(props, t, p, x)`` (and optionally
+        ``range_warnings(t, x)``) is added here."""
+        liquids = []
+        if activity is not None:
+            liquids.append(ActivityMembers(activity, self.names, self.equilibrium, self.components))
+        elif self.index["activity"].size:
+            name = self.names[self.index["activity"][0]]
+            raise InputError(name, "equilibrium model 'activity' needs an activity model of the liquid (activity=...)")
+        liquids.extend(table_solutes(self.names, self.equilibrium, self.molar_mass, self.tables))
+        eos = eos_liquid(self.components, self.equilibrium)
+        if eos is not None:
+            liquids.append(eos)
+            if not self._liquid_index.size:
+                self.reference_liquid[eos.heaviest] = 1.0
+        electrolyte = aqueous_electrolyte(self.components, self.equilibrium)
+        if electrolyte is not None:
+            liquids.append(electrolyte)
+        self.electrolyte = electrolyte
+        return liquids
 
     def _liquid_enthalpy_offsets(self, liquid):
         """Liquid enthalpy at T_ref for raoult/nonvolatile components: h_V(T_v) - dH_vap(T_v)
@@ -305,13 +218,9 @@ class PropertyModel:
             else:
                 x = np.asarray(liquid_mole_fractions, dtype=float).reshape(n, m)
             dlnk_dx = np.zeros((n, m, m))
-            props = _Arrays(ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
-            if self._activity_liquid is not None:
-                self._add_activity(props, t, ln_p, x)
-            for i, (s, table) in self._table_models.items():
-                _add_table(props, t, ln_p, x, i, s, table)
-            if self._eos_liquid is not None:
-                self._eos_liquid.apply(props, t, p, x)
+            props = StageArrays(ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx)
+            for liquid in self._liquids:
+                liquid.apply(props, t, p, x)
         dlnk_dy = None if self.gas_phase is None else self.gas_phase.apply(
             t, p, (ln_k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt), vapour_mole_fractions)
         k = np.exp(ln_k)
@@ -327,33 +236,12 @@ class PropertyModel:
         """The same for the gases whose Henry's constant is the IAPWS guideline's, each (n, g)."""
         return iapws_henry(t[:, None], *self._iapws)
 
-    def _add_activity(self, props, t, ln_p, x):
-        """Activity coefficients into ln K, excess enthalpies into h_liquid (in place)."""
-        liquid = self._activity_liquid
-        phi, dphi, d2phi, dphi_dx = liquid.evaluate(x, t)
-        tt = t[:, None]
-        h_excess = -GAS_CONSTANT * tt * tt * dphi
-        dh_excess = -GAS_CONSTANT * (2.0 * tt * dphi + tt * tt * d2phi)
-        ideal, anchored, members = self._ideal_members, liquid.anchored, liquid.members
-        i, a = members[ideal], members[anchored]
-        props.ln_k[:, i] += phi[:, ideal]
-        props.dlnk_dt[:, i] += dphi[:, ideal]
-        props.h_liquid[:, i] += h_excess[:, ideal]
-        props.dh_liquid_dt[:, i] += dh_excess[:, ideal]
-        # anchored solutes: phi = ln(gamma Psat); Henry reference, h_L = h_V - R T**2 dlnK/dT
-        props.ln_k[:, a] = phi[:, anchored] - ln_p
-        props.dlnk_dt[:, a] = dphi[:, anchored]
-        props.h_liquid[:, a] = props.h_vapour[:, a] + h_excess[:, anchored]
-        props.dh_liquid_dt[:, a] = props.dh_vapour_dt[:, a] + dh_excess[:, anchored]
-        n = t.size
-        props.dlnk_dx.reshape(n, -1)[:, self._member_pairs] += dphi_dx.reshape(n, -1)
-
     def correlation_ranges(self):
         """(component name, property label, t_min [K], t_max [K]) of every temperature
         correlation the model evaluates."""
         for component, kind in zip(self.components, self.equilibrium):
             used = [("ideal-gas heat capacity", component.ideal_gas_cp)]
-            if kind in ("henry", "activity"):
+            if kind in ("henry", "activity") or (kind == "electrolyte" and component.henry_in_water is not None):
                 used.append(("Henry's constant", component.henry_in_water))
             if kind in ("raoult", "nonvolatile"):
                 used.append(("liquid heat capacity", component.liquid_cp))
@@ -364,7 +252,8 @@ class PropertyModel:
     def range_warnings(self, temperatures, liquid_mole_fractions=None):
         """Plain-language warnings for correlations used outside their valid temperature range,
         and for equilibrium tables used outside their temperatures or (given the liquid mole
-        fractions (n, c) of the stages) their loadings."""
+        fractions (n, c) of the stages) their loadings, and where the stages leave the aqueous
+        electrolyte liquid's stated range (the first n temperatures are the stages')."""
         t_low, t_high = float(np.min(temperatures)), float(np.max(temperatures))
         warnings = [
             f"{name}: {label} used from {t_low:.1f} K to {t_high:.1f} K, outside its "
@@ -372,41 +261,15 @@ class PropertyModel:
             for name, label, t_min, t_max in self.correlation_ranges()
             if t_low < t_min - 1e-9 or t_high > t_max + 1e-9
         ]
-        for i, (s, table) in self._table_models.items():
-            ratios = None
-            if liquid_mole_fractions is not None:
-                x = np.asarray(liquid_mole_fractions, dtype=float).reshape(-1, self.n_components)
-                ratios = x[:, i] / np.maximum(x[:, s], TINY)
-            warnings.extend(table.range_warnings(self.names[i], temperatures, ratios))
+        x = None
+        if liquid_mole_fractions is not None:
+            x = np.asarray(liquid_mole_fractions, dtype=float).reshape(-1, self.n_components)
+        for liquid in self._liquids:
+            if liquid is self.electrolyte:  # its range is the stages' (first temperatures, one per x)
+                if x is not None:
+                    warnings.extend(liquid.range_warnings(np.asarray(temperatures, dtype=float)[: len(x)], x))
+            elif hasattr(liquid, "range_warnings"):
+                warnings.extend(liquid.range_warnings(temperatures, x))
         if self.gas_phase is not None:
             warnings.extend(self.gas_phase.range_warnings(temperatures))
         return warnings
-
-
-def _eos_liquid(components, members):
-    """The Peng-Robinson liquid of the 'eos' components (``eos_liquid.EosLiquid``), or None."""
-    chosen = [components[i] for i in members]
-    return EosLiquid(members, chosen, kij_matrix(chosen)[0]) if chosen else None
-
-
-def _add_table(props, t, ln_p, x, i, s, table):
-    """Solute i from its table, and the Gibbs-Duhem complement on its solvent s (in place).
-    See ``equilibrium_table`` for the formulas."""
-    x_i, x_s = x[:, i], np.maximum(x[:, s], TINY)
-    u = x_i / x_s
-    r = table.evaluate(u, t)
-    tau2 = 1.0 / (t * t)
-    props.ln_k[:, i] = r["ln_p_over_u"] + np.log1p(u) - ln_p[:, 0]
-    props.dlnk_dt[:, i] = -tau2 * r["dln_p_dtau"]
-    props.h_liquid[:, i] = props.h_vapour[:, i] + GAS_CONSTANT * r["dln_p_dtau"]
-    props.dh_liquid_dt[:, i] = props.dh_vapour_dt[:, i] - GAS_CONSTANT * tau2 * r["d2ln_p_dtau2"]
-    props.ln_k[:, s] += np.log1p(u) - r["integral"]
-    props.dlnk_dt[:, s] += tau2 * r["dintegral_dtau"]
-    props.h_liquid[:, s] -= GAS_CONSTANT * r["dintegral_dtau"]
-    props.dh_liquid_dt[:, s] += GAS_CONSTANT * tau2 * r["d2integral_dtau2"]
-    # g = d ln K_i / d ln u; d ln gamma_s / d ln u = -u g; u = x_i / x_s
-    g = r["slope"] - 1.0 / (1.0 + u)
-    props.dlnk_dx[:, i, i] += np.divide(g, x_i, out=np.zeros_like(g), where=x_i > 0.0)
-    props.dlnk_dx[:, i, s] -= g / x_s
-    props.dlnk_dx[:, s, i] -= g / x_s
-    props.dlnk_dx[:, s, s] += u * g / x_s

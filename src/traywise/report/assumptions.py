@@ -17,6 +17,9 @@ _EQUILIBRIUM = {
     "activity": "activity-coefficient liquid anchored to the measured Henry's constant at infinite dilution",
     "table": "the case's equilibrium table (partial pressure against loading, van 't Hoff between isotherms)",
     "eos": "Peng-Robinson equation of state for both phases",
+    "electrolyte": "the aqueous electrolyte liquid (Henry's law for the molecular form, dissociation and "
+                   "neutralisation with charge balance, Pitzer activity coefficients; heats of dissociation and "
+                   "neutralisation in the liquid enthalpy)",
 }
 
 
@@ -28,9 +31,7 @@ def assumption_lines(results):
              "weeping or heat loss to the surroundings unless stated below."]
     lines.append(_gas_line(inputs.get("gas_model") or {"model": "ideal"}, results))
     lines.extend(_equilibrium_lines(results))
-    lines.append("No chemical reactions or ionisation in the liquid: physical absorption only (solutes that react "
-                 "with the solvent, such as ammonia, sulfur dioxide, carbon dioxide or hydrogen sulfide in water, "
-                 "dissolve somewhat more in reality when the liquid's pH favours their ions).")
+    lines.append(_chemistry_line(results))
     lines.append(_stage_line(column))
     lines.append(_mode_line(column, inputs, units))
     lines.append(_pressure_line(results, units))
@@ -42,6 +43,18 @@ def assumption_lines(results):
     if results["solvent_in"].get("liquid_volume_flow_m3_per_s") is not None:
         lines.append("Liquid volume flows: ideal mixing of the pure liquids' volumes; dissolved gases add mass only.")
     return lines
+
+
+def _chemistry_line(results):
+    ionic = [c["name"] for c in results["components"] if c["equilibrium_model"] == "electrolyte"]
+    if ionic:
+        others = [c["name"] for c in results["components"] if c["equilibrium_model"] == "henry"]
+        rest = f"; {', '.join(others)} physical (no ionisation)" if others else ""
+        return (f"Ionisation and reactions in the liquid for {', '.join(ionic)} (aqueous electrolyte liquid, with "
+                f"water and any sodium hydroxide){rest}.")
+    return ("No chemical reactions or ionisation in the liquid: physical absorption only (solutes that react "
+            "with the solvent, such as ammonia, sulfur dioxide, carbon dioxide or hydrogen sulfide in water, "
+            "dissolve somewhat more in reality when the liquid's pH favours their ions).")
 
 
 def _gas_line(gas_model, results):

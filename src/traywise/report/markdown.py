@@ -25,6 +25,7 @@ from .sections import (
     temperature_line,
     water_balance_lines,
 )
+from .electrolyte_view import SECTION, electrolyte_blocks
 from .sizing_view import sizing_lines, sizing_markdown
 from .tables import TRACE_TEXT, markdown_table
 
@@ -33,11 +34,13 @@ FIGURE_TITLES = {
     "composition_profiles.png": "Composition profiles",
     "xy_diagram.png": "x-y diagram (isothermal inert-basis design, with the passing streams of the rigorous solution)",
     "heat_balance.png": "Where the heat of absorption went",
+    "ph_profile.png": "pH profile of the liquid",
 }
 FIGURES_BY_SECTION = {
     "Stage profile": ("temperature_profile.png", "composition_profiles.png"),
     "Heat budget": ("heat_balance.png",),
     "Isothermal inert-basis comparison": ("xy_diagram.png",),
+    SECTION: ("ph_profile.png",),
 }
 TRACE_NOTE = (f"Fractions below 1e-12 are printed as \"{TRACE_TEXT}\" (\"< 1e-10\" as a percentage): the solver "
               "converges component flows to about 1e-9 of each feed, so smaller values carry no information.")
@@ -67,6 +70,8 @@ def report_blocks(results):
     blocks.append((None, "table", component_table(results)))
     blocks.append(("Stage profile", "table", stage_profile_table(results)))
     blocks.extend(_figures(results, "Stage profile"))
+    blocks.extend(electrolyte_blocks(results))
+    blocks.extend(_figures(results, SECTION))
     blocks.append(("Heat budget", "table", heat_table(results)))
     blocks.append((None, "bullets", water_balance_lines(results)))
     blocks.extend(_figures(results, "Heat budget"))

@@ -33,12 +33,13 @@ def write_outputs(target, run, *, plots=True):
     case, solution = run.case, run.solution
 
     def write_files(folder):
-        write_stages_csv(folder / STAGES_FILE, solution, component_labels(case.model.components))
+        write_stages_csv(folder / STAGES_FILE, solution, component_labels(case.model.components),
+                         run.speciation)
         figures = []
         if plots:
             from .plots import write_plots
 
-            figures = write_plots(folder, solution, run.comparison, run.xy_design)
+            figures = write_plots(folder, solution, run.comparison, run.xy_design, run.speciation)
         figures += write_sizing_files(folder, run.sizing, plots=plots)
         record = results_record(run, [RESULTS_FILE, STAGES_FILE, REPORT_FILE, HTML_FILE, MARKER, *figures])
         (folder / REPORT_FILE).write_text(markdown_report(record), encoding="utf-8")

@@ -23,7 +23,7 @@ MARGINS = {"left": 0.12, "right": 0.97, "bottom": 0.11, "top": 0.91, "wspace": 0
 LOG_PANEL_RATIO = 100.0  # Y_in / Y_out beyond which the x-y diagram gets a log-log panel
 
 
-def write_plots(folder, solution, comparison, design):
+def write_plots(folder, solution, comparison, design, speciation=None):
     """Draw every figure into ``folder``; return the file names.
 
     Parameters
@@ -34,6 +34,7 @@ def write_plots(folder, solution, comparison, design):
         on the profile when there is one)
     design : InertBasisDesign or None   Drawn on the x-y diagram; without one (the classic
         method pinches) the diagram is not drawn and the report says so.
+    speciation : Speciation or None   The electrolyte liquid's pH profile is drawn when given.
     """
     drawings = [
         ("temperature_profile.png", lambda figure: _temperature_profile(figure, solution, comparison)),
@@ -42,6 +43,8 @@ def write_plots(folder, solution, comparison, design):
     ]
     if design is not None:
         drawings.append(("xy_diagram.png", lambda figure: _xy_diagram(figure, solution, design)))
+    if speciation is not None:
+        drawings.append(("ph_profile.png", lambda figure: _ph_profile(figure, solution, speciation)))
     for name, draw in drawings:
         _save(folder / name, draw)
     return [name for name, _ in drawings]
@@ -92,6 +95,16 @@ def _temperature_profile(figure, solution, comparison):
     _stage_axis(axes, solution.n_stages, feeds=True)
     axes.set_xlabel("temperature [degC]")
     axes.set_title("Temperature profile")
+    axes.legend(loc="best", fontsize="small")
+
+
+def _ph_profile(figure, solution, speciation):
+    axes = figure.add_subplot()
+    stages = np.arange(1, solution.n_stages + 1)
+    axes.plot(speciation.ph, stages, "o-", label="pH of the liquid leaving the stage")
+    _stage_axis(axes, solution.n_stages)
+    axes.set_xlabel("pH [-] (hydrogen-ion activity, molality basis)")
+    axes.set_title("pH profile (aqueous electrolyte liquid)")
     axes.legend(loc="best", fontsize="small")
 
 

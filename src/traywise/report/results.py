@@ -111,6 +111,17 @@ RESULTS_KEYS = {
     "heat.other_W": "carried by extra feeds and side draws [W]",
     "heat.by_component_W": "per component name: heat given to the liquid by its transfer, a (h_V(T gas in) - h_L(T liquid out)) [W]; positive for a solute absorbed or solvent condensing, negative for solvent evaporating",
     "solvent_balance": "the solvent's evaporation and condensation summed over the stages, or null when it could not be computed",
+    "electrolyte": "the aqueous electrolyte liquid on every stage (top first), or null when the case does not use it",
+    "electrolyte.species": "species names (H+, OH-, Na+, HSO3-, ...)",
+    "electrolyte.pH": "pH on each stage, -log10 of the hydrogen-ion activity (molality basis) [-]",
+    "electrolyte.ionic_strength_mol_per_kg": "ionic strength on each stage [mol/kg water]",
+    "electrolyte.molality_mol_per_kg": "per species: its molality on each stage [mol/kg water]",
+    "electrolyte.caustic_left_mol_per_kg": "free hydroxide on each stage where the liquid holds sodium hydroxide, else 0 [mol/kg water]",
+    "electrolyte.with_henry": "the same column solved with physical Henry's law for the electrolyte solutes, or null when it could not be (the notes say why)",
+    "electrolyte.with_henry.fraction_absorbed": "per component name: fraction of its gas feed absorbed under Henry's law [-]",
+    "electrolyte.with_henry.gas_out_mol_per_s": "per component name: its flow in the gas out under Henry's law [mol/s]",
+    "electrolyte.with_henry.max_component_closure": "largest relative component balance closure of that solution [-]",
+    "electrolyte.with_henry.energy_closure": "its relative energy balance closure [-]",
     "solvent_balance.solvent": "name of the solvent",
     "solvent_balance.evaporated_kg_per_s": "solvent passing from the liquid into the vapour, over the stages where it does [kg/s]",
     "solvent_balance.condensed_kg_per_s": "solvent passing from the vapour into the liquid, over the stages where it does [kg/s]",
@@ -306,6 +317,7 @@ def results_record(run, files):
         "heat": {**{f"{field}_W": plain(value) for field, value in vars(solution.heat).items() if field != "by_component"},
                  "by_component_W": _per_name(names, solution.heat.by_component or [None] * len(names))},
         "solvent_balance": _solvent_balance(case.solvent, run.solvent_balance),
+        "electrolyte": _electrolyte(run.speciation, run.physical_henry),
         "display_units": getattr(case, "display_units", None) or DEFAULT_UNITS,
         "inputs_as_written": _as_written(getattr(case, "data", None)),
         "convergence": {
@@ -381,6 +393,25 @@ def _stream(names, molar_mass, flows, temperature, pressure, volume=None):
         "mass_flow_kg_per_s": mass,
         "mass_fractions": {name: float(m) / mass for name, m in zip(names, masses)},
         "liquid_volume_flow_m3_per_s": None if volume is None else float(volume),
+    }
+
+
+def _electrolyte(speciation, physical):
+    if speciation is None:
+        return None
+    with_henry = None if physical is None else {
+        "fraction_absorbed": _per_name(list(physical.component_names), physical.fraction_absorbed),
+        "gas_out_mol_per_s": _per_name(list(physical.component_names), physical.gas_out),
+        "max_component_closure": float(np.max(physical.convergence.component_closure)),
+        "energy_closure": float(physical.convergence.energy_closure),
+    }
+    return {
+        "species": list(speciation.species),
+        "pH": plain(speciation.ph),
+        "ionic_strength_mol_per_kg": plain(speciation.ionic_strength),
+        "molality_mol_per_kg": {name: plain(speciation.molality[:, k]) for k, name in enumerate(speciation.species)},
+        "caustic_left_mol_per_kg": plain(speciation.caustic_left),
+        "with_henry": with_henry,
     }
 
 

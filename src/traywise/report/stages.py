@@ -2,7 +2,8 @@
 
 Columns: stage, temperature_K, pressure_Pa, vapour_flow_mol_per_s, liquid_flow_mol_per_s,
 y_<c> (vapour mole fraction), x_<c> (liquid mole fraction), K_<c> (y*/x, empty where
-infinite) for each component c, then heat_removed_W. Components are labelled by formula, or by
+infinite) for each component c, then heat_removed_W; with the aqueous electrolyte liquid (a
+``Speciation``), pH, ionic_strength_mol_per_kg and m_<species>_mol_per_kg of every species. Components are labelled by formula, or by
 name (spaces as underscores) when two share a formula.
 """
 
@@ -18,11 +19,13 @@ def component_labels(components):
     return [component.name.replace(" ", "_") for component in components]
 
 
-def stage_table(solution, labels):
+def stage_table(solution, labels, speciation=None):
     """(headers, rows) of the stage table; numbers as floats, None where undefined."""
     headers = ["stage", "temperature_K", "pressure_Pa", "vapour_flow_mol_per_s", "liquid_flow_mol_per_s"]
     headers += [f"y_{label}" for label in labels] + [f"x_{label}" for label in labels]
     headers += [f"K_{label}" for label in labels] + ["heat_removed_W"]
+    if speciation is not None:
+        headers += ["pH", "ionic_strength_mol_per_kg"] + [f"m_{name}_mol_per_kg" for name in speciation.species]
     rows = []
     for j in range(solution.n_stages):
         k_values = [float(k) if math.isfinite(k) else None for k in solution.k_values[j]]
@@ -33,13 +36,15 @@ def stage_table(solution, labels):
             + [float(x) for x in solution.liquid_mole_fractions[j]]
             + k_values
             + [float(solution.heat_removed[j])]
+            + ([] if speciation is None else [float(speciation.ph[j]), float(speciation.ionic_strength[j])]
+               + [float(m) for m in speciation.molality[j]])
         )
     return headers, rows
 
 
-def write_stages_csv(path, solution, labels):
+def write_stages_csv(path, solution, labels, speciation=None):
     """Write the stage table to ``path`` (full float precision, empty cell where undefined)."""
-    headers, rows = stage_table(solution, labels)
+    headers, rows = stage_table(solution, labels, speciation)
     with open(path, "w", newline="", encoding="utf-8") as stream:
         writer = csv.writer(stream)
         writer.writerow(headers)

@@ -140,7 +140,7 @@ class AqueousElectrolyte:
     # ------------------------------------------------------------------ interface
     def apply(self, props, t, p, x):
         """Set ln K, its T- and x-derivatives and the liquid enthalpies of the members in
-        ``props`` (model._Arrays), in place; see the module docstring."""
+        ``props`` (composition_liquids.StageArrays), in place; see the module docstring."""
         t = np.asarray(t, dtype=float).reshape(-1)
         eq, totals, ln_totals, above, phi, dphi_dt, daw_dt, dphi_dln, daw_dln = self._state(t, x)
         ln_h, dln_h, d2ln_h = self._ln_henry(t)

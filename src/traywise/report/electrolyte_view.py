@@ -1,0 +1,38 @@
+"""The report's section on the aqueous electrolyte liquid: pH, ionic strength and the molality of
+every species on every stage, read from the results record's ``electrolyte`` section."""
+
+SECTION = "Liquid chemistry (aqueous electrolyte)"
+NOTE = ("Species molalities per kg of water on each stage, from the converged profile; pH is -log10 of "
+        "the hydrogen-ion activity on the molality basis. The model's stated range and any caustic used "
+        "up are in the warnings.")
+
+
+def electrolyte_blocks(results):
+    """Report blocks (heading, kind, body) of the electrolyte section, none without one."""
+    chemistry = results.get("electrolyte")
+    if chemistry is None:
+        return []
+    species = chemistry["species"]
+    headers = ["stage", "pH", "I [mol/kg]"] + [f"{name} [mol/kg]" for name in species]
+    rows = [
+        (str(j + 1), f"{chemistry['pH'][j]:.2f}", f"{chemistry['ionic_strength_mol_per_kg'][j]:.3g}",
+         *(f"{chemistry['molality_mol_per_kg'][name][j]:.3g}" for name in species))
+        for j in range(len(chemistry["pH"]))
+    ]
+    return [(SECTION, "table", (headers, rows)), (None, "text", NOTE), *_with_and_without(results)]
+
+
+def _with_and_without(results):
+    """The same column with and without the electrolyte liquid: absorbed per solute, both closures."""
+    physical = results["electrolyte"]["with_henry"]
+    if physical is None:
+        return []
+    names = [c["name"] for c in results["components"] if c["equilibrium_model"] == "electrolyte"]
+    rows = [(name, f"{100 * results['fraction_absorbed'][name]:.6g}", f"{100 * physical['fraction_absorbed'][name]:.6g}")
+            for name in names]
+    closure = max(results["convergence"]["component_closure"].values())
+    rows.append(("largest component balance closure [-]", f"{closure:.1e}", f"{physical['max_component_closure']:.1e}"))
+    rows.append(("energy balance closure [-]", f"{results['convergence']['energy_closure']:.1e}",
+                 f"{physical['energy_closure']:.1e}"))
+    headers = ["absorbed [%]", "electrolyte liquid (this run)", "physical Henry's law (same column)"]
+    return [("With and without the electrolyte liquid", "table", (headers, rows))]
