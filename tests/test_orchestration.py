@@ -56,7 +56,7 @@ def _is_module(dotted):
 
 
 def boundary_modules():
-    return [*sorted((PACKAGE / "report").glob("*.py")), PACKAGE / "cli.py", PACKAGE / "api.py"]
+    return [*sorted((PACKAGE / "report").glob("*.py")), *sorted(PACKAGE.glob("cli*.py")), PACKAGE / "api.py"]
 
 
 @pytest.mark.parametrize("path", boundary_modules(), ids=lambda p: p.name)

@@ -9,7 +9,8 @@ from pathlib import Path
 import pytest
 from click.testing import CliRunner
 
-from traywise.cli import EXIT_INPUT, EXIT_NOT_MET, main
+from traywise.cli import main
+from traywise.cli_shared import EXIT_INPUT, EXIT_NOT_MET
 
 DEMO = (Path(__file__).resolve().parents[1] / "cases" / "ammonia-scrubber-design.toml").read_text(encoding="utf-8")
 
