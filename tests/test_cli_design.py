@@ -15,7 +15,7 @@ from support.results import lookup, strict_json
 from traywise.case import parse_case
 from traywise.cli import main
 from traywise.mesh.newton import solve_column
-from traywise.report.results import RESULTS_KEYS
+from traywise.report.results_keys import RESULTS_KEYS
 
 DEMO_PATH = Path(__file__).resolve().parents[1] / "cases" / "ammonia-scrubber-design.toml"
 DEMO = DEMO_PATH.read_text(encoding="utf-8")

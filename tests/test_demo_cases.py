@@ -22,7 +22,7 @@ from support.balances import recomputed_energy_closure_from_record
 
 from traywise.case import load_case
 from traywise.cli import main
-from traywise.report.results import RESULTS_KEYS
+from traywise.report.results_keys import RESULTS_KEYS
 
 REPOSITORY = Path(__file__).resolve().parents[1]
 CASES = sorted((REPOSITORY / "cases").glob("*.toml"))

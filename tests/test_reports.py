@@ -20,7 +20,7 @@ from traywise.report.folder import write_results_folder
 from traywise.report.markdown import markdown_report
 from traywise.report.outputs import write_outputs
 from traywise.column import actual_trays
-from traywise.report.results import RESULTS_KEYS
+from traywise.report.results_keys import RESULTS_KEYS
 from traywise.report.summary import summary_text
 from traywise.report.tables import concentration, percent, text_table
 from traywise.run import complete_run

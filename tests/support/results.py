@@ -2,7 +2,7 @@
 
 import json
 
-from traywise.report.results import RESULTS_KEYS
+from traywise.report.results_keys import RESULTS_KEYS
 
 PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"  # PNG specification (ISO/IEC 15948), section 5.2
 

@@ -6,7 +6,8 @@ changes them. Modules import at most numpy; matplotlib is imported inside ``plot
 drawn, so that commands which draw nothing stay fast.
 
   outputs          writes a run's results folder (the entry point of ``traywise run``)
-  results          the full results record (results.json) and its documented keys, ``RESULTS_KEYS``
+  results          the full results record (results.json)
+  results_keys     its documented keys, ``RESULTS_KEYS``
   stages           the stage table (stages.csv)
   plots            the PNG figures
   markdown         report.md for a reviewer (and the blocks report.html is rendered from)
@@ -15,7 +16,7 @@ drawn, so that commands which draw nothing stay fast.
   inputs_view      the inputs as written in the case, the designed value beside the first guess
   summary          the console summary
   sections         tables shared by the summary and report.md
-  comparison_view  runs and renders the isothermal inert-basis comparison
+  comparison_view  renders the isothermal inert-basis comparison the run computed
   design_view      the design of a case with a [design] table (results.json section, text)
   sweep_view       a sweep's folder (sweep.csv, sweep.json, sweep.md) and console table
   sweep_plot       sweep.png

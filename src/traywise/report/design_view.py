@@ -2,7 +2,7 @@
 summary and report.md: the target and what was reached, the input solved for, the minimum solvent
 flow with the pinch, and the trays by each efficiency route.
 
-``design_json`` builds the "design" section of results.json (keys in ``results.RESULTS_KEYS``);
+``design_json`` builds the "design" section of results.json (keys in ``results_keys.RESULTS_KEYS``);
 the text functions read that section, so that every output shows the same numbers.
 """
 

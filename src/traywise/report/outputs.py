@@ -1,6 +1,6 @@
 """Everything a run writes: the results folder of one solved case.
 
-results.json (``results.RESULTS_KEYS``), stages.csv (``stages``), report.md (``markdown``), report.html
+results.json (``results_keys.RESULTS_KEYS``), stages.csv (``stages``), report.md (``markdown``), report.html
 (``html``, the same report self-contained) and,
 unless switched off, the PNG figures (``plots``), written together by ``folder``.
 """
