@@ -9,6 +9,7 @@ import time
 from pathlib import Path
 
 import pytest
+from support.processes import alive, children
 
 pytestmark = pytest.mark.skipif(not Path("/proc/self/stat").exists(), reason="reads process parents from /proc")
 
@@ -28,27 +29,6 @@ sweep(column, model, variable="solvent_flow", values=np.linspace(1.0, 5.0, 4000)
 """
 
 
-def _children(pid):
-    found = []
-    for entry in Path("/proc").iterdir():
-        if entry.name.isdigit():
-            try:
-                fields = (entry / "stat").read_text().rsplit(")", 1)[1].split()
-            except OSError:
-                continue
-            if int(fields[1]) == pid and fields[0] != "Z":
-                found.append(int(entry.name))
-    return found
-
-
-def _alive(pid):
-    try:
-        state = Path(f"/proc/{pid}/stat").read_text().rsplit(")", 1)[1].split()[0]
-    except OSError:
-        return False
-    return state != "Z"
-
-
 def test_workers_end_when_the_parent_is_killed():
     parent = subprocess.Popen([sys.executable, "-c", SWEEP], stdout=subprocess.PIPE, text=True)
     workers = []
@@ -57,19 +37,19 @@ def test_workers_end_when_the_parent_is_killed():
         deadline = time.monotonic() + 60.0
         while len(workers) < 2 and time.monotonic() < deadline:
             time.sleep(0.1)
-            workers = _children(parent.pid)
+            workers = children(parent.pid)
         assert len(workers) == 2, "the sweep did not start its two workers"
         parent.send_signal(signal.SIGKILL)
         parent.wait(timeout=10)
         deadline = time.monotonic() + 10.0
-        while any(_alive(w) for w in workers) and time.monotonic() < deadline:
+        while any(alive(w) for w in workers) and time.monotonic() < deadline:
             time.sleep(0.1)
-        assert not any(_alive(w) for w in workers), "workers outlived their parent"
+        assert not any(alive(w) for w in workers), "workers outlived their parent"
     finally:
         parent.kill()
         parent.wait()
         for worker in workers:
-            if _alive(worker):
+            if alive(worker):
                 os.kill(worker, signal.SIGKILL)
 
 

@@ -37,6 +37,9 @@ import time
 import tomllib
 from pathlib import Path
 
+sys.path.insert(0, str(Path(__file__).parents[1]))  # the tests folder, for its support package
+from support.processes import alive, children  # noqa: E402
+
 ROOT = Path(__file__).resolve().parents[2]
 CASES = ROOT / "cases"
 DEMOS = sorted(p.name for p in CASES.glob("*.toml"))
@@ -349,26 +352,6 @@ def classify_mutation(text, key, folder):
 
 
 # -- kills and concurrency ----------------------------------------------------------------------
-def _children(pid):
-    found = []
-    for entry in Path("/proc").iterdir():
-        if entry.name.isdigit():
-            try:
-                fields = (entry / "stat").read_text().rsplit(")", 1)[1].split()
-            except OSError:
-                continue
-            if int(fields[1]) == pid and fields[0] != "Z":
-                found.append(int(entry.name))
-    return found
-
-
-def _alive(pid):
-    try:
-        return Path(f"/proc/{pid}/stat").read_text().rsplit(")", 1)[1].split()[0] != "Z"
-    except OSError:
-        return False
-
-
 def kill_check(rng, folder, *, sweep, sig):
     """Kill a run (or a two-process sweep) at a random moment; then check: no process left,
     no partly written folder visible, and the next run into the same folder succeeds and leaves
@@ -383,7 +366,7 @@ def kill_check(rng, folder, *, sweep, sig):
     deadline = time.monotonic() + (rng.uniform(0.5, 4.0) if sweep else rng.uniform(0.2, 1.5))
     while time.monotonic() < deadline and process.poll() is None:
         time.sleep(0.05)
-        workers = _children(process.pid) or workers
+        workers = children(process.pid) or workers
     landed = process.poll() is None
     if landed:
         process.send_signal(sig)
@@ -394,11 +377,11 @@ def kill_check(rng, folder, *, sweep, sig):
         process.communicate()
         return False, "the pipes stayed open 20 s after the signal", landed
     limit = time.monotonic() + 10
-    while any(_alive(w) for w in workers) and time.monotonic() < limit:
+    while any(alive(w) for w in workers) and time.monotonic() < limit:
         time.sleep(0.1)
-    if any(_alive(w) for w in workers):
+    if any(alive(w) for w in workers):
         for w in workers:
-            if _alive(w):
+            if alive(w):
                 os.kill(w, signal.SIGKILL)
         return False, "a worker outlived its parent", landed
     if out.exists() and not (out / ".traywise-results").exists():
