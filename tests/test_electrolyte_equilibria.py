@@ -47,14 +47,18 @@ def test_sulfur_dioxide_over_dilute_solutions_against_the_handbook(temperature):
 
 
 @pytest.mark.parametrize("temperature", [
-    pytest.param(293.15, marks=pytest.mark.xfail(strict=True, reason=(
-        "at 20 degC the model is 10.4 % low at 0.7 g and 10.7 % low at 0.5 g/100 g (9.6 % at 1 g, under 4 % "
-        "from 2 to 5 g): no published H+-HSO3- Pitzer parameter is used, so dissociation is overstated"))),
+    293.15,
     pytest.param(303.15, marks=pytest.mark.xfail(strict=True, reason=(
-        "at 30 degC the model is 15 % low at 0.5 g/100 g (5.4 % at 1 g, under 1 % from 2 to 5 g), as at 20 degC"))),
+        "at 30 degC the model is 13.9 % low at 0.5 g/100 g (3.6 % low at 1 g, 2.1 and 1.5 % high at 2 and 5 g); "
+        "at 20 degC the same point is 8.9 % low. Checked: K1 and the Henry's constant of Goldberg & Parker "
+        "(1985) lie inside the spread of published values, and the alternatives (Seinfeld & Pandis 2006: "
+        "K1 1.3e-2 mol/kg, dH/R = -1960 K; the component file's Henry's constant) move p(SO2) at 0.5 g by "
+        "under 2 % or lower it; no published parameter closes the gap, and the 30 degC table is recalled "
+        "from memory"))),
 ])
 def test_sulfur_dioxide_over_water_against_the_handbook(temperature):
-    """Within 10 % from 0.5 to 5 g SO2/100 g water."""
+    """Within 10 % from 0.5 to 5 g SO2/100 g water (at 20 degC: 8.9 % low at 0.5 g, 8.4 % at 0.7 g,
+    7.5 % at 1 g, under 2 % from 2 to 5 g, with the H+-HSO3- parameters of the data file)."""
     grams, error = _so2_errors(temperature)
     high = grams >= 0.5 - 1e-9
     assert np.all(np.abs(error[high]) < 0.10), dict(zip(grams[high], np.round(error[high], 3)))
@@ -95,21 +99,28 @@ def test_hydrochloric_acid_activity_coefficients():
     assert gamma == pytest.approx(list(HCL_GAMMA_25C.values()), rel=0.04)
 
 
-@pytest.mark.parametrize("temperature", [293.15, 313.15])
+# Perry's Chemical Engineers' Handbook (7th ed. 1997, section 2, partial pressures of HCl over
+# aqueous solutions of HCl; the compilation of F. C. Zeisberg, Chem. Met. Eng. 32 (1925) 326,
+# recalled from memory): wt% HCl -> p(HCl) [mmHg]. Read from a public transcription of the
+# handbook table, not from the printed handbook; its 2 wt% row agrees with the handbook as
+# recalled from memory.
+HCL_TABLE = {
+    293.15: {6.0: 0.00076, 8.0: 0.00178, 10.0: 0.00395, 12.0: 0.0088, 14.0: 0.0196},
+    313.15: {6.0: 0.0062, 8.0: 0.0136, 10.0: 0.0282, 12.0: 0.058, 14.0: 0.121},
+}
+
+
+@pytest.mark.parametrize("temperature", list(HCL_TABLE))
 def test_hydrogen_chloride_over_hydrochloric_acid(temperature):
-    """p(HCl) over 5-15 wt% acid against p = (m gamma_+-)**2 / K_H with Robinson & Stokes' 25 degC
-    gamma_+- (above) and K_H = 2.04e6 mol2 kg-2 atm-1 at 25 degC, dH = -74.85 kJ/mol (Clegg &
-    Brimblecombe 1990, NBS tables; recalled from memory): within 30 %. The handbook table of
-    HCl partial pressures at 20 and 40 degC could not be recalled reliably; this reference
-    carries the 25 degC activity coefficients to 20 and 40 degC unchanged."""
+    """p(HCl) over 6-14 wt% acid (the table's rows inside 5-15 wt%) within 30 % of the handbook.
+    Measured: at 20 degC 4.6-16 % low, at 40 degC 29.7 % low at 6 wt%, 19 % at 8 wt%, within 10 %
+    from 10 to 14 wt%."""
     case = ElectrolyteCase("HCl")
-    weight = np.array([5.0, 10.0, 15.0])
+    weight = np.array(list(HCL_TABLE[temperature]))
+    table = np.array(list(HCL_TABLE[temperature].values()))
     m = weight / (100.0 - weight) * 1e3 / 36.46094
-    gamma = np.interp(m, [0.0, *HCL_GAMMA_25C], [1.0, *HCL_GAMMA_25C.values()])
-    k_h = 2.04e6 / P_ATM * np.exp(74852.0 / 8.314462618 * (1.0 / temperature - 1.0 / 298.15))  # mol2/(kg2 Pa)
-    reference = (m * gamma) ** 2 / k_h
-    p = case.partial_pressures(temperature, m[:, None])[:, 1]
-    assert p == pytest.approx(reference, rel=0.30)
+    p = case.partial_pressures(temperature, m[:, None])[:, 1] / MMHG
+    assert p == pytest.approx(table, rel=0.30)
 
 
 def test_hydrochloric_acid_range_is_stated_and_warned_beyond():
@@ -196,3 +207,13 @@ def test_temperature_beyond_the_constants_is_warned_about():
     case = ElectrolyteCase("NH3")
     warnings = case.liquid.range_warnings(np.array([300.0, 330.0]), case.mole_fractions([[1.0], [1.0]]))
     assert len(warnings) == 1 and "stage 2" in warnings[0] and "313.1 K" in warnings[0]
+
+
+def test_ammonia_constants_cover_40C():
+    """40 degC is the upper end of the range of the NH3 constants (Henry's constant and NH3-NH3
+    lambda of Clegg & Brimblecombe 1989, 273-313 K; recalled from memory): no warning at 313.15 K,
+    one at 314 K."""
+    case = ElectrolyteCase("NH3")
+    x = case.mole_fractions([[2.0], [2.0]])
+    assert case.liquid.range_warnings(np.array([313.15, 293.15]), x) == []
+    assert len(case.liquid.range_warnings(np.array([314.0, 293.15]), x)) == 1
