@@ -53,7 +53,7 @@ def test_sulfur_dioxide_over_dilute_solutions_against_the_handbook(temperature):
         "at 20 degC the same point is 8.9 % low. Checked: K1 and the Henry's constant of Goldberg & Parker "
         "(1985) lie inside the spread of published values, and the alternatives (Seinfeld & Pandis 2006: "
         "K1 1.3e-2 mol/kg, dH/R = -1960 K; the component file's Henry's constant) move p(SO2) at 0.5 g by "
-        "under 2 % or lower it; no published parameter closes the gap, and the 30 degC table is recalled "
+        "under 2 % or lower it; no published parameter at hand closes the gap, and the 30 degC table is recalled "
         "from memory"))),
 ])
 def test_sulfur_dioxide_over_water_against_the_handbook(temperature):
