@@ -176,6 +176,8 @@ class SpeciationSystem:
         self.fixed_rows = np.diag(self.fixed).astype(bool)
         self.constant_jacobian = (self.c + self.fixed)[:, :, None]
         self.h = position["H+"]
+        self.masters = np.array([j for j in range(s) if j not in set(self.derived) and self.c[:, j].any()], dtype=int)
+        self.c_masters = self.c[np.ix_(self.derived, self.masters)]  # C on the derived rows is I plus these
         self.abs_charges = np.abs(self.charges)
         self.fixed_index = np.flatnonzero(self.fixed_rows)
         self.water_molar_mass = water_molar_mass
@@ -227,7 +229,10 @@ class SpeciationSystem:
         r[:, fixed] += (y[:, fixed] + ln_r[:, None]) - batch.ln_rows[:, fixed]
         # the Jacobian stage-last (s, s, n), so that its products run along the stages
         s, n = hessian.shape[1:]
-        jacobian = (self.c @ hessian.reshape(s, -1)).reshape(s, s, n)  # C H
+        # C H: a derived species' row is its own row of H less its masters' (C is I on the derived)
+        jacobian = np.zeros((s, s, n))
+        masters = hessian[self.masters].reshape(self.masters.size, -1)
+        jacobian[self.derived] = hessian[self.derived] + (self.c_masters @ masters).reshape(self.derived.size, s, n)
         jacobian += self.balance[:, :, None] * weight.T[:, None, :]
         jacobian *= m.T[None]
         jacobian += self.constant_jacobian
