@@ -12,7 +12,10 @@ true/apparent water is explicit in y]. Rows, one per species:
 with activity coefficients and water activity from ``pitzer.Pitzer``. Newton's method with the
 exact Jacobian (the Pitzer Hessian included) runs on all stages together as batched (n, s, s)
 solves; the step is limited to MAX_STEP in ln m. It starts from the last solution of the same
-shape, else from the ideal-solution charge balance solved by bisection in ln m(H+).
+shape, else from the ideal-solution charge balance solved by bisection in ln m(H+). The Pitzer
+Hessian and the Jacobian are built stages last, (s, s, n), so that their element-wise products run
+along the stages (with s up to 15 a stages-first layout spends most of its time in 15-long loops);
+the Jacobian is handed to LAPACK as its (n, s, s) view.
 
 The same Jacobian gives the implicit-function derivatives of the solution with respect to
 temperature and to each apparent molality (``Equilibrium.sensitivity``).
