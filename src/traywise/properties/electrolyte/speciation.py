@@ -196,11 +196,9 @@ class SpeciationSystem:
     # ------------------------------------------------------------------ equations
     def _ln_k(self, t):
         """ln K of the mass-action rows and its temperature derivative, each (n, s)."""
-        inverse = 1.0 / t
-        ones = np.ones_like(t)
-        both = np.stack([np.stack([inverse, np.log(t), t, ones], axis=1),
-                         np.stack([-inverse * inverse, inverse, ones, 0.0 * ones], axis=1)]) @ self.ln_k_coefficients.T
-        return both[0], both[1]
+        terms = coefficient_terms(t)  # (n, 3, 4)
+        both = terms[:, :2] @ self.ln_k_coefficients.T  # (n, 2, s)
+        return both[:, 0], both[:, 1]
 
     def _batch(self, t, totals):
         """The ``_Batch`` of temperatures t (n,) and apparent molalities totals (n, k), floored."""
