@@ -102,6 +102,8 @@ def test_short_of_caustic_the_sulfur_dioxide_slips_and_the_sodium_balance_shows_
 # releases 74.852 kJ/mol.
 NEUTRALISATION = -55.836e3  # J/mol
 HCL_SOLUTION = -74.852e3  # J/mol
+# Latent heat of water at 25 degC: 2441.7 kJ/kg (IAPWS-95; recalled from memory) x 0.018015 kg/mol
+LATENT_HEAT_WATER = 43.99e3  # J/mol
 
 
 def test_heat_of_neutralisation_matches_the_published_enthalpy_within_2_percent():
@@ -122,23 +124,35 @@ def test_heat_of_neutralisation_matches_the_published_enthalpy_within_2_percent(
 
 def test_hcl_absorbed_into_caustic_releases_solution_plus_neutralisation_in_the_energy_balance():
     """Nitrogen saturated with water at 25 degC carrying 0.1 % HCl into water with and without
-    excess caustic: the heat into pure water is the solution enthalpy (within 2 %); the difference
-    of the released heat per mole of HCl is the heat of neutralisation within 3 % (2.5 % measured:
-    the released heat is the absorbed HCl's h_V - h_L at the stage liquids' ionic strength, with
-    their excess enthalpy; the property-level check above is the 2 % one)."""
+    excess caustic: the heat into pure water is the solution enthalpy (within 2 %). With caustic
+    the liquid releases more, per mole of HCl, by the hand calculation: the heat of
+    neutralisation, plus the latent heat of the water the caustic keeps from the saturated gas
+    (Raoult's law on the top stage, whose liquid is the solvent as fed: the two ions of NaOH lower
+    the water's mole fraction by 2 n_NaOH / (n_w + 2 n_NaOH), and the gas leaves that much drier).
+    Within 2 % (0.8 % measured; before the water's term was counted the comparison was 2.5 % off).
+    The HCl's own term, its h_V - h_L, moves by the heat of neutralisation alone, within 2 % (0.9 %
+    measured: the model's Kw gives 56.07 kJ/mol at 25 degC, the rest is the excess enthalpy at the
+    stages' ionic strength and the 0.2-0.4 K warmer liquid)."""
     parts = components("NaOH", "HCl") + [find_component("nitrogen")]
     model = PropertyModel(parts, ["raoult", "nonvolatile", "electrolyte", "insoluble"])
     y_water = 3169.9 / 1.2e5  # saturated at 25 degC (IAPWS-IF97 vapour pressure 3.1699 kPa, recalled from memory)
     gas = np.array([y_water, 0.0, 1e-3, 1.0 - 1e-3 - y_water])
-    released = {}
-    for caustic in (0.0, 2e-3):
-        column = Column(6, Feed(1, "liquid", np.array([5.0, caustic, 0.0, 0.0]), 298.15),
+    water, caustic = 5.0, 2e-3
+    released, by_component, condensed = {}, {}, {}
+    for sodium in (0.0, caustic):
+        column = Column(6, Feed(1, "liquid", np.array([water, sodium, 0.0, 0.0]), 298.15),
                         Feed(6, "vapour", gas, 298.15), 1.2e5)
         solution = solve_column(column, model)
         assert solution.liquid_out[2] == pytest.approx(gas[2], rel=1e-9)  # all HCl absorbed
-        released[caustic] = solution.heat.released / gas[2]
+        released[sodium] = solution.heat.released / gas[2]
+        by_component[sodium] = np.array(solution.heat.by_component) / gas[2]
+        condensed[sodium] = gas[0] - solution.vapour_flows[0][0]
     assert -released[0.0] == pytest.approx(HCL_SOLUTION, rel=0.02)
-    assert released[0.0] - released[2e-3] == pytest.approx(NEUTRALISATION, rel=0.03)
+    kept = gas[0] * 2.0 * caustic / (water + 2.0 * caustic)  # mol/s of water the caustic keeps, by hand
+    assert condensed[caustic] - condensed[0.0] == pytest.approx(kept, rel=0.05)  # 3 % measured: NaOH's osmotic coefficient
+    hand = NEUTRALISATION - LATENT_HEAT_WATER * kept / gas[2]
+    assert released[0.0] - released[caustic] == pytest.approx(hand, rel=0.02)
+    assert by_component[0.0][2] - by_component[caustic][2] == pytest.approx(NEUTRALISATION, rel=0.02)
 
 
 def test_the_caustic_used_up_is_in_the_solutions_warnings_and_excess_caustic_gives_none():

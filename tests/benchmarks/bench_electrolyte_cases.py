@@ -1,7 +1,7 @@
 """Robustness of rigorous columns on the aqueous electrolyte liquid: random caustic scrubbers
 (SO2 and HCl into sodium hydroxide, from far below to past stoichiometry) and ammonia washes
 with an acid gas (CO2 or H2S). Prints the share converged and refused, with each refusal's
-reason, and the Newton steps. Invented cases.
+reason, the Newton steps and the three cases that took most. Invented cases.
 Run: python tests/benchmarks/bench_electrolyte_cases.py [n_cases]"""
 
 import statistics
@@ -52,7 +52,7 @@ def ammonia_acid_case(rng):
 def main(n_cases=40):
     rng = np.random.default_rng(11)
     for label, build in (("caustic scrubbers", caustic_case), ("ammonia with an acid gas", ammonia_acid_case)):
-        steps, times, refused = [], [], []
+        steps, times, refused, slowest = [], [], [], []
         for _ in range(n_cases):
             column, model, description = build(rng)
             start = time.perf_counter()
@@ -63,11 +63,13 @@ def main(n_cases=40):
                 continue
             times.append(time.perf_counter() - start)
             steps.append(solution.convergence.iterations)
+            slowest.append((solution.convergence.iterations, description))
         print(f"{label}: {n_cases} cases, converged {len(steps)} ({100 * len(steps) / n_cases:.0f} %), "
               f"refused with a reason {len(refused)} ({100 * len(refused) / n_cases:.0f} %)")
         if steps:
             print(f"  Newton steps median {statistics.median(steps):.0f}, max {max(steps)}; "
                   f"time median {1e3 * statistics.median(times):.0f} ms, max {1e3 * max(times):.0f} ms")
+            print("  most steps: " + "; ".join(f"{d} ({n})" for n, d in sorted(slowest, reverse=True)[:3]))
         for description, reason in refused:
             print(f"  refused: {description}: {reason[:140]}")
 

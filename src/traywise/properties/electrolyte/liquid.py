@@ -24,8 +24,9 @@ Henry's constants carry no Poynting factor here (as 'henry' gases at ideal gas).
 import numpy as np
 
 from ..constants import GAS_CONSTANT
-from .data import electrolyte_data
-from .speciation import FIXED, MOLALITY_FLOOR, SpeciationSystem
+from ..correlations import iapws_henry, ln_henry_terms
+from .data import coefficient_terms, electrolyte_data
+from .speciation import FIXED, MOLALITY_FLOOR, SpeciationSystem, hessian_times
 from .results import Speciation, range_warnings
 
 CAS = {"7732-18-5": "water", "7664-41-7": "NH3", "124-38-9": "CO2", "7783-06-4": "H2S",
@@ -76,6 +77,7 @@ class AqueousElectrolyte:
         self.henry = [components[by_name[s]].henry_in_water if s in ("NH3", "CO2", "H2S", "SO2") else None
                       for s in self.solutes]
         self.hcl = self.data.reactions["hydrogen_chloride"]
+        self._henry_groups = self._group_henry_constants()
         self._last = None  # (t, ln totals, ln m, d ln m/dT, d ln m/d ln totals) of the last call
 
     # ------------------------------------------------------------------ pieces
@@ -85,17 +87,34 @@ class AqueousElectrolyte:
         totals = np.maximum(x[:, self.solute_index], 0.0) / (x_w * self.water_molar_mass)[:, None]
         return totals, totals > MOLALITY_FLOOR
 
-    def _ln_henry(self, t):
-        """ln H_m [Pa kg/mol, HCl: Pa kg2/mol2] of each solute and its first two T-derivatives, (n, k)."""
-        out = np.zeros((3, t.size, len(self.solutes)))
+    def _group_henry_constants(self):
+        """The solutes' gas-solution constants by form, each group evaluated in one batch:
+        (positions, (4, g) coefficients) of the data file's ln K form; (positions, (6, g)) of the
+        'ln_h' form; (positions, coefficient arrays) of the 'iapws_2004' form."""
+        own, polynomial, iapws = ([], []), ([], []), ([], [])
         for j, (solute, henry) in enumerate(zip(self.solutes, self.henry)):
-            own = self.hcl if solute == "HCl" else self.data.henry.get(solute)
-            if own is not None:  # solubility constant [mol/(kg bar)] of the data file
-                value, slope, curvature = own.ln_k(t)
-                out[:, :, j] = np.log(PASCAL_PER_BAR) - value, -slope, -curvature
-            elif henry is not None:  # terms: ln H, d ln H/dT, -T**2 d ln H/dT and its T-derivative
-                value, slope, _, d_enthalpy = henry.terms(t)
-                out[:, :, j] = value + np.log(self.water_molar_mass), slope, -(d_enthalpy + 2.0 * t * slope) / (t * t)
+            constant = self.hcl if solute == "HCl" else self.data.henry.get(solute)
+            if constant is not None:  # solubility constant [mol/(kg bar)] of the data file
+                own[0].append(j), own[1].append(constant.coefficients)
+            elif henry is not None and henry.form == "iapws_2004":
+                iapws[0].append(j), iapws[1].append(henry.coefficients)
+            elif henry is not None:
+                polynomial[0].append(j), polynomial[1].append(tuple(henry.coefficients) + (0.0,) * (6 - len(henry.coefficients)))
+        return tuple((np.array(index, dtype=int), np.array(rows, dtype=float).T) for index, rows in (own, polynomial, iapws))
+
+    def _ln_henry(self, t):
+        """ln H_m [Pa kg/mol, HCl: Pa kg2/mol2] of each solute and its first two T-derivatives, (3, n, k)."""
+        out = np.zeros((3, t.size, len(self.solutes)))
+        (own, own_coefficients), (polynomial, polynomial_coefficients), (iapws, iapws_coefficients) = self._henry_groups
+        if own.size:
+            values = coefficient_terms(t).transpose(1, 0, 2) @ own_coefficients  # (3, n, g)
+            out[:, :, own] = -values
+            out[0, :, own] += np.log(PASCAL_PER_BAR)
+        if polynomial.size:
+            out[:, :, polynomial] = ln_henry_terms(t).transpose(0, 2, 1) @ polynomial_coefficients
+        if iapws.size:
+            out[:, :, iapws] = iapws_henry(t[:, None], *iapws_coefficients)
+        out[0, :, np.concatenate([polynomial, iapws])] += np.log(self.water_molar_mass)
         return out
 
     def _state(self, t, x):
@@ -117,14 +136,14 @@ class AqueousElectrolyte:
         shift = TEMPERATURE_STEP * solved.dy_dt_before
         batch = system.evaluate_at(np.concatenate([solved.y, solved.y + shift, solved.y - shift]),
                                    np.concatenate([t, t + TEMPERATURE_STEP, t - TEMPERATURE_STEP]), np.tile(totals, (3, 1)))
-        dy_dt_all, dy_dln_all = batch.sensitivity(system)
+        dy_dt_all, dy_dln = batch.sensitivity(system, full=n)
         dphi_all, daw_all = self._temperature_derivatives(batch, dy_dt_all)
         eq = batch.head(n)
-        dy_dt, dy_dln = dy_dt_all[:n], dy_dln_all[:n]
+        dy_dt = dy_dt_all[:n]
         self._last = (t.copy(), ln_totals, eq.y, dy_dt, dy_dln)
         m = eq.m[:, :, None]
         mdy = m * dy_dln
-        da_dln = dy_dln + np.matmul(eq.hessian, mdy)  # (n, s, k)
+        da_dln = dy_dln + np.matmul(np.ascontiguousarray(eq.hessian.transpose(2, 0, 1)), mdy)  # (n, s, k)
         daw_dln = np.matmul(eq.dln_aw_dm[:, None, :], mdy)[:, 0, :]
         phi = (eq.y + eq.ln_gamma) @ self.outputs.T
         return (eq, totals, ln_totals, above, phi, (dphi_all[:n], dphi_all[n:2 * n], dphi_all[2 * n:]),
@@ -134,7 +153,7 @@ class AqueousElectrolyte:
     def _temperature_derivatives(self, eq, dy_dt):
         """d(ln a of each solute)/dT (n, k) and d ln a_w/dT (n,) at fixed apparent composition."""
         m = eq.m
-        da_dt = dy_dt + eq.dln_gamma_dt + np.matmul(eq.hessian, (m * dy_dt)[:, :, None])[:, :, 0]
+        da_dt = dy_dt + eq.dln_gamma_dt + hessian_times(eq.hessian, m * dy_dt)
         return da_dt @ self.outputs.T, eq.dln_aw_dt + (eq.dln_aw_dm * m * dy_dt).sum(axis=1)
 
     # ------------------------------------------------------------------ interface

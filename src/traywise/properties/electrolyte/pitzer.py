@@ -71,80 +71,92 @@ class Pitzer:
             for a, c in ((i, j), (j, i)):
                 self.w0[a, c] += 2.0 * beta0
                 self.w1[a, c] += 2.0 * beta1
-        self.pairs = [(i, j) for i, j, *_ in neutrals]
-        self.lambdas = np.array([(a, b_, c) for _, _, a, b_, c in neutrals]).reshape(-1, 3)
+        # molecule pairs: W_ac = 2 lambda for the entries (a, c) = (i, j) and (j, i) of each pair,
+        # lambda = a + b/T + c/T**2 (one pair's coefficients summed where the data repeat it)
+        merged = {}
+        for i, j, *coefficients in neutrals:
+            key = (min(i, j), max(i, j))
+            merged[key] = merged.get(key, 0.0) + 2.0 * np.array(coefficients, dtype=float)
+        entries = [((a, c), k) for k, (i, j) in enumerate(merged) for a, c in {(i, j), (j, i)}]
+        self.pairs = bool(merged)
+        self.pair_rows = np.array([a for (a, _), _ in entries], dtype=int)
+        self.pair_columns = np.array([c for (_, c), _ in entries], dtype=int)
+        self.twice_lambdas = np.array([merged[key] for key in merged]).reshape(-1, 3)[[k for _, k in entries]]
+        self.pair_scatter = np.zeros((len(entries), s))  # entry -> the row of W m it adds to
+        self.pair_scatter[np.arange(len(entries)), self.pair_rows] = 1.0
         self.has_w1 = bool(np.any(self.w1))
         self.a_phi_coefficients, self.b, self.alpha = a_phi_coefficients, b, alpha
         self.water_molar_mass = water_molar_mass
 
     def temperature_terms(self, t):
-        """What depends on temperature alone: (A_phi, dA_phi/dT, lambda, dlambda/dT) with
-        lambda (n, pairs) of the molecule pairs, for ``evaluate``."""
+        """What depends on temperature alone: (A_phi, dA_phi/dT, 2 lambda, 2 dlambda/dT) with
+        lambda (n, entries) of the molecule pairs' entries of W, for ``evaluate``."""
         amp, amp_t, _ = a_phi(t, self.a_phi_coefficients)
         inverse = 1.0 / t[:, None]
-        lam = self.lambdas[:, 0] + inverse * (self.lambdas[:, 1] + inverse * self.lambdas[:, 2])
-        lam_t = -inverse * inverse * (self.lambdas[:, 1] + 2.0 * inverse * self.lambdas[:, 2])
+        c = self.twice_lambdas
+        lam = c[:, 0] + inverse * (c[:, 1] + inverse * c[:, 2])
+        lam_t = -inverse * inverse * (c[:, 1] + 2.0 * inverse * c[:, 2])
         return amp, amp_t, lam, lam_t
 
     def evaluate(self, m, t, terms=None):
         """Activity terms at molalities m (n, s) [mol/kg] and temperature t (n,) [K] (terms:
         ``temperature_terms(t)``, computed here if not given).
 
-        Returns ln_gamma (n, s), hessian (n, s, s) [kg/mol], ln_aw (n,), dln_aw_dm (n, s)
+        Returns ln_gamma (n, s), hessian (s, s, n) [kg/mol] (stages last), ln_aw (n,), dln_aw_dm (n, s)
         [kg/mol], dln_gamma_dt (n, s) [1/K] and dln_aw_dt (n,) [1/K] at fixed m, and the ionic
         strength (n,) [mol/kg]."""
         q, b = self.q, self.b
-        n = m.shape[0]
+        n, s = m.shape
         ionic = np.maximum(m @ q, 1e-30)
         root = np.sqrt(ionic)
         one = 1.0 + b * root
         log_one = np.log(one)
-        f = -4.0 / b * ionic * log_one
+        f = (-4.0 / b) * ionic * log_one
         f1 = -(4.0 / b * log_one + 2.0 * root / one)
         f2 = -(2.0 + 1.0 / one) / (root * one)
         amp, amp_t, lam, lam_t = terms if terms is not None else self.temperature_terms(t)
         wm = m @ self.w0  # W0 is symmetric
-        wm_t = np.zeros_like(m) if self.pairs else None
-        for p, (i, j) in enumerate(self.pairs):  # molecule pairs: W_ij = W_ji = 2 lambda
-            for a, c in ((i, j),) if i == j else ((i, j), (j, i)):
-                wm[:, a] += 2.0 * lam[:, p] * m[:, c]
-                wm_t[:, a] += 2.0 * lam_t[:, p] * m[:, c]
-        hessian = np.broadcast_to(self.w0, (n,) + self.w0.shape)
-        g = amp * f + 0.5 * (m * wm).sum(axis=1)
-        scalar = amp * f1  # coefficient of q in ln gamma
-        curvature = amp * f2  # coefficient of q q^T in the Hessian
-        a = np.zeros_like(m)  # the Hessian's cross term a q^T + q a^T
+        # the Hessian stage-last, (s, s, n): every product below then runs along the stages
         if self.has_w1:
             h, h_x, h_xx = pitzer_h(self.alpha * root)
             dx = self.alpha / (2.0 * root)  # dx/dI
             h_i = h_x * dx
             h_ii = dx * (h_xx * dx - h_x / (2.0 * ionic))
             w1m = m @ self.w1
-            mw1m = (m * w1m).sum(axis=1)
-            wm = wm + h[:, None] * w1m
-            g = g + 0.5 * h * mw1m
-            scalar = scalar + 0.5 * h_i * mw1m
-            curvature = curvature + 0.5 * h_ii * mw1m
-            hessian = hessian + np.multiply.outer(h, self.w1)
-            a = h_i[:, None] * w1m
+            mw1m = np.vecdot(m, w1m)
+            wm += h[:, None] * w1m
+            scalar = amp * f1 + 0.5 * h_i * mw1m  # coefficient of q in ln gamma
+            curvature = amp * f2 + 0.5 * h_ii * mw1m  # coefficient of q q^T in the Hessian
+            a = h_i[:, None] * w1m  # the Hessian's cross term a q^T + q a^T
+            hessian = self.w1[:, :, None] * h
+            hessian += self.w0[:, :, None]
+            # a q^T + q a^T + curvature q q^T = b q^T + q b^T with b = a + curvature q / 2
+            bq = (a + (0.5 * curvature)[:, None] * q).T[:, None, :] * q[None, :, None]
+            hessian += bq
+            hessian += bq.transpose(1, 0, 2)
+        else:
+            scalar, curvature, a = amp * f1, amp * f2, None
+            hessian = self.qq[:, :, None] * curvature
+            hessian += self.w0[:, :, None]
+        if self.pairs:  # molecule pairs: W_ac = 2 lambda
+            mc = m[:, self.pair_columns]
+            wm += (lam * mc) @ self.pair_scatter
+            wm_t = (lam_t * mc) @ self.pair_scatter
+            hessian[self.pair_rows, self.pair_columns] += lam.T
+        g = amp * f + 0.5 * np.vecdot(m, wm)
         ln_gamma = scalar[:, None] * q + wm
-        qn = np.broadcast_to(q, m.shape)
-        left = np.stack([a, qn, curvature[:, None] * q], axis=2)  # (n, s, 3)
-        right = np.stack([qn, a, qn], axis=1)  # (n, 3, s)
-        hessian = hessian + np.matmul(left, right)
-        for p, (i, j) in enumerate(self.pairs):
-            hessian[:, i, j] += 2.0 * lam[:, p]
-            if i != j:
-                hessian[:, j, i] += 2.0 * lam[:, p]
         mw = self.water_molar_mass
-        ln_aw = mw * (g - (m * (1.0 + ln_gamma)).sum(axis=1))
+        ln_aw = mw * (g - m.sum(axis=1) - np.vecdot(m, ln_gamma))
         # H m without the Hessian: W m + a I + q (a.m) + curvature q I  (q.m = I)
-        hm = wm + a * ionic[:, None] + q * ((a * m).sum(axis=1) + curvature * ionic)[:, None]
+        if a is None:
+            hm = wm + q * (curvature * ionic)[:, None]
+        else:
+            hm = wm + a * ionic[:, None] + q * (np.vecdot(a, m) + curvature * ionic)[:, None]
         dln_aw_dm = -mw * (1.0 + hm)
         dln_gamma_dt = (amp_t * f1)[:, None] * q
         g_t = amp_t * f
-        if wm_t is not None:
-            dln_gamma_dt = dln_gamma_dt + wm_t
-            g_t = g_t + 0.5 * (m * wm_t).sum(axis=1)
-        dln_aw_dt = mw * (g_t - (m * dln_gamma_dt).sum(axis=1))
+        if self.pairs:
+            dln_gamma_dt += wm_t
+            g_t = g_t + 0.5 * np.vecdot(m, wm_t)
+        dln_aw_dt = mw * (g_t - np.vecdot(m, dln_gamma_dt))
         return ln_gamma, hessian, ln_aw, dln_aw_dm, dln_gamma_dt, dln_aw_dt, ionic

@@ -12,7 +12,10 @@ true/apparent water is explicit in y]. Rows, one per species:
 with activity coefficients and water activity from ``pitzer.Pitzer``. Newton's method with the
 exact Jacobian (the Pitzer Hessian included) runs on all stages together as batched (n, s, s)
 solves; the step is limited to MAX_STEP in ln m. It starts from the last solution of the same
-shape, else from the ideal-solution charge balance solved by bisection in ln m(H+).
+shape, else from the ideal-solution charge balance solved by bisection in ln m(H+). The Pitzer
+Hessian and the Jacobian are built stages last, (s, s, n), so that their element-wise products run
+along the stages (with s up to 15 a stages-first layout spends most of its time in 15-long loops);
+the Jacobian is handed to LAPACK as its (n, s, s) view.
 
 The same Jacobian gives the implicit-function derivatives of the solution with respect to
 temperature and to each apparent molality (``Equilibrium.sensitivity``).
@@ -21,6 +24,7 @@ Reference: T. J. Edwards, G. Maurer, J. Newman, J. M. Prausnitz, AIChE J. 24 (19
 """
 
 from dataclasses import dataclass, fields
+from typing import NamedTuple
 
 import numpy as np
 
@@ -67,7 +71,7 @@ class Equilibrium:
     y: np.ndarray  # (n, s) ln m
     m: np.ndarray  # (n, s) mol/kg
     ln_gamma: np.ndarray
-    hessian: np.ndarray
+    hessian: np.ndarray  # (s, s, n), stages last
     ln_aw: np.ndarray
     dln_aw_dm: np.ndarray
     dln_gamma_dt: np.ndarray
@@ -80,23 +84,48 @@ class Equilibrium:
 
     def head(self, n):
         """The record of the first n stages."""
-        return Equilibrium(*(value[:n] if isinstance(value, np.ndarray) else value
-                             for value in (getattr(self, f.name) for f in fields(self))))
+        values = [getattr(self, name) for name in _FIELDS]
+        return Equilibrium(*[value if not isinstance(value, np.ndarray) else value[..., :n] if name == "hessian"
+                             else value[:n] for name, value in zip(_FIELDS, values)])
 
-    def sensitivity(self, system, temperature_only=False):
-        """d y / d T (n, s) and d y / d ln T_j (n, s, k) by the implicit-function theorem
-        (only d y / d T, and None, with temperature_only)."""
-        rhs = -system.dr_dt(self)[:, :, None]
-        if not temperature_only:
-            n = self.t.size
-            totals = np.broadcast_to(system.total_rows, (n,) + system.total_rows.shape).copy()
-            if system.sodium_column is not None:  # NaOH also changes the true water (r)
-                na = self.totals[:, system.sodium_column]
-                share = system.water_molar_mass * na / (1.0 + system.water_molar_mass * na)
-                totals[:, :, system.sodium_column] -= (system.weak_rows | system.fixed_rows) * share[:, None]
-            rhs = np.concatenate([rhs, totals], axis=2)
-        solved = np.linalg.solve(self.jacobian, rhs)
-        return solved[:, :, 0], (None if temperature_only else solved[:, :, 1:])
+    def sensitivity(self, system, full=None):
+        """d y / d T (n, s) of every stage and d y / d ln T_j (full, s, k) of the first ``full``
+        stages (default: all), by the implicit-function theorem."""
+        n = self.t.size
+        full = n if full is None else full
+        rhs_t = -system.dr_dt(self)
+        totals = np.broadcast_to(system.total_rows, (full,) + system.total_rows.shape).copy()
+        if system.sodium_column is not None:  # NaOH also changes the true water (r)
+            na = self.totals[:full, system.sodium_column]
+            share = system.water_molar_mass * na / (1.0 + system.water_molar_mass * na)
+            totals[:, :, system.sodium_column] -= (system.weak_rows | system.fixed_rows) * share[:, None]
+        solved = np.linalg.solve(self.jacobian[:full], np.concatenate([rhs_t[:full, :, None], totals], axis=2))
+        dy_dt = np.empty_like(rhs_t)
+        dy_dt[:full] = solved[:, :, 0]
+        if full < n:  # the other stages' temperature derivative alone
+            dy_dt[full:] = np.linalg.solve(self.jacobian[full:], rhs_t[full:, :, None])[:, :, 0]
+        return dy_dt, solved[:, :, 1:]
+
+
+def hessian_times(hessian, vectors):
+    """H v per stage: the Hessian (s, s, n) stage-last times vectors (n, s) -> (n, s)."""
+    return np.matmul(hessian.transpose(2, 0, 1), vectors[:, :, None])[:, :, 0]
+
+
+class _Batch(NamedTuple):
+    """What Newton's method holds fixed for one batch of stages."""
+
+    t: np.ndarray  # (n,) K
+    ln_k: np.ndarray  # (n, s) ln K of the mass-action rows
+    ln_k_target: np.ndarray  # (n, s) ln K of the mass-action rows plus the balance rows' targets
+    dlnk_dt: np.ndarray  # (n, s)
+    terms: tuple  # Pitzer.temperature_terms(t)
+    ln_rows: np.ndarray  # (n, s) ln of the apparent molality each row refers to (0 where none)
+    inverse_rows: np.ndarray  # (n, s) its inverse
+    ln_r0: np.ndarray  # (n,) ln(1 + M_w T_NaOH)
+
+
+_FIELDS = tuple(f.name for f in fields(Equilibrium))
 
 
 class SpeciationSystem:
@@ -148,7 +177,12 @@ class SpeciationSystem:
         self.charge_row = charge_row.astype(bool)
         self.weak_rows = self.target.astype(bool)
         self.fixed_rows = np.diag(self.fixed).astype(bool)
-        self.constant_jacobian = self.c + self.fixed
+        self.constant_jacobian = (self.c + self.fixed)[:, :, None]
+        self.h = position["H+"]
+        self.masters = np.array([j for j in range(s) if j not in set(self.derived) and self.c[:, j].any()], dtype=int)
+        self.c_masters = self.c[np.ix_(self.derived, self.masters)]  # C on the derived rows is I plus these
+        self.abs_charges = np.abs(self.charges)
+        self.fixed_index = np.flatnonzero(self.fixed_rows)
         self.water_molar_mass = water_molar_mass
         self.sodium_row = position.get("Na+")
         self.sodium_column = self.solutes.index("NaOH") if "NaOH" in self.solutes else None
@@ -161,35 +195,52 @@ class SpeciationSystem:
 
     # ------------------------------------------------------------------ equations
     def _ln_k(self, t):
+        """ln K of the mass-action rows and its temperature derivative, each (n, s)."""
         terms = coefficient_terms(t)  # (n, 3, 4)
         both = terms[:, :2] @ self.ln_k_coefficients.T  # (n, 2, s)
         return both[:, 0], both[:, 1]
 
-    def _residual_and_jacobian(self, y, t, ln_k, totals_rows, terms):
+    def _batch(self, t, totals):
+        """The ``_Batch`` of temperatures t (n,) and apparent molalities totals (n, k), floored."""
+        ln_k, dlnk_dt = self._ln_k(t)
+        rows = self._rows_of_totals(totals)
+        return _Batch(t, ln_k, ln_k + self.target, dlnk_dt, self.pitzer.temperature_terms(t), np.log(rows), 1.0 / rows,
+                      self._ln_r0(rows))
+
+    def _residual_and_jacobian(self, y, batch):
+        """Residuals (n, s), the Jacobian d R/d y (n, s, s), m and the activity terms at y."""
         m = np.exp(y)
-        activity = self.pitzer.evaluate(m, t, terms)
+        activity = self.pitzer.evaluate(m, batch.t, batch.terms)
         ln_gamma, hessian, ln_aw, dln_aw_dm = activity[:4]
+        mw = self.water_molar_mass
         # r = (true water)/(apparent water): water bound in OH-, HCO3-, ... and set free by NaOH
-        denominator = 1.0 + self.water_molar_mass * (m @ self.nu_w)
-        ln_r = self._ln_r0(totals_rows) - np.log(denominator)
-        dln_r = -self.water_molar_mass * self.nu_w * m / denominator[:, None]  # d ln r / d y, (n, s)
-        weight = np.where(self.weak_rows, np.exp(ln_r)[:, None], 1.0)
-        scale = totals_rows.copy()
-        scale[:, self.charge_row] = (np.abs(self.charges) @ m.T)[:, None]
-        balance = (m @ self.balance.T) * weight / scale
-        r = (y + ln_gamma) @ self.c.T - ln_aw[:, None] * self.nu_w - ln_k
-        r += balance - self.target
-        r += (y + ln_r[:, None] - np.log(totals_rows)) @ self.fixed.T
-        n, s = m.shape
-        c_hessian = np.dot(hessian.reshape(-1, s), self.c.T).reshape(n, s, s).transpose(0, 2, 1)  # C H (H symmetric)
-        jacobian = c_hessian + (weight / scale)[:, :, None] * self.balance
-        jacobian *= m[:, None, :]
+        denominator = 1.0 + mw * (m @ self.nu_w)
+        ln_r = batch.ln_r0 - np.log(denominator)
+        dln_r = (-mw * self.nu_w) * m / denominator[:, None]  # d ln r / d y, (n, s)
+        # each balance row's weight (r on the mass balances) over its scale (the apparent
+        # molality; the sum of |z| m on the charge balance)
+        weight = batch.inverse_rows * np.where(self.weak_rows, np.exp(ln_r)[:, None], 1.0)
+        weight[:, self.h] = 1.0 / (m @ self.abs_charges)
+        balance = (m @ self.balance.T) * weight
+        r = (y + ln_gamma) @ self.c.T
+        r -= ln_aw[:, None] * self.nu_w
+        r += balance
+        r -= batch.ln_k_target
+        fixed = self.fixed_index
+        r[:, fixed] += (y[:, fixed] + ln_r[:, None]) - batch.ln_rows[:, fixed]
+        # the Jacobian stage-last (s, s, n), so that its products run along the stages
+        s, n = hessian.shape[1:]
+        # C H: a derived species' row is its own row of H less its masters' (C is I on the derived)
+        jacobian = np.zeros((s, s, n))
+        masters = hessian[self.masters].reshape(self.masters.size, -1)
+        jacobian[self.derived] = hessian[self.derived] + (self.c_masters @ masters).reshape(self.derived.size, s, n)
+        jacobian += self.balance[:, :, None] * weight.T[:, None, :]
+        jacobian *= m.T[None]
         jacobian += self.constant_jacobian
         # rank-two part: water activity in the mass action, r in the balances and fixed rows
-        left = np.stack([np.broadcast_to(-self.nu_w, m.shape), balance * self.weak_rows + self.fixed_rows], axis=2)
-        right = np.stack([dln_aw_dm * m, dln_r], axis=1)
-        jacobian += np.matmul(left, right)
-        return r, jacobian, m, activity
+        jacobian -= self.nu_w[:, None, None] * (dln_aw_dm * m).T[None]
+        jacobian += (balance * self.weak_rows + self.fixed_rows).T[:, None, :] * dln_r.T[None]
+        return r, jacobian.transpose(2, 0, 1), m, activity
 
     def _ln_r0(self, totals_rows):
         """ln(1 + M_w T_NaOH) (n,): the water the dissolved hydroxide brings."""
@@ -253,13 +304,12 @@ class SpeciationSystem:
         from ``start`` (ln m, (n, s)) if given, else the last solution of this shape."""
         t = np.asarray(t, dtype=float)
         totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
-        ln_k, dlnk_dt = self._ln_k(t)
-        rows = self._rows_of_totals(totals)
+        batch = self._batch(t, totals)
         start = self._cache.get(t.shape) if start is None else start
         for attempt in ("warm", "cold"):
             if attempt == "cold" or start is None:
-                start = self._cold_start(t, totals, ln_k)
-            result = self._newton(start, t, ln_k, dlnk_dt, rows)
+                start = self._cold_start(t, totals, batch.ln_k)
+            result = self._newton(start, batch)
             if result is not None:
                 break
         else:
@@ -267,29 +317,27 @@ class SpeciationSystem:
                                      f"temperatures {t.min():.1f}-{t.max():.1f} K, largest apparent molality {totals.max():.3g} mol/kg")
         y, jacobian, m, activity, iterations, dy_dt = result
         self._cache[t.shape] = y
-        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, iterations, dy_dt)
+        return Equilibrium(t, totals, y, m, *activity, jacobian, batch.dlnk_dt, iterations, dy_dt)
 
     def evaluate_at(self, y, t, totals):
         """The ``Equilibrium`` record of given ln m (n, s), without iterating (for states
         predicted from a solved one by its sensitivities)."""
         t = np.asarray(t, dtype=float)
         totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
-        ln_k, dlnk_dt = self._ln_k(t)
-        terms = self.pitzer.temperature_terms(t)
-        _, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, self._rows_of_totals(totals), terms)
-        return Equilibrium(t, totals, y, m, *activity, jacobian, dlnk_dt, 0)
+        batch = self._batch(t, totals)
+        _, jacobian, m, activity = self._residual_and_jacobian(y, batch)
+        return Equilibrium(t, totals, y, m, *activity, jacobian, batch.dlnk_dt, 0)
 
-    def _newton(self, y, t, ln_k, dlnk_dt, rows):
+    def _newton(self, y, batch):
         """Newton's method from y; returns (y, Jacobian before the last step, m, activity terms,
         iterations, d y/dT before the last step), or None when it fails."""
         with np.errstate(over="ignore", invalid="ignore"):  # a failing start is detected, not warned about
-            return self._newton_steps(np.clip(y, *LN_M_RANGE), t, ln_k, dlnk_dt, rows)
+            return self._newton_steps(np.clip(y, *LN_M_RANGE), batch)
 
-    def _newton_steps(self, y, t, ln_k, dlnk_dt, rows):
-        terms = self.pitzer.temperature_terms(t)
+    def _newton_steps(self, y, batch):
         for iteration in range(1, MAX_ITERATIONS + 1):
-            r, jacobian, m, activity = self._residual_and_jacobian(y, t, ln_k, rows, terms)
-            dr_dt = activity[4] @ self.c.T - activity[5][:, None] * self.nu_w - dlnk_dt
+            r, jacobian, m, activity = self._residual_and_jacobian(y, batch)
+            dr_dt = activity[4] @ self.c.T - activity[5][:, None] * self.nu_w - batch.dlnk_dt
             try:
                 both = np.linalg.solve(jacobian, -np.stack([r, dr_dt], axis=2))  # the step and d y/dT
             except np.linalg.LinAlgError:
@@ -305,7 +353,7 @@ class SpeciationSystem:
                 m = np.exp(y)
                 dm = m * step
                 ln_gamma, hessian, ln_aw, dln_aw_dm, *rest = activity
-                ln_gamma = ln_gamma + np.matmul(hessian, dm[:, :, None])[:, :, 0]
+                ln_gamma = ln_gamma + hessian_times(hessian, dm)
                 ln_aw = ln_aw + (dln_aw_dm * dm).sum(axis=1)
                 return y, jacobian, m, (ln_gamma, hessian, ln_aw, dln_aw_dm, *rest), iteration, both[:, :, 1]
             y += step * np.minimum(1.0, MAX_STEP / np.maximum(biggest, 1e-300))
