@@ -61,7 +61,7 @@ def test_a_design_that_misses_its_removal_target_exits_4_with_its_results(tmp_pa
 
 def test_the_exit_status_4_is_in_the_help():
     text = " ".join(CliRunner().invoke(main, ["--help"]).output.split())
-    assert "4 a design whose removal target or temperature limit the solved column does not meet" in text
+    assert "4 a design whose removal target, temperature limit or liquid outlet limit the solved column does not meet" in text
 
 
 def test_a_design_that_meets_everything_exits_0(tmp_path):

@@ -16,7 +16,7 @@ Exit status: 0 success; 1 the results could not be written (file system); 2 bad 
 file, missing file, unknown component, a folder that may not be replaced); 3 the stage
 equations did not converge, a design target cannot be reached, or no point of a sweep
 converged (a sweep with some failed points exits 0, warns and marks them); 4 a design whose
-removal target or temperature limit is not met by the solved column (the results are written
+removal target, temperature limit or liquid outlet limit is not met by the solved column (the results are written
 and printed all the same, marked NOT MET or BROKEN). Every failure
 prints one line on stderr, ``traywise: error: ...``, and never a traceback for these causes; a
 program fault still shows its traceback.
@@ -58,8 +58,8 @@ def main():
     pressure.
 
     Exit status: 0 success; 1 the results could not be written; 2 bad input; 3 no converged
-    solution, or a design target that cannot be reached; 4 a design whose removal target or
-    temperature limit the solved column does not meet (its results are written all the same).
+    solution, or a design target that cannot be reached; 4 a design whose removal target,
+    temperature limit or liquid outlet limit the solved column does not meet (its results are written all the same).
     """
 
 

@@ -112,12 +112,13 @@ def echo_warnings(record):
 
 def exit_if_not_met(ctx, case_run, folder=None):
     """Exit with status 4 when the run's design misses its removal target or breaks its
-    temperature limit (after its results were written and printed)."""
+    temperature limit or liquid outlet limit (after its results were written and printed)."""
     design = case_run.design
     if design is None:
         return
     missed = [what for what, met in (("its removal target", design.target_met),
-                                       ("its temperature limit", design.limit_held)) if met is False]
+                                       ("its temperature limit", design.limit_held),
+                                       ("its liquid outlet limit", design.liquid_limit_held)) if met is False]
     if missed:
         where = f"; results in {folder}" if folder is not None else ""
         fail(ctx, f"the design does not meet {' and '.join(missed)} (see the warnings{where})", EXIT_NOT_MET)

@@ -304,8 +304,12 @@ def _liquid_volumes(case, solution):
 
 def _comparison(case, solution, key):
     from .inert_basis.comparison import compare
+    from .inert_basis.verdict import CELSIUS, TemperatureUnit
 
-    return compare(solution, case.model, key, solvent_index=case.model.names.index(case.solvent), solutes=case.solutes)
+    shown = (getattr(case, "display_units", None) or {}).get("temperature")
+    units = CELSIUS if shown is None else TemperatureUnit(shown["unit"], shown["scale"], shown["offset"])
+    return compare(solution, case.model, key, solvent_index=case.model.names.index(case.solvent), solutes=case.solutes,
+                   units=units)
 
 
 def _kremser(case, solution, comparison):

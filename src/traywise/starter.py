@@ -62,6 +62,7 @@ plots = true
 # outlet_mole_fraction = "20 ppmv"   # key component in the gas out; or fraction_absorbed = "99 %"
 # solve_for = "solvent_flow"         # or "stages"; or "cooler_duty" with cooler_stage and a temperature limit
 # column_temperature_limit = "45 degC"   # or liquid_out_temperature_limit; checked unless a cooler duty is solved for
+# liquid_out_concentration_limit = "5 wt%"   # key component in the liquid out ("ppmw", "mol%"); checked
 # minimum_solvent = true             # also the minimum solvent flow, the pinch and the design margin
 # oconnell_efficiency = true         # also trays from O'Connell's efficiency estimate (water as solvent)
 

@@ -1,12 +1,14 @@
 """The ``[design]`` table: a removal target on the key solute and/or a temperature limit, the
-input solved for to meet it, and the extra figures asked for (minimum solvent flow, O'Connell's
+input solved for to meet it, a concentration limit on the liquid leaving the bottom (checked), and the extra figures asked for (minimum solvent flow, O'Connell's
 tray efficiency). Read into a ``DesignInput`` whose fields are those the design layer takes
 (``traywise.design.plan``); the design itself is run by the command line."""
 
 import re
 from dataclasses import dataclass
 
+from ..design.targets import LiquidOutletLimit
 from ..design.variables import stage_bound
+from ..errors import InputError
 from .limits import check_range
 from .units import UnitProblem, composition_basis_of, split_number, to_si
 
@@ -15,6 +17,7 @@ DESIGN_KEYS = (
     "fraction_absorbed",
     "liquid_out_temperature_limit",
     "column_temperature_limit",
+    "liquid_out_concentration_limit",
     "solve_for",
     "cooler_stage",
     "minimum_solvent",
@@ -41,6 +44,7 @@ class DesignInput:
     cooler_stage : int or None    1-based
     minimum_solvent : bool
     oconnell_efficiency : bool
+    liquid_limit : LiquidOutletLimit or None   Checked on the designed column
     """
 
     solute: str | None
@@ -52,6 +56,7 @@ class DesignInput:
     cooler_stage: int | None
     minimum_solvent: bool
     oconnell_efficiency: bool
+    liquid_limit: LiquidOutletLimit | None = None
 
     def echo(self):
         """The table as read, SI units in the key names (for results.json)."""
@@ -65,6 +70,9 @@ class DesignInput:
             "cooler_stage": self.cooler_stage,
             "minimum_solvent": self.minimum_solvent,
             "oconnell_efficiency": self.oconnell_efficiency,
+            "liquid_out_limit": None if self.liquid_limit is None else {
+                "component": self.liquid_limit.component, "basis": self.liquid_limit.basis,
+                "value": self.liquid_limit.value},
         }
 
 
@@ -92,6 +100,7 @@ def read_design(top, *, model, column, column_input, key, gas_flows, solvent):
         section.fail(limits[1], f"give one temperature limit, not both {' and '.join(limits)}")
     limit_place = LIMITS[limits[0]] if limits else None
     limit_value = check_range(section, limits[0], "temperature", section.quantity(limits[0], "temperature")) if limits else None
+    liquid_limit = _liquid_limit(section, model, key)
     cooler_stage = _cooler_stage(section, solve_for, column_input)
     minimum = section.boolean("minimum_solvent", False)
     oconnell = section.boolean("oconnell_efficiency", False)
@@ -132,6 +141,7 @@ def read_design(top, *, model, column, column_input, key, gas_flows, solvent):
         cooler_stage=cooler_stage,
         minimum_solvent=minimum,
         oconnell_efficiency=oconnell,
+        liquid_limit=liquid_limit,
     )
 
 
@@ -186,6 +196,39 @@ def _reference_concentration(section, raw):
         section.fail("outlet_mole_fraction", f"{problem}; a concentration at reference conditions is a mass per "
                      "reference volume, such as \"20 mg/Nm3\"")
     return value
+
+
+def _liquid_limit(section, model, key):
+    """The LiquidOutletLimit of ``liquid_out_concentration_limit``, or None: "2 wt%" limits the key
+    component, { ammonia = "2 wt%" } names one. wt%, mass%, ppmw are mass fractions; mol%, a plain
+    number (0.02) mole fractions; "%" and "ppm" say neither and are refused."""
+    name = "liquid_out_concentration_limit"
+    if name not in section:
+        return None
+    raw, component = section.data[name], model.names[key]
+    example = f"\"2 wt%\", \"500 ppmw\", \"1 mol%\" or a mole fraction such as 0.01"
+    if isinstance(raw, dict):
+        if len(raw) != 1:
+            section.fail(name, f"found {len(raw)} components; name one, e.g. {{ {component} = \"2 wt%\" }}")
+        ((written, raw),) = raw.items()
+        try:
+            component = model.names[model.component_index(written)]
+        except InputError:
+            section.fail(name, f"'{written}' is not a component of this case; expected one of {', '.join(model.names)}")
+    basis = "mole"
+    if isinstance(raw, str):
+        try:
+            to_si(raw, ("fraction",))
+            basis = composition_basis_of(raw)
+        except UnitProblem:
+            section.fail(name, f"found '{raw}', which is not a mass or mole fraction; give {example}")
+        if basis is None and split_number(raw)[1]:
+            section.fail(name, f"found '{raw}', which says neither a mass nor a mole fraction; give {example}")
+    elif isinstance(raw, bool) or not isinstance(raw, (int, float)):
+        section.fail(name, f"found {raw!r}; expected {example}, or a table naming the component "
+                     f"({{ {component} = \"2 wt%\" }})")
+    value = section.fraction(name, value=raw, open_high=True)
+    return LiquidOutletLimit(component, "mass_fraction" if basis == "mass" else "mole_fraction", value)
 
 
 def _cooler_stage(section, solve_for, column_input):

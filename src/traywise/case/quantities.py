@@ -22,6 +22,7 @@ CASE_KEYS = {
     "key_solute": "key_component",
     "target": "design",
     "limit": "design",
+    "liquid_limit": "design.liquid_out_concentration_limit",
     "stage": "design.cooler_stage",
     "gas_temperature": "gas_feed.temperature",
     "solvent_temperature": "solvent_feed.temperature",

@@ -13,10 +13,12 @@ The request is any object with these fields (the case layer reads them from a ca
   cooler_stage : int or None    1-based stage of the cooler whose duty is adjusted
   minimum_solvent : bool        also find the minimum solvent flow for the removal target
   oconnell_efficiency : bool    also estimate the overall efficiency by O'Connell's correlation
+  liquid_limit : LiquidOutletLimit or None   checked on the designed column (optional field)
 
 The removal target is what 'solvent_flow' and 'n_stages' are adjusted for (a temperature limit
 is then checked and warned about); 'cooler_duty' is adjusted for the temperature limit (a
-removal target is then checked and warned about). A target that cannot be met raises
+removal target is then checked and warned about). A liquid outlet limit is always checked and
+warned about. A target that cannot be met raises
 ``TargetNotReached``, naming the step; a solve that fails raises ``ConvergenceError``.
 """
 
@@ -27,7 +29,7 @@ from ..errors import ConvergenceError, PinchError, TargetNotReached
 from ..mesh.newton import SolverSettings
 from .solve_for import cooler_duty_for_limit, solvent_for_target, stages_for_target
 from .minimum_solvent import minimum_solvent
-from .targets import SoluteTarget, TemperatureLimit
+from .targets import LiquidOutletLimit, SoluteTarget, TemperatureLimit
 from .trays import tray_design
 from .variables import STAGE_BOUND, stage_bound
 
@@ -50,6 +52,8 @@ class DesignOutcome:
     trays : tuple of TrayDesign       One per efficiency route: the given overall efficiency,
                                       then O'Connell's estimate, as available and asked for
     warnings : tuple of str           The design's own (the solution's are on the solution)
+    liquid_limit : LiquidOutletLimit or None   The liquid outlet limit (always checked only)
+    liquid_limit_held : bool or None  Whether the designed column holds it (None without one)
     """
 
     result: object
@@ -61,6 +65,8 @@ class DesignOutcome:
     minimum: object
     trays: tuple
     warnings: tuple
+    liquid_limit: LiquidOutletLimit | None = None
+    liquid_limit_held: bool | None = None
 
 
 def carry_out_design(column, model, request, *, overall_efficiency=None, settings=SolverSettings()):
@@ -106,6 +112,11 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
     limit_held = None if limit is None else limit is designed or limit.shortfall(solution) <= 0.0
     if target_met is False:
         warnings.append(f"removal target not met: {target.describe(target.reached(solution))}, required {target.describe()}")
+    liquid_limit = getattr(request, "liquid_limit", None)
+    liquid_held = None if liquid_limit is None else liquid_limit.shortfall(solution) <= 0.0
+    if liquid_held is False:
+        warnings.append(f"liquid outlet limit broken: {liquid_limit.describe(liquid_limit.reached(solution))}, "
+                        f"allowed {liquid_limit.describe()}")
     minimum = None
     if request.minimum_solvent:
         n = max(MINIMUM_SOLVENT_STAGES, result.column.n_stages)  # never fewer stages than the design
@@ -130,7 +141,8 @@ def carry_out_design(column, model, request, *, overall_efficiency=None, setting
             trays.append(tray_design(result.column, model, target, **efficiency, **options))
         warnings.extend(f"trays by {label}: {w}" for w in trays[-1].warnings)
     stage = request.cooler_stage if request.solve_for == "cooler_duty" else None
-    return DesignOutcome(result, stage, target, limit, target_met, limit_held, minimum, tuple(trays), tuple(warnings))
+    return DesignOutcome(result, stage, target, limit, target_met, limit_held, minimum, tuple(trays), tuple(warnings),
+                         liquid_limit, liquid_held)
 
 
 @contextmanager

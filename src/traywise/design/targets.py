@@ -1,4 +1,5 @@
-"""What a design aims at: a removal target on one key solute, and a temperature limit.
+"""What a design aims at: a removal target on one key solute, a temperature limit, and a limit
+on one component's concentration in the liquid leaving the bottom.
 
 Each target gives a signed, smooth 'shortfall' that is positive while the target is not met and
 negative once it is exceeded, so that an outer loop can bracket and solve shortfall = 0:
@@ -6,6 +7,7 @@ negative once it is exceeded, so that an outer loop can bracket and solve shortf
   outlet mole fraction y_t (or ppmv):  shortfall = ln(y / y_t)
   fraction absorbed f_t:               shortfall = ln((1 - f) / (1 - f_t))
   temperature limit T_max:             shortfall = T - T_max  [K]
+  liquid outlet limit x_max (or w_max): shortfall = ln(x / x_max)
 
 The logarithms make the solute shortfall nearly straight against the logarithm of the solvent
 flow and against the stage count (Kremser's equation is geometric in both), which is what the
@@ -22,6 +24,7 @@ from ..errors import InputError
 
 SOLUTE_QUANTITIES = ("outlet_mole_fraction", "outlet_ppmv", "fraction_absorbed")
 TEMPERATURE_PLACES = ("liquid_outlet", "column_maximum")
+LIQUID_BASES = ("mole_fraction", "mass_fraction")
 SMALLEST = float(np.nextafter(0.0, 1.0))
 
 
@@ -144,3 +147,46 @@ class TemperatureLimit:
         value = self.value if value is None else value
         where = "liquid outlet" if self.place == "liquid_outlet" else "hottest stage"
         return f"{where} at {value:.2f} K"
+
+
+@dataclass(frozen=True)
+class LiquidOutletLimit:
+    """An upper limit on one component's concentration in the liquid leaving the bottom stage
+    (a rich-solvent loading, say), checked on the solved column.
+
+    component : str   The component (name, alias, formula or CAS number)
+    basis : str       'mole_fraction' or 'mass_fraction'
+    value : float     The highest fraction allowed on that basis [-]
+    """
+
+    component: str
+    basis: str
+    value: float
+
+    def __post_init__(self):
+        if self.basis not in LIQUID_BASES:
+            raise InputError("liquid_limit", f"basis '{self.basis}' unknown; expected one of {', '.join(LIQUID_BASES)}")
+        if not 0.0 < self.value < 1.0:
+            raise InputError("liquid_limit", f"expected a fraction between 0 and 1 (exclusive), found {self.value!r}")
+
+    unit = "-"
+
+    def reached(self, solution):
+        """The component's fraction in the liquid out of a ``ColumnSolution``, on the limit's basis [-]."""
+        names = [name.lower() for name in solution.component_names]
+        if self.component.strip().lower() not in names:
+            raise InputError("liquid_limit", f"'{self.component}' is not among the components "
+                                             f"{', '.join(solution.component_names)}")
+        i = names.index(self.component.strip().lower())
+        flows = solution.liquid_out * (solution.molar_mass if self.basis == "mass_fraction" else 1.0)
+        return float(flows[i] / flows.sum())
+
+    def shortfall(self, solution):
+        """Signed, positive while the limit is broken [-]."""
+        return _log_ratio(self.reached(solution), self.value)
+
+    def describe(self, value=None):
+        """Plain words for the limit, or for a reached ``value``."""
+        value = self.value if value is None else value
+        basis = "mole" if self.basis == "mole_fraction" else "mass"
+        return f"{self.component} in the liquid out at {basis} fraction {value:.6g}"

@@ -27,7 +27,7 @@ from ..errors import PinchError, TraywiseError
 from .design import inert_basis_design
 from .equilibrium_curve import mole_ratio_equilibrium
 from .lewis import stage_equivalent
-from .verdict import SAME_TEMPERATURE, STAGE_TOLERANCE, ProfileMeasures, judge, tolerance_text
+from .verdict import CELSIUS, SAME_TEMPERATURE, STAGE_TOLERANCE, ProfileMeasures, judge, tolerance_text
 
 MIN_ABSORBED = 1e-3  # components absorbed less than this are carriers, not solutes
 OUTLET_BASIS = "solvent-free: mole fraction in the gas leaving the top, its solvent vapour left out"
@@ -130,7 +130,7 @@ def default_key(solution, solvent_index=0):
     return solution.component_names[int(np.argmax(absorbed))]
 
 
-def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
+def compare(solution, model, key=None, *, solvent_index=0, solutes=None, units=CELSIUS):
     """Run the isothermal inert-basis method on the column of ``solution`` and compare.
 
     Parameters
@@ -141,6 +141,7 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
     solvent_index : int          index of the solvent component (never a solute)
     solutes : sequence of str, optional   the solutes to compare one by one (default: every
         gas-feed component absorbed more than MIN_ABSORBED, the solvent excepted)
+    units : verdict.TemperatureUnit   how the verdict writes temperatures (default degC)
     """
     column = solution.column
     key = key or default_key(solution, solvent_index)
@@ -167,7 +168,8 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None):
     compared = tuple(_solute(solution, model, i, stages, solvent_index, dict(common, temperature=temperature))
                      for i in indices)
     measures = _measures(solution, model, key, solvent_index, temperature, pressure, design)
-    direction, causes, verdict = judge(key, stages, tuple(bracket), measures, reason, pinched=bracket[0].pinched)
+    direction, causes, verdict = judge(key, stages, tuple(bracket), measures, reason, pinched=bracket[0].pinched,
+                                     units=units)
     return Comparison(
         key, temperature, pressure, column.n_stages, stages, efficiencies, bracket[0].stages, tuple(bracket), design,
         compared, OUTLET_BASIS, measures.max_temperature_rise, solution.hottest_stage, direction, causes,

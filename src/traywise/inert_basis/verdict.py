@@ -24,6 +24,9 @@ than ``FLOW_CHANGE`` of the gas changing phase, in the direction that explains t
 condensation and absorbed carriers raise L/V and make the simple method conservative,
 evaporation lowers it), and the curvature of the equilibrium line (Y*(X) bending by more than
 ``CURVATURE`` over the column where Lewis's straight-line relation counted the trays).
+
+Temperatures are written in a ``TemperatureUnit`` given from above (the case's display unit,
+passed by the run), degC when none is given.
 """
 
 from dataclasses import dataclass
@@ -35,6 +38,31 @@ TEMPERATURE_SHARE = 1.0 / 3.0  # share of the gap the mean-temperature design mu
 FLAT_ABSORPTION = 1.0  # below this absorption factor the removal is flat in the stage count (Kremser)
 SAME_TEMPERATURE = 0.05  # K; a bracket temperature this close to the solvent inlet is not told apart
 NOTABLE_RISE = 5.0  # K; a temperature rise worth a caution in the verdict (our judgement)
+
+
+@dataclass(frozen=True)
+class TemperatureUnit:
+    """How the verdict writes temperatures: shown = kelvin x scale + offset, in ``name``.
+
+    Differences are written in K when the unit's degree is the kelvin (K, degC), else in the
+    unit's own degree (degF).
+    """
+
+    name: str = "degC"
+    scale: float = 1.0
+    offset: float = -273.15
+
+    def absolute(self, kelvin):
+        """A temperature [K] as text with its unit."""
+        return f"{kelvin * self.scale + self.offset:.1f} {self.name}"
+
+    def difference(self, kelvin, sign=""):
+        """A temperature difference [K] as text with its unit (``sign`` "+" to show it always)."""
+        unit = "K" if self.scale == 1.0 else self.name
+        return f"{kelvin * self.scale:{sign}.1f} {unit}"
+
+
+CELSIUS = TemperatureUnit()
 
 
 @dataclass(frozen=True)
@@ -78,7 +106,7 @@ def stage_tolerance(rigorous_stages):
     return max(absolute, relative * rigorous_stages)
 
 
-def judge(key, rigorous_stages, bracket, measures, reason, *, pinched=False):
+def judge(key, rigorous_stages, bracket, measures, reason, *, pinched=False, units=CELSIUS):
     """(direction, causes, verdict sentence) of the simple method.
 
     Parameters
@@ -89,6 +117,7 @@ def judge(key, rigorous_stages, bracket, measures, reason, *, pinched=False):
     measures : ProfileMeasures
     reason : str or None          why the simple method gives no stage count (None when it gives one)
     pinched : bool                the reason is a pinch: the simple method cannot reach the removal
+    units : TemperatureUnit       how temperatures are written (default degC)
 
     Returns
     -------
@@ -97,11 +126,12 @@ def judge(key, rigorous_stages, bracket, measures, reason, *, pinched=False):
     verdict : str
     """
     inlet = bracket[0]
-    caution = (f"; the column runs up to {measures.max_temperature_rise:.1f} K above the solvent inlet temperature"
+    caution = (f"; the column runs up to {units.difference(measures.max_temperature_rise)} above the solvent inlet "
+               "temperature"
                if measures.max_temperature_rise > NOTABLE_RISE else "")
     if inlet.stages is None:
         if pinched:
-            causes = _causes(key, rigorous_stages, bracket, measures, need=-1.0)
+            causes = _causes(key, bracket, measures, -1.0, units)
             text = (f"conservative: {reason}, while the rigorous column reaches it with {rigorous_stages:.2f} "
                     f"theoretical stages; the simple method would have asked for more solvent")
             return "conservative", causes, text + _because(causes) + caution
@@ -109,10 +139,10 @@ def judge(key, rigorous_stages, bracket, measures, reason, *, pinched=False):
     need = rigorous_stages - inlet.stages
     detail = (f"the isothermal design at the solvent inlet temperature asks for {inlet.stages:.2f} theoretical "
               f"stages of {key} removal against {rigorous_stages:.2f} rigorous (tolerance: {tolerance_text()})")
-    spread = _bracket_text(bracket)
+    spread = _bracket_text(bracket, units)
     if abs(need) <= stage_tolerance(rigorous_stages):
         return "close", (), f"close: {detail}{spread}{caution}"
-    causes = _causes(key, rigorous_stages, bracket, measures, need)
+    causes = _causes(key, bracket, measures, need, units)
     if any(cause.startswith("temperature") for cause in causes):
         caution = ""  # said in the cause
     factor = measures.absorption_factor
@@ -126,9 +156,9 @@ def judge(key, rigorous_stages, bracket, measures, reason, *, pinched=False):
                                     f"{caution}")
 
 
-def _bracket_text(bracket):
+def _bracket_text(bracket, units):
     others = [f"{'none (it pinches)' if point.stages is None else f'{point.stages:.2f}'} at the {point.label} "
-              f"temperature ({point.temperature - 273.15:.1f} degC)" for point in bracket[1:]
+              f"temperature ({units.absolute(point.temperature)})" for point in bracket[1:]
               if abs(point.temperature - bracket[0].temperature) >= SAME_TEMPERATURE]
     return f"; it asks for {' and '.join(others)}" if others else ""
 
@@ -139,7 +169,7 @@ def _because(causes):
         "equilibrium line")
 
 
-def _causes(key, rigorous_stages, bracket, measures, need):
+def _causes(key, bracket, measures, need, units):
     """The effects that explain a gap ``need`` = rigorous - simple [stages] (module docstring)."""
     causes = []
     inlet, mean = bracket[0], bracket[1]
@@ -147,11 +177,13 @@ def _causes(key, rigorous_stages, bracket, measures, need):
         moved = mean.stages - inlet.stages
         if moved * need > 0.0 and abs(moved) >= TEMPERATURE_SHARE * abs(need):
             side = "above" if measures.mean_rise > 0.0 else "below"
-            causes.append(f"temperature (the liquid runs on average {abs(measures.mean_rise):.1f} K {side} the solvent "
-                          f"inlet and {measures.max_temperature_rise:.1f} K above it on stage {measures.hottest_stage}, "
+            causes.append(f"temperature (the liquid runs on average {units.difference(abs(measures.mean_rise))} {side} "
+                          f"the solvent inlet and {units.difference(measures.max_temperature_rise)} above it on stage "
+                          f"{measures.hottest_stage}, "
                           "the hottest)")
     elif measures.mean_rise * need > 0.0 and abs(measures.mean_rise) > NOTABLE_RISE:
-        causes.append(f"temperature (the liquid runs on average {measures.mean_rise:+.1f} K from the solvent inlet)")
+        causes.append(f"temperature (the liquid runs on average {units.difference(measures.mean_rise, '+')} from the "
+                      "solvent inlet)")
     condensed = measures.solvent_condensed
     if condensed > FLOW_CHANGE and need < 0.0:
         causes.append(f"solvent condensation ({condensed:.1%} of the gas feed condenses as {measures.solvent}, "

@@ -2,12 +2,15 @@
 summary and report.md: the target and what was reached, the input solved for, the minimum solvent
 flow with the pinch, and the trays by each efficiency route.
 
+A liquid outlet limit is shown on the basis it was written in (wt% or ppmw, mol% or ppm (mol)).
+
 ``design_json`` builds the "design" section of results.json (keys in ``results_keys.RESULTS_KEYS``);
 the text functions read that section, so that every output shows the same numbers.
 """
 
 from .results import DEFAULT_UNITS, plain
-from .tables import SECONDS_PER_HOUR, Display, concentration, kilowatt, kmol_per_hour, number, percent
+from .tables import (SECONDS_PER_HOUR, Display, concentration, kilowatt, kmol_per_hour, mass_concentration, number,
+                     percent)
 
 SOURCE_WORDS = {"given": "given", "O'Connell's absorber correlation": "O'Connell"}  # short labels for tables
 SOLVE_FOR_WORDS = {"solvent_flow": "solvent_flow", "n_stages": "stages", "cooler_duty": "cooler_duty"}  # design -> case
@@ -40,6 +43,13 @@ def design_json(outcome):
             "reached_K": outcome.limit.reached(solution),
             "held": outcome.limit_held,
             "solved_for": result.variable == "cooler_duty",
+        },
+        "liquid_out_limit": None if outcome.liquid_limit is None else {
+            "component": outcome.liquid_limit.component,
+            "basis": outcome.liquid_limit.basis,
+            "limit": outcome.liquid_limit.value,
+            "reached": outcome.liquid_limit.reached(solution),
+            "held": outcome.liquid_limit_held,
         },
         "solves": result.solves,
         "iterations": result.iterations,
@@ -100,6 +110,8 @@ def design_lines(results):
         lines.append(_target_line(design["target"]))
     if design["temperature_limit"] is not None:
         lines.append(_limit_line(design["temperature_limit"], units))
+    if design.get("liquid_out_limit") is not None:
+        lines.append(_liquid_limit_line(design["liquid_out_limit"]))
     if design["minimum_solvent"] is not None:
         lines.extend(_minimum_lines(design["minimum_solvent"], units))
     for route in design["trays"]:
@@ -150,6 +162,13 @@ def _limit_line(limit, units):
     where = "liquid outlet" if limit["place"] == "liquid_outlet" else "hottest stage"
     return (f"Temperature limit: {where} at most {units.temperature(limit['limit_K'])} {units.t_unit}; reached "
             f"{units.temperature(limit['reached_K'])} {units.t_unit} ({state}).")
+
+
+def _liquid_limit_line(limit):
+    shown = concentration if limit["basis"] == "mole_fraction" else mass_concentration
+    state = "held" if limit["held"] else "BROKEN"
+    return (f"Liquid outlet limit: {limit['component']} in the liquid leaving the bottom at most "
+            f"{shown(limit['limit'])}; reached {shown(limit['reached'])} ({state}).")
 
 
 def _minimum_lines(minimum, units):

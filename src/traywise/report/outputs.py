@@ -39,7 +39,8 @@ def write_outputs(target, run, *, plots=True):
         if plots:
             from .plots import write_plots
 
-            figures = write_plots(folder, solution, run.comparison, run.xy_design, run.speciation)
+            figures = write_plots(folder, solution, run.comparison, run.xy_design, run.speciation,
+                                  getattr(case, "display_units", None))
         figures += write_sizing_files(folder, run.sizing, plots=plots)
         record = results_record(run, [RESULTS_FILE, STAGES_FILE, REPORT_FILE, HTML_FILE, MARKER, *figures])
         (folder / REPORT_FILE).write_text(markdown_report(record), encoding="utf-8")

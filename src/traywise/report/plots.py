@@ -13,7 +13,7 @@ the Agg canvas (no pyplot, no global backend), so that runs without plots never 
 
 import numpy as np
 
-from ..properties.constants import ZERO_CELSIUS
+from .results import DEFAULT_UNITS
 
 DPI = 110
 FIGURE_SIZE = (6.4, 4.8)  # inches
@@ -23,7 +23,7 @@ MARGINS = {"left": 0.12, "right": 0.97, "bottom": 0.11, "top": 0.91, "wspace": 0
 LOG_PANEL_RATIO = 100.0  # Y_in / Y_out beyond which the x-y diagram gets a log-log panel
 
 
-def write_plots(folder, solution, comparison, design, speciation=None):
+def write_plots(folder, solution, comparison, design, speciation=None, units=None):
     """Draw every figure into ``folder``; return the file names.
 
     Parameters
@@ -35,19 +35,32 @@ def write_plots(folder, solution, comparison, design, speciation=None):
     design : InertBasisDesign or None   Drawn on the x-y diagram; without one (the classic
         method pinches) the diagram is not drawn and the report says so.
     speciation : Speciation or None   The electrolyte liquid's pH profile is drawn when given.
+    units : dict or None   The display units (``Case.display_units``); temperatures are drawn in
+        its temperature unit (degC when None).
     """
+    shown = Temperatures((units or DEFAULT_UNITS)["temperature"])
     drawings = [
-        ("temperature_profile.png", lambda figure: _temperature_profile(figure, solution, comparison)),
+        ("temperature_profile.png", lambda figure: _temperature_profile(figure, solution, comparison, shown)),
         ("composition_profiles.png", lambda figure: _composition_profiles(figure, solution)),
         ("heat_balance.png", lambda figure: _heat_balance(figure, solution)),
     ]
     if design is not None:
-        drawings.append(("xy_diagram.png", lambda figure: _xy_diagram(figure, solution, design)))
+        drawings.append(("xy_diagram.png", lambda figure: _xy_diagram(figure, solution, design, shown)))
     if speciation is not None:
         drawings.append(("ph_profile.png", lambda figure: _ph_profile(figure, solution, speciation)))
     for name, draw in drawings:
         _save(folder / name, draw)
     return [name for name, _ in drawings]
+
+
+class Temperatures:
+    """Temperatures [K] in a display unit: ``entry`` is {"unit", "scale", "offset"}, shown = K x scale + offset."""
+
+    def __init__(self, entry):
+        self.unit, self.scale, self.offset = entry["unit"], entry["scale"], entry["offset"]
+
+    def __call__(self, kelvin):
+        return np.asarray(kelvin, dtype=float) * self.scale + self.offset
 
 
 def _save(path, draw):
@@ -83,17 +96,17 @@ def _stage_axis(axes, n_stages, *, feeds=False):
     axes.grid(True, alpha=0.3)
 
 
-def _temperature_profile(figure, solution, comparison):
+def _temperature_profile(figure, solution, comparison, shown):
     axes = figure.add_subplot()
     stages = np.arange(1, solution.n_stages + 1)
-    axes.plot(solution.temperature - ZERO_CELSIUS, stages, "o-", label="stage temperature")
+    axes.plot(shown(solution.temperature), stages, "o-", label="stage temperature")
     column = solution.column
-    axes.plot([column.solvent.temperature - ZERO_CELSIUS], [0], "v", color="tab:blue", label="solvent in (above stage 1)")
-    axes.plot([column.gas.temperature - ZERO_CELSIUS], [solution.n_stages + 1], "^", color="tab:red", label="gas in (below stage N)")
+    axes.plot([shown(column.solvent.temperature)], [0], "v", color="tab:blue", label="solvent in (above stage 1)")
+    axes.plot([shown(column.gas.temperature)], [solution.n_stages + 1], "^", color="tab:red", label="gas in (below stage N)")
     if comparison is not None:
-        axes.axvline(comparison.temperature - ZERO_CELSIUS, color="grey", ls="--", label="isothermal design")
+        axes.axvline(shown(comparison.temperature), color="grey", ls="--", label="isothermal design")
     _stage_axis(axes, solution.n_stages, feeds=True)
-    axes.set_xlabel("temperature [degC]")
+    axes.set_xlabel(f"temperature [{shown.unit}]")
     axes.set_title("Temperature profile")
     axes.legend(loc="best", fontsize="small")
 
@@ -144,7 +157,7 @@ def _heat_balance(figure, solution):
     axes.grid(True, axis="y", alpha=0.3)
 
 
-def _xy_diagram(figure, solution, design):
+def _xy_diagram(figure, solution, design, shown):
     """Linear x-y diagram; when the gas is cleaned by more than two decades, a log-log panel
     beside it shows the stages near the lean end, which the linear one crowds into a corner."""
     stepping = design.stepping
@@ -175,7 +188,7 @@ def _xy_diagram(figure, solution, design):
         log_scale(panels[1], "y")
         panels[1].set_ylim(bottom=0.3 * design.gas_ratio_out, top=2.0 * design.gas_ratio_in)
         panels[1].set_title("log-log, lean end", fontsize="small")
-    figure.suptitle(f"x-y diagram of {design.key}, isothermal at {design.temperature - ZERO_CELSIUS:.1f} degC")
+    figure.suptitle(f"x-y diagram of {design.key}, isothermal at {shown(design.temperature):.1f} {shown.unit}")
 
 
 def _rigorous_passing_streams(solution, key):

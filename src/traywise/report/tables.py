@@ -104,6 +104,15 @@ def concentration(fraction):
     return f"{1e6 * fraction:.4g} ppm (mol)"
 
 
+def mass_concentration(fraction):
+    """A mass fraction [-] as text: wt% from 0.1 % up, ppmw below, "< 1e-12" below the trace floor."""
+    if fraction >= 1e-3:
+        return f"{100.0 * fraction:.4g} wt%"
+    if 0.0 < fraction < TRACE_FLOOR:
+        return f"{TRACE_TEXT} (mass fraction)"
+    return f"{1e6 * fraction:.4g} ppmw"
+
+
 def number(value, digits=4):
     """A float in ``digits`` significant figures; '-' where it is not defined (NaN, None), and
     "< 1e-12" for magnitudes below the trace floor (trace outlets, closures at round-off)."""
