@@ -6,13 +6,8 @@ import pytest
 
 from traywise.sizing.errors import SizingInputError
 from traywise.sizing.onda import hetp_from_transfer_units, onda_wetted_area
-from traywise.sizing.packed import (
-    PackedInternals,
-    design_diameter,
-    pressure_drop_per_height,
-    rate_packing,
-    stichlmair_flooding_velocity,
-)
+from traywise.sizing.packed import PackedInternals, design_diameter, rate_packing
+from traywise.sizing.packed_correlations import pressure_drop_per_height, stichlmair_flooding_velocity
 from traywise.sizing.packing_data import Packing, find_packing
 
 from support.sizing_cases import demo_stage_properties, given_loads
@@ -156,3 +151,16 @@ def test_warm_started_flooding_points_equal_fluids_stichlmair_flood(stages):
             expected = np.array([cold(internals.data, liquid[j], j) for j in range(liquid.size)])
             assert np.array_equal(np.isnan(flood), np.isnan(expected))
             assert flood[~np.isnan(flood)] == pytest.approx(expected[~np.isnan(expected)], rel=1e-9)
+
+
+def test_rating_a_flooded_bed_warns_instead_of_failing(stages):
+    # Far below the design diameter Stichlmair's irrigated-bed model has no solution on the flooded
+    # stages (fluids' secant meets a complex power): rating must still return, with no pressure drop
+    # there (NaN), the stages named, and a total over the stages that have one.
+    internals = PackedInternals("ceramic raschig rings 25 mm", hetp=0.5)
+    diameter, _ = design_diameter(stages, internals)
+    rating = rate_packing(stages, internals, 0.3 * diameter)
+    flooded = np.isnan(rating.pressure_drop_per_height)
+    assert flooded.any() and np.all(rating.fraction_of_flood[flooded] > 1.0)
+    assert any("no pressure drop: the bed floods" in w for w in rating.warnings)
+    assert np.all(np.isfinite(rating.pressure_drop_per_height[~flooded]))
