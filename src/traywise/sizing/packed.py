@@ -106,32 +106,38 @@ def _flooding_velocity(packing, liquid_velocity, properties, j, start=None):
 def flooding_fraction(properties, internals, diameter, start=None):
     """(fraction of flood, flooding gas velocity [m/s]) of every stage at ``diameter`` [m]; a stage
     whose flooding model has no solution (deep in flood) gets a fraction of ``FLOODED``. Each
-    stage's flooding point starts from its two neighbours' (extrapolated), the first from ``start``
-    (a flooding point of any stage, or None)."""
+    stage's flooding point starts from those of the stages above it (extrapolated), the first from
+    ``start`` (a flooding point of any stage, or None)."""
     packing, area = internals.data, np.pi * diameter ** 2 / 4.0
     liquid = properties.liquid_volume_flow / area
     flood = np.empty(liquid.size)
-    before = None
+    history = []  # the flooding points of the stages above, nearest last
     stages = zip(liquid.tolist(), properties.gas_density.tolist(), properties.liquid_density.tolist(),
                  properties.gas_viscosity.tolist())
     for j, (velocity, gas_density, liquid_density, gas_viscosity) in enumerate(stages):
         try:
             flood[j], point = flooding_point(packing, velocity, gas_density, liquid_density, gas_viscosity, start)
+            history = history[-2:] + [point] if point is not None else []
         except (ArithmeticError, ValueError, UnboundLocalError):
-            flood[j], point = np.nan, None
-        start = _extrapolated(before, point)
-        before = point
+            flood[j], history = np.nan, []
+        start = _extrapolated(history)
     fraction = properties.gas_volume_flow / area / flood
     return np.where(np.isfinite(fraction) & (flood > 0.0), fraction, FLOODED), flood
 
 
-def _extrapolated(before, point):
-    """The next stage's start: ``point`` continued along the line from ``before`` (both flooding
-    points or None), or ``point`` itself where the line would leave the positive quadrant."""
-    if before is None or point is None:
-        return point
-    guess = [2.0 * p - b for p, b in zip(point, before)]
-    return guess if guess[0] > 0.0 and guess[1] > 0.0 else point
+def _extrapolated(history):
+    """The next stage's start from the flooding points of up to three stages above it (nearest
+    last): the parabola, line or point through them continued one stage, or the nearest point
+    itself where that would leave the positive quadrant; None without any."""
+    if len(history) < 2:
+        return history[-1] if history else None
+    if len(history) == 2:
+        (a0, a1), (b0, b1) = history
+        guess = [2.0 * b0 - a0, 2.0 * b1 - a1]
+    else:
+        (a0, a1), (b0, b1), (c0, c1) = history
+        guess = [3.0 * (c0 - b0) + a0, 3.0 * (c1 - b1) + a1]
+    return guess if guess[0] > 0.0 and guess[1] > 0.0 else history[-1]
 
 
 def design_diameter(properties, internals):
