@@ -50,7 +50,7 @@ def flooding_point(packing, liquid_velocity, gas_density, liquid_density, gas_vi
     From ``start`` (a neighbouring solution): the full Newton steps fluids' ``newton_system`` takes,
     stopped once both relative steps fall below ``NEWTON_STEP_TOLERANCE`` (that last step taken
     without a further evaluation: convergence is quadratic, so the point then agrees with
-    ``Stichlmair_flood``'s to about 1e-13; tested to 1e-10). Without ``start``, or if the warm start
+    ``Stichlmair_flood``'s to about 1e-11; tested to 1e-9). Without ``start``, or if the warm start
     fails, ``newton_system`` from fluids' own guess with ``Stichlmair_flood``'s tolerance; without
     fluids' internals, ``Stichlmair_flood`` itself (and no pressure drop, None)."""
     solver = _fluids_flooding_solver()
