@@ -6,13 +6,8 @@ import pytest
 
 from traywise.sizing.errors import SizingInputError
 from traywise.sizing.onda import hetp_from_transfer_units, onda_wetted_area
-from traywise.sizing.packed import (
-    PackedInternals,
-    design_diameter,
-    pressure_drop_per_height,
-    rate_packing,
-    stichlmair_flooding_velocity,
-)
+from traywise.sizing.packed import PackedInternals, design_diameter, rate_packing
+from traywise.sizing.packed_correlations import pressure_drop_per_height, stichlmair_flooding_velocity
 from traywise.sizing.packing_data import Packing, find_packing
 
 from support.sizing_cases import demo_stage_properties, given_loads
@@ -156,3 +151,63 @@ def test_warm_started_flooding_points_equal_fluids_stichlmair_flood(stages):
             expected = np.array([cold(internals.data, liquid[j], j) for j in range(liquid.size)])
             assert np.array_equal(np.isnan(flood), np.isnan(expected))
             assert flood[~np.isnan(flood)] == pytest.approx(expected[~np.isnan(expected)], rel=1e-9)
+
+
+def test_rating_a_flooded_bed_warns_instead_of_failing(stages):
+    # Far below the design diameter Stichlmair's irrigated-bed model has no solution on the flooded
+    # stages (fluids' secant meets a complex power): rating must still return, with no pressure drop
+    # there (NaN), the stages named, and a total over the stages that have one.
+    internals = PackedInternals("ceramic raschig rings 25 mm", hetp=0.5)
+    diameter, _ = design_diameter(stages, internals)
+    rating = rate_packing(stages, internals, 0.3 * diameter)
+    flooded = np.isnan(rating.pressure_drop_per_height)
+    assert flooded.any() and np.all(rating.fraction_of_flood[flooded] > 1.0)
+    assert any("no pressure drop: the bed floods" in w for w in rating.warnings)
+    assert np.all(np.isfinite(rating.pressure_drop_per_height[~flooded]))
+
+
+def test_onda_constants_and_exponents_are_the_papers():
+    # Onda, Takeuchi & Okumoto, J. Chem. Eng. Jpn. 1 (1968) 56, eqs. for a_w, k_L, k_G: each
+    # exponent is recovered from the functions by doubling one input (the others fixed), and the
+    # gas constant switches from 5.23 to 2.00 below 15 mm.
+    from traywise.sizing.onda import onda_gas_coefficient, onda_liquid_coefficient
+
+    def slope(function, index, args):
+        doubled = list(args)
+        doubled[index] *= 2.0
+        return float(np.log2(function(*doubled) / function(*args)))
+
+    gas = (0.025, 190.0, 1.2, 1.18, 1.8e-5, 1.6e-5, 300.0)  # d_p, a, G, rho_G, mu_G, D_G, T
+    assert slope(onda_gas_coefficient, 2, gas) == pytest.approx(0.7, abs=1e-12)  # Re_G^0.7
+    assert slope(onda_gas_coefficient, 5, gas) == pytest.approx(2.0 / 3.0, abs=1e-12)  # D_G Sc_G^(1/3)
+    assert slope(onda_gas_coefficient, 3, gas) == pytest.approx(-1.0 / 3.0, abs=1e-12)  # Sc_G^(1/3)
+    assert slope(onda_gas_coefficient, 0, gas) == pytest.approx(-2.0, abs=1e-12)  # (a d_p)^-2
+    small = onda_gas_coefficient(0.0149, *gas[1:]) * (0.0149 / 0.025) ** 2
+    assert small / onda_gas_coefficient(*gas) == pytest.approx(2.00 / 5.23, rel=1e-12)
+
+    liquid = (60.0, 0.025, 190.0, 5.0, 998.0, 1e-3, 1.6e-9)  # a_w, d_p, a, L, rho_L, mu_L, D_L
+    assert slope(onda_liquid_coefficient, 3, liquid) == pytest.approx(2.0 / 3.0, abs=1e-12)  # (L/(a_w mu_L))^(2/3)
+    assert slope(onda_liquid_coefficient, 0, liquid) == pytest.approx(-2.0 / 3.0, abs=1e-12)
+    assert slope(onda_liquid_coefficient, 6, liquid) == pytest.approx(0.5, abs=1e-12)  # Sc_L^(-1/2)
+    assert slope(onda_liquid_coefficient, 1, liquid) == pytest.approx(0.4, abs=1e-12)  # (a d_p)^0.4
+    # mu_L: -2/3 (Re_L) - 1/2 (Sc_L) + 1/3 ((mu_L g/rho_L)^(1/3)) = -5/6; rho_L: +1/2 - 1/3 = 1/6
+    assert slope(onda_liquid_coefficient, 5, liquid) == pytest.approx(-5.0 / 6.0, abs=1e-12)
+    assert slope(onda_liquid_coefficient, 4, liquid) == pytest.approx(1.0 / 6.0, abs=1e-12)
+    # 0.0051 itself: k_L (rho_L/(mu_L g))^(1/3) / [(L/(a_w mu_L))^(2/3) Sc^-1/2 (a d_p)^0.4]
+    a_w, d_p, a, flux, rho, mu, diffusivity = liquid
+    group = (flux / (a_w * mu)) ** (2.0 / 3.0) * (mu / (rho * diffusivity)) ** -0.5 * (a * d_p) ** 0.4
+    assert onda_liquid_coefficient(*liquid) * (rho / (mu * 9.80665)) ** (1.0 / 3.0) / group == pytest.approx(0.0051)
+
+    # a_w: ln(1 - a_w/a) = -1.45 (sigma_c/sigma)^0.75 Re^0.1 Fr^-0.05 We^0.2
+    def exponent(*args):
+        return float(np.log(1.0 - onda_wetted_area(*args) / args[0]))
+
+    wet = (190.0, 0.061, 5.0, 998.0, 1e-3, 0.072)  # a, sigma_c, L, rho_L, mu_L, sigma
+    assert np.log2(exponent(190.0, 0.122, *wet[2:]) / exponent(*wet)) == pytest.approx(0.75, abs=1e-12)
+    assert np.log2(exponent(*wet[:4], 2e-3, 0.072) / exponent(*wet)) == pytest.approx(-0.1, abs=1e-12)
+    # L enters as Re^0.1 Fr^-0.05 We^0.2: 0.1 - 0.1 + 0.4 = 0.4
+    assert np.log2(exponent(190.0, 0.061, 10.0, 998.0, 1e-3, 0.072) / exponent(*wet)) == pytest.approx(0.4, abs=1e-12)
+    a, sigma_c, flux, rho, mu, sigma = wet
+    groups = ((sigma_c / sigma) ** 0.75 * (flux / (a * mu)) ** 0.1 * (flux ** 2 * a / (rho ** 2 * 9.80665)) ** -0.05
+              * (flux ** 2 / (rho * sigma * a)) ** 0.2)
+    assert -exponent(*wet) / groups == pytest.approx(1.45)

@@ -93,7 +93,7 @@ def size_column(solution, components, internals, *, key_component, diameter=None
             hydraulics = rate_packing(properties, internals, diameter)
         trays, bed = None, hydraulics.bed_height
         height, beds = packed_column_height(bed, internals)
-        pressure_drop, kind = float(hydraulics.stage_pressure_drop.sum()), "packing"
+        pressure_drop, kind = float(np.nansum(hydraulics.stage_pressure_drop)), "packing"  # flooded stages: warned
     else:
         raise SizingInputError("internals", f"must be TrayInternals or PackedInternals, found {type(internals).__name__}")
     warnings = properties.warnings + hydraulics.warnings

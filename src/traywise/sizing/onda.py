@@ -1,6 +1,13 @@
 """Mass-transfer coefficients in random packings (Onda, Takeuchi & Okumoto) and the HETP they imply.
 
-All arrays broadcast; SI. Mass fluxes are superficial [kg/(m2 s)].
+All arrays broadcast; SI. Mass fluxes L, G are superficial [kg/(m2 s)]; a is the packing's dry
+specific area [m2/m3], d_p its nominal size [m], sigma_c the critical surface tension of its
+material [N/m]. The three correlations are the paper's equations as published (constants 1.45,
+0.0051, 5.23 / 2.00; exponents 0.75, 0.1, -0.05, 0.2; 2/3, -1/2, 0.4, 1/3; 0.7, 1/3, -2.0), with
+k_G made dimensional by R T (so k_G is per unit partial-pressure difference). The paper states
+about +-20 % for k_L and k_G (recalled from memory). No published worked example with all its
+inputs was at hand to check against; tests/test_sizing_packing.py checks each constant and
+exponent above through these functions.
 
 References
 ----------
@@ -38,7 +45,8 @@ def onda_liquid_coefficient(wetted_area, nominal_size, specific_area, liquid_mas
 def onda_gas_coefficient(nominal_size, specific_area, gas_mass_flux, gas_density, gas_viscosity, gas_diffusivity,
                          temperature):
     """k_G [mol/(m2 s Pa)]: k_G R T/(a D_G) = C (G/(a mu_G))^0.7 Sc_G^(1/3) (a d_p)^-2, with
-    C = 5.23 for packings of 15 mm and larger, 2.00 below."""
+    C = 5.23 for packings of 15 mm and larger, 2.00 below (the paper's split for small rings and
+    spheres); T [K], D_G [m2/s]."""
     constant = np.where(nominal_size >= 0.015, 5.23, 2.00)
     schmidt = gas_viscosity / (gas_density * gas_diffusivity)
     group = constant * (gas_mass_flux / (specific_area * gas_viscosity)) ** 0.7 * schmidt ** (1.0 / 3.0)

@@ -1,16 +1,14 @@
 """Packed columns (random and structured): diameter for a fraction of flood, bed height from the
 stages by HETP, and per-stage hydraulics (rating at a diameter).
 
-Flooding: Stichlmair, Bravo & Fair, through fluids (``Stichlmair_flood``'s equations and solver,
-warm-started from a neighbouring flooding point: ``flooding_point``; the gas velocity at flood at
-each stage's liquid rate). The fraction of flood is the gas velocity over
+Flooding: Stichlmair, Bravo & Fair, through fluids (``Stichlmair_flood``'s equations, each
+stage's flooding point started from its neighbours': ``packed_correlations.flooding_point``; the
+gas velocity at flood at each stage's liquid rate). The fraction of flood is the gas velocity over
 that flooding velocity at the same liquid velocity. Pressure drop: Stichlmair's irrigated bed
 (``Stichlmair_wet``) or Robbins (``fluids.packed_tower.Robbins``). Each theoretical stage gets
 a bed section of its own HETP (given, or from Onda's coefficients, ``onda.py``).
 """
 
-import functools
-import math
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -18,6 +16,7 @@ import numpy as np
 from ..numerics import brent_root
 from .errors import SizingInputError
 from .onda import hetp_from_transfer_units, onda_gas_coefficient, onda_liquid_coefficient, onda_wetted_area
+from .packed_correlations import flooding_point, pressure_drop_per_height
 from .packing_data import find_packing
 
 PRESSURE_DROP_METHODS = ("stichlmair", "robbins")
@@ -99,99 +98,46 @@ class PackedHydraulics:
         return np.pi * self.diameter ** 2 / 4.0
 
 
-def stichlmair_flooding_velocity(packing, liquid_velocity, gas_density, liquid_density, gas_viscosity):
-    """Superficial gas velocity at flood [m/s] at a superficial liquid velocity [m/s], by
-    Stichlmair, Bravo & Fair through fluids.packed_tower.Stichlmair_flood."""
-    from fluids.packed_tower import Stichlmair_flood
-
-    c1, c2, c3 = packing.stichlmair
-    return Stichlmair_flood(Vl=float(liquid_velocity), rhog=float(gas_density), rhol=float(liquid_density),
-                            mug=float(gas_viscosity), voidage=packing.voidage, specific_area=packing.specific_area,
-                            C1=c1, C2=c2, C3=c3)
-
-
-def pressure_drop_per_height(packing, method, *, gas_velocity, liquid_velocity, gas_density, liquid_density,
-                             gas_viscosity, liquid_viscosity):
-    """Irrigated-bed pressure drop [Pa/m]: 'stichlmair' (fluids.packed_tower.Stichlmair_wet) or
-    'robbins' (fluids.packed_tower.Robbins, from mass fluxes)."""
-    Robbins, Stichlmair_wet = _fluids_pressure_drop()
-    if method == "stichlmair":
-        c1, c2, c3 = packing.stichlmair
-        return Stichlmair_wet(Vg=float(gas_velocity), Vl=float(liquid_velocity), rhog=float(gas_density),
-                              rhol=float(liquid_density), mug=float(gas_viscosity), voidage=packing.voidage,
-                              specific_area=packing.specific_area, C1=c1, C2=c2, C3=c3)
-    return Robbins(L=float(liquid_velocity * liquid_density), G=float(gas_velocity * gas_density),
-                   rhol=float(liquid_density), rhog=float(gas_density), mul=float(liquid_viscosity), H=1.0,
-                   Fpd=packing.robbins_fpd)
-
-
-def flooding_point(packing, liquid_velocity, gas_density, liquid_density, gas_viscosity, start=None):
-    """(gas velocity at flood [m/s], irrigated pressure drop there [Pa/m]) by Stichlmair, Bravo &
-    Fair: fluids' own flooding equations (``fluids.packed_tower._Stichlmair_flood_f_and_jac``)
-    solved by fluids' ``newton_system`` exactly as ``Stichlmair_flood`` solves them (same
-    tolerance, same 2x2 solver), but started from ``start`` (a neighbouring solution) instead of
-    fluids' fixed guess, which saves about half the Newton steps. Without ``start``, or if the
-    warm start fails, fluids' own guess; without fluids' internals, ``Stichlmair_flood`` itself
-    (and no pressure drop, None)."""
-    solver = _fluids_flooding_solver()
-    if solver is None:
-        return stichlmair_flooding_velocity(packing, liquid_velocity, gas_density, liquid_density, gas_viscosity), None
-    newton_system, solve_2_direct, _Stichlmair_flood_f_and_jac = solver
-    c1, c2, c3 = packing.stichlmair
-    args = (float(liquid_velocity), float(gas_density), float(liquid_density), float(gas_viscosity), packing.voidage,
-            packing.specific_area, c1, c2, c3, 1.0)
-    guesses = ([start] if start is not None else []) + [[float(liquid_velocity) * 100.0, 1000.0]]  # fluids' guess last
-    for guess in guesses:
-        try:
-            point = newton_system(_Stichlmair_flood_f_and_jac, x0=list(guess), jac=True, args=args, ytol=1e-11,
-                                  solve_func=solve_2_direct)[0]
-        except (ArithmeticError, ValueError, UnboundLocalError):
-            continue
-        if math.isfinite(point[0]) and point[0] > 0.0 and math.isfinite(point[1]) and point[1] > 0.0:
-            return float(point[0]), [float(point[0]), float(point[1])]
-    raise ArithmeticError("no Stichlmair flooding point")
-
-
-@functools.cache
-def _fluids_pressure_drop():
-    """(Robbins, Stichlmair_wet) of fluids.packed_tower, imported on first use."""
-    from fluids.packed_tower import Robbins, Stichlmair_wet
-
-    return Robbins, Stichlmair_wet
-
-
-@functools.cache
-def _fluids_flooding_solver():
-    """fluids' Newton solver, its 2x2 linear solve and the Stichlmair flooding equations, or None
-    when this fluids has no such internals (imported on first use: fluids is a heavy import)."""
-    try:
-        from fluids.numerics import newton_system, solve_2_direct
-        from fluids.packed_tower import _Stichlmair_flood_f_and_jac
-    except ImportError:
-        return None
-    return newton_system, solve_2_direct, _Stichlmair_flood_f_and_jac
-
-
 def _flooding_velocity(packing, liquid_velocity, properties, j, start=None):
     return flooding_point(packing, liquid_velocity, properties.gas_density[j], properties.liquid_density[j],
                           properties.gas_viscosity[j], start)
 
 
-def flooding_fraction(properties, internals, diameter):
+def flooding_fraction(properties, internals, diameter, start=None):
     """(fraction of flood, flooding gas velocity [m/s]) of every stage at ``diameter`` [m]; a stage
     whose flooding model has no solution (deep in flood) gets a fraction of ``FLOODED``. Each
-    stage's flooding point starts from its neighbour's."""
+    stage's flooding point starts from those of the stages above it (extrapolated), the first from
+    ``start`` (a flooding point of any stage, or None)."""
     packing, area = internals.data, np.pi * diameter ** 2 / 4.0
     liquid = properties.liquid_volume_flow / area
     flood = np.empty(liquid.size)
-    start = None
-    for j in range(liquid.size):
+    history = []  # the flooding points of the stages above, nearest last
+    stages = zip(liquid.tolist(), properties.gas_density.tolist(), properties.liquid_density.tolist(),
+                 properties.gas_viscosity.tolist())
+    for j, (velocity, gas_density, liquid_density, gas_viscosity) in enumerate(stages):
         try:
-            flood[j], start = _flooding_velocity(packing, liquid[j], properties, j, start)
+            flood[j], point = flooding_point(packing, velocity, gas_density, liquid_density, gas_viscosity, start)
+            history = history[-2:] + [point] if point is not None else []
         except (ArithmeticError, ValueError, UnboundLocalError):
-            flood[j], start = np.nan, None
+            flood[j], history = np.nan, []
+        start = _extrapolated(history)
     fraction = properties.gas_volume_flow / area / flood
     return np.where(np.isfinite(fraction) & (flood > 0.0), fraction, FLOODED), flood
+
+
+def _extrapolated(history):
+    """The next stage's start from the flooding points of up to three stages above it (nearest
+    last): the parabola, line or point through them continued one stage, or the nearest point
+    itself where that would leave the positive quadrant; None without any."""
+    if len(history) < 2:
+        return history[-1] if history else None
+    if len(history) == 2:
+        (a0, a1), (b0, b1) = history
+        guess = [2.0 * b0 - a0, 2.0 * b1 - a1]
+    else:
+        (a0, a1), (b0, b1), (c0, c1) = history
+        guess = [3.0 * (c0 - b0) + a0, 3.0 * (c1 - b1) + a1]
+    return guess if guess[0] > 0.0 and guess[1] > 0.0 else history[-1]
 
 
 def design_diameter(properties, internals):
@@ -208,13 +154,13 @@ def _design(properties, internals):
     """(diameter, 1-based stage, (fraction of flood, flooding velocity) of every stage there)."""
     target = internals.fraction_of_flood
     stage = int(np.argmax(properties.gas_volume_flow * np.sqrt(properties.gas_density / properties.liquid_density)))
-    diameter = _stage_root(properties, internals, stage, _first_diameter(properties, internals, stage))
+    diameter, point = _root_and_point(properties, internals, stage, _first_diameter(properties, internals, stage))
     for _ in range(properties.temperature.size):
-        flooding = flooding_fraction(properties, internals, diameter)
+        flooding = flooding_fraction(properties, internals, diameter, point)
         stage = int(np.argmax(flooding[0]))
         if flooding[0][stage] <= target * (1.0 + 1e-9):
             return diameter, stage + 1, flooding
-        diameter = _stage_root(properties, internals, stage, diameter)
+        diameter, point = _root_and_point(properties, internals, stage, diameter, point)
     raise SizingInputError("diameter", "the packed diameter did not settle on one stage")
 
 
@@ -227,8 +173,8 @@ def design_and_rate(properties, internals):
 
 def _first_diameter(properties, internals, j):
     """A trial diameter for stage ``j``: its gas at the target fraction of the flooding velocity
-    found at a small liquid load."""
-    flood = _flooding_velocity(internals.data, 1e-4, properties, j)[0]
+    found at a small liquid load (Newton from fluids' own guess)."""
+    flood = _flooding_velocity(internals.data, 1e-4, properties, j, [1e-4 * 100.0, 1000.0])[0]
     return float(np.sqrt(4.0 * properties.gas_volume_flow[j] / (np.pi * internals.fraction_of_flood * flood)))
 
 
@@ -236,11 +182,18 @@ def _stage_root(properties, internals, j, start):
     """Diameter [m] at which stage ``j`` runs at ``fraction_of_flood``, from ``start``.
 
     Secant steps on ln(fraction / target) against ln D (nearly straight: the gas velocity goes as
-    1/D^2), each one call to fluids; a step into the region where the flooding model has no
-    solution is halved back. Falls back to Brent's method on a bracket if the steps stall."""
+    1/D^2), each one flooding point, started from the previous one; a step into the region where
+    the flooding model has no solution is halved back. Falls back to Brent's method on a bracket
+    if the steps stall."""
+    return _root_and_point(properties, internals, j, start)[0]
+
+
+def _root_and_point(properties, internals, j, start, point=None):
+    """(``_stage_root``, the last flooding point it found, or None); the first flooding point
+    starts from ``point`` (of a nearby diameter or stage) if given."""
     packing, target = internals.data, internals.fraction_of_flood
 
-    last = [None]  # the previous flooding point: the next one starts there
+    last = [point]  # the previous flooding point: the next one starts there
 
     def log_excess(x):
         area = np.pi * np.exp(2.0 * x) / 4.0
@@ -265,11 +218,11 @@ def _stage_root(properties, internals, j, start):
             x1 = 0.5 * (x0 + x1)
             h1 = log_excess(x1)
         if abs(h1) < 1e-12 or h1 == h0:
-            return float(np.exp(x1))
+            return float(np.exp(x1)), last[0]
         x0, h0, x1 = x1, h1, x1 - h1 * (x1 - x0) / (h1 - h0)
         if abs(x1 - x0) < 1e-13:
-            return float(np.exp(x1))
-    return _bracketed_root(properties, internals, j, float(np.exp(x1)))
+            return float(np.exp(x1)), last[0]
+    return _bracketed_root(properties, internals, j, float(np.exp(x1))), None
 
 
 def _bracketed_root(properties, internals, j, start):
@@ -321,10 +274,11 @@ def rate_packing(properties, internals, diameter, *, flooding=None):
     gas, liquid = properties.gas_volume_flow / area, properties.liquid_volume_flow / area
     gas_flux, liquid_flux = properties.gas_mass_flow / area, properties.liquid_mass_flow / area
     per_height = np.array([pressure_drop_per_height(
-        packing, internals.pressure_drop_method, gas_velocity=gas[j], liquid_velocity=liquid[j],
-        gas_density=properties.gas_density[j], liquid_density=properties.liquid_density[j],
-        gas_viscosity=properties.gas_viscosity[j], liquid_viscosity=properties.liquid_viscosity[j])
-        for j in range(gas.size)])
+        packing, internals.pressure_drop_method, gas_velocity=g, liquid_velocity=l, gas_density=rho_g,
+        liquid_density=rho_l, gas_viscosity=mu_g, liquid_viscosity=mu_l)
+        for g, l, rho_g, rho_l, mu_g, mu_l in zip(gas.tolist(), liquid.tolist(), properties.gas_density.tolist(),
+                                                  properties.liquid_density.tolist(), properties.gas_viscosity.tolist(),
+                                                  properties.liquid_viscosity.tolist())])
     wetted = k_l = k_g = None
     if internals.hetp is None:
         hetp, wetted, k_l, k_g = _hetp(properties, packing, liquid_flux, gas_flux, area)
@@ -346,6 +300,8 @@ def _with_warnings(h):
         (h.fraction_of_flood > 1.0, "above 100 % of flood: the packing floods"),
         (h.wetting_rate < MINIMUM_WETTING_RATE, "liquid below the minimum wetting rate 0.08 m3/(m h): part of the packing stays dry"),
         (h.pressure_drop_per_height > PRESSURE_DROP_HIGH, "pressure drop above 1.2 kPa/m: near flood"),
+        (np.isnan(h.pressure_drop_per_height), "no pressure drop: the bed floods (Stichlmair's model has no solution "
+                                               "there); the total pressure drop leaves these stages out"),
     )
     for mask, message in checks:
         stages = np.flatnonzero(mask) + 1
