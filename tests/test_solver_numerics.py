@@ -112,6 +112,21 @@ def test_band_widths_hold_every_jacobian_entry(murphree):
     assert np.max(rows - cols) <= below and np.max(cols - rows) <= above
 
 
+@pytest.mark.parametrize("murphree", [1.0, 0.7])
+def test_jacobian_pattern_holds_every_entry(murphree):
+    """The banded solve gathers only the entries of ``jacobian_pattern``: check that no other is
+    non-zero (and that the pattern leaves out a good part of the blocks, the point of it)."""
+    model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
+    column = water_column(model, 5, gas=np.array([0.02, 0.15, 0.03, 0.80]), solvent_flow=2.0, murphree=murphree)
+    equations = StageEquations(column, model)
+    x = initial_estimate(equations, "hot")
+    blocks = equations.jacobian(x, equations.residual(x)[1])
+    outside = ~equations.jacobian_pattern()
+    for block, zero in zip(blocks, outside):
+        assert not np.any(block[:, zero])
+    assert equations.jacobian_pattern().sum() < 0.7 * 3 * equations.n**2
+
+
 def test_insoluble_carrier_with_murphree_efficiency_is_accepted():
     """sum y* = 1 on every stage also when a carrier is insoluble and trays are not ideal."""
     model = ideal_dilute_model()

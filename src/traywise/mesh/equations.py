@@ -139,18 +139,38 @@ class StageEquations:
         return np.array(self.column.heat_removed)
 
     def empty_jacobian(self):
-        """Zeroed blocks (lower, diagonal, upper), each (N, n, n), to pass to ``jacobian``."""
-        return tuple(np.zeros((self.n_stages, self.n, self.n)) for _ in range(3))
+        """Zeroed blocks (lower, diagonal, upper) stacked (3, N, n, n), to pass to ``jacobian``."""
+        return np.zeros((3, self.n_stages, self.n, self.n))
+
+    def jacobian_pattern(self):
+        """(3, n, n) bool: the entries of the lower, diagonal and upper blocks that ``jacobian``
+        can make non-zero (rows E, M, H against unknowns v, l, T)."""
+        c = self.c
+        vs, ls, ts = slice(0, c), slice(c, 2 * c), 2 * c
+        es, ms, hs = slice(0, c), slice(c, 2 * c), 2 * c
+        eye = np.eye(c, dtype=bool)
+        pattern = np.zeros((3, self.n, self.n), dtype=bool)
+        lower, diagonal, upper = pattern
+        diagonal[es] = True
+        diagonal[ms, vs] = diagonal[ms, ls] = eye
+        diagonal[hs] = True
+        lower[ms, ls] = eye
+        lower[hs, ls] = lower[hs, ts] = True
+        upper[es, vs] = np.any(self.murphree < 1.0)  # (1 - eta) y_in: none on ideal trays
+        upper[ms, vs] = eye
+        upper[hs, vs] = upper[hs, ts] = True
+        return pattern
 
     def jacobian(self, x, props, out=None):
-        """Blocks (lower, diagonal, upper), each (N, n, n): d(rows of stage j)/d(unknowns of
-        stage j-1, j, j+1). lower[0] and upper[N-1] are unused (zero). ``out``: blocks from
+        """Blocks (lower, diagonal, upper) stacked (3, N, n, n): d(rows of stage j)/d(unknowns
+        of stage j-1, j, j+1). lower[0] and upper[N-1] are unused (zero). ``out``: blocks from
         ``empty_jacobian`` or an earlier call of this column, filled in place (every entry
-        that can be non-zero is written on every call)."""
+        that can be non-zero, ``jacobian_pattern``, is written on every call)."""
         c = self.c
         v, l, t = self.split(x)
         big_v, big_l = v.sum(axis=1), l.sum(axis=1)
-        lower, diagonal, upper = self.empty_jacobian() if out is None else out
+        blocks = self.empty_jacobian() if out is None else out
+        lower, diagonal, upper = blocks
         eye = np.eye(c)
         vs, ls, ts = slice(0, c), slice(c, 2 * c), 2 * c
         es, ms, hs = slice(0, c), slice(c, 2 * c), 2 * c
@@ -201,4 +221,4 @@ class StageEquations:
             lower[1:, hs, ts] = -pl[:, 0] * np.sum(l[:-1] * props.dh_liquid_dt[:-1], axis=1)
             upper[:-1, hs, vs] = -pv * props.h_vapour[1:]
             upper[:-1, hs, ts] = -pv[:, 0] * np.sum(v[1:] * props.dh_vapour_dt[1:], axis=1)
-        return lower, diagonal, upper
+        return blocks

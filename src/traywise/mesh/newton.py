@@ -70,7 +70,8 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
     """
     equations = StageEquations(column, model)
     linear = BandedSystem(
-        column.n_stages, equations.n, equations.band, equations.band_order, equations.row_scale, equations.unknown_scale
+        column.n_stages, equations.n, equations.band, equations.band_order, equations.row_scale, equations.unknown_scale,
+        equations.jacobian_pattern(),
     )
     starts = [lambda profile=profile: initial_estimate(equations, profile) for profile in START_ORDER]
     if start is not None and start.n_stages == column.n_stages:
@@ -120,7 +121,7 @@ def _iterations(equations, linear, x, settings):
         if converged:  # quadratic finish: Newton steps while they still gain a decade
             polish, polished_from, dt = polish - 1, norm, np.inf
         shift = 0.0 if dt >= settings.newton_time_step else 1.0 / dt
-        step = linear.solve(*equations.jacobian(x, props, out=blocks), -f, shift)
+        step = linear.solve(equations.jacobian(x, props, out=blocks), -f, shift)
         x_new = _limited(x, step, equations.n, settings)
         f_new, props_new = _residual(equations, x_new)
         norm_new, size_new = _norms(f_new, rows)
