@@ -1,5 +1,7 @@
 """Rigorous solver numerics: analytic Jacobian, Kremser agreement, the spurious root, cost."""
 
+import dataclasses
+
 import numpy as np
 import pytest
 
@@ -14,11 +16,13 @@ from traywise.properties.inline import inline_component
 from traywise.properties.model import PropertyModel
 
 
-@pytest.mark.parametrize("murphree", [1.0, 0.6])
-def test_analytic_jacobian_matches_central_differences(murphree):
+@pytest.mark.parametrize("murphree, mode", [(1.0, "adiabatic"), (0.6, "adiabatic"), (0.6, "isothermal")])
+def test_analytic_jacobian_matches_central_differences(murphree, mode):
     model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
     gas = np.array([0.02, 0.15, 0.03, 0.80])
     column = water_column(model, 4, gas=gas, solvent_flow=2.0, murphree=murphree)
+    if mode == "isothermal":
+        column = dataclasses.replace(column, mode="isothermal", temperature=np.full(4, 300.0))
     equations = StageEquations(column, model)
     x = initial_estimate(equations, "hot")
     x[equations.n - 1 :: equations.n] += np.linspace(0.0, 7.0, column.n_stages)  # off the start profile
