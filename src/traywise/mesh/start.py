@@ -16,8 +16,9 @@ at up to 62 kJ/mol: 543 K estimated, no convergence; from the cap, 416 K (water 
 bottom's 3.9 bar), converged in 15). The 'linear' estimate (solvent temperature at
 the top to gas temperature at the bottom) is the fallback.
 
-Each estimate costs one property evaluation ('linear') or three ('hot': the hot-zone balance
-is read off one evaluation on a temperature grid). An estimate whose properties are not finite
+Each estimate costs one property evaluation ('linear') or two ('hot': the first takes the
+stages at the solvent temperature and a temperature grid, off which the hot-zone balance and the
+solvent's bubble point are read). An estimate whose properties are not finite
 (feeds far outside any correlation's range) is refused with ``ConvergenceError``.
 """
 
@@ -37,15 +38,21 @@ def initial_estimate(equations, profile="hot"):
         return _flows_at(equations, np.array(column.temperature, dtype=float))
     if profile == "linear":
         return _flows_at(equations, np.linspace(column.solvent.temperature, column.gas.temperature, column.n_stages))
+    # one evaluation for the stages at the solvent temperature and for the grid at the bottom pressure
     t = np.full(column.n_stages, column.solvent.temperature)
-    t[1:] = _hot_zone_temperature(equations, equations.split(_flows_at(equations, t)))
+    with np.errstate(all="ignore"):  # the grid reaches far outside the correlations' ranges
+        props = equations.model.evaluate(np.r_[t, T_GRID], np.r_[equations.pressure, np.full(T_GRID.size, equations.pressure[-1])])
+    flows = equations.split(_flows_at(equations, t, props.k[: t.size]))
+    t[1:] = _hot_zone_temperature(equations, flows, props.h_vapour[0], props.h_liquid[t.size :], props.k[t.size :])
     return _flows_at(equations, t)
 
 
-def _flows_at(equations, t):
-    """Join the tridiagonal-method flows at temperatures t with t itself."""
-    props = equations.model.evaluate(t, equations.pressure)
-    k = np.where(equations.insoluble, INSOLUBLE_K, props.k) * equations.column.murphree[:, None]
+def _flows_at(equations, t, k=None):
+    """Join the tridiagonal-method flows at temperatures t (K-values k (N, c) there, evaluated
+    when not given) with t itself."""
+    if k is None:
+        k = equations.model.evaluate(t, equations.pressure).k
+    k = np.where(equations.insoluble, INSOLUBLE_K, k) * equations.column.murphree[:, None]
     if not np.all(np.isfinite(k)):
         raise ConvergenceError(
             f"no starting estimate: the K-values are not finite between {t.min():.1f} K and {t.max():.1f} K",
@@ -62,22 +69,21 @@ def _flows_at(equations, t):
     return equations.join(v, l, t)
 
 
-def _hot_zone_temperature(equations, flows):
+def _hot_zone_temperature(equations, flows, h_vapour_top, h_liquid, k):
     """Liquid outlet temperature closing the overall enthalpy balance with the outlets of
     ``flows`` and the gas leaving at the solvent temperature [K] (the solvent temperature when
     ``T_GRID`` holds none), but no hotter than the solvent's bubble point at the bottom pressure
     (sum of K x over the solvent feed = 1; none for a non-volatile solvent): a liquid cannot
-    be hotter than it boils, and a hot zone above it would evaporate the whole liquid."""
-    column, model = equations.column, equations.model
+    be hotter than it boils, and a hot zone above it would evaporate the whole liquid.
+    h_vapour_top (c,): vapour enthalpies at the solvent temperature and top pressure; h_liquid,
+    k (T_GRID.size, c): liquid enthalpies and K-values on the grid at the bottom pressure."""
+    column = equations.column
     v, l, _ = flows
-    temperatures = np.r_[column.solvent.temperature, T_GRID]
-    pressures = np.r_[equations.pressure[0], np.full(T_GRID.size, equations.pressure[-1])]
     with np.errstate(all="ignore"):
-        props = model.evaluate(temperatures, pressures)
-        h_available = equations.feed_enthalpy.sum() - column.heat_removed.sum() - props.h_vapour[0] @ v[0]
-        imbalance = props.h_liquid[1:] @ l[-1] - h_available
+        h_available = equations.feed_enthalpy.sum() - column.heat_removed.sum() - h_vapour_top @ v[0]
+        imbalance = h_liquid @ l[-1] - h_available
         x_solvent = column.solvent.component_flows / column.solvent.flow
-        boiling = np.sum(np.where(x_solvent > 0.0, props.k[1:], 0.0) * x_solvent, axis=1) - 1.0
+        boiling = np.sum(np.where(x_solvent > 0.0, k, 0.0) * x_solvent, axis=1) - 1.0
     hot = _first_crossing(imbalance, column.solvent.temperature)
     return min(hot, _first_crossing(boiling, hot))
 

@@ -322,11 +322,15 @@ def iapws_henry(temperature, a, b, c, offset=0.0):
     tau_c = tau_b / tau
     g = tr**-0.41 * np.exp(tau)  # and tr**-1.41, tr**-2.41 times exp(tau)
     g1, g2 = g * inverse, g * inverse * inverse
-    f = a * inverse + b * tau_a * inverse + c * g
-    df = -a * inverse**2 + b * (-0.355 * tau_b * inverse - tau_a * inverse**2) + c * (-0.41 * g1 - g)
-    d2f = (2.0 * a * inverse**3
-           + b * (-0.355 * 0.645 * tau_c * inverse + 0.71 * tau_b * inverse**2 + 2.0 * tau_a * inverse**3)
-           + c * (0.41 * 1.41 * g2 + 0.82 * g1 + g))
+    inverse2 = inverse * inverse
+    # the terms multiplying A, B and C and their derivatives in Tr, on the temperatures' shape
+    # (the coefficients broadcast against it only in the three sums)
+    b0 = tau_a * inverse
+    b1 = -0.355 * tau_b * inverse - tau_a * inverse2
+    b2 = -0.355 * 0.645 * tau_c * inverse + 0.71 * tau_b * inverse2 + 2.0 * tau_a * inverse2 * inverse
+    f = a * inverse + b * b0 + c * g
+    df = a * -inverse2 + b * b1 + c * (-0.41 * g1 - g)
+    d2f = a * (2.0 * inverse2 * inverse) + b * b2 + c * (0.41 * 1.41 * g2 + 0.82 * g1 + g)
     ln_p, dln_p, d2ln_p = wagner_pruss_saturation_pressure(t)
     ln_h = ln_p + f + offset
     dln_h = dln_p + df / tc
