@@ -11,7 +11,6 @@ from traywise.properties.component import HenryConstant
 from traywise.properties.constants import P_STANDARD, T_REFERENCE
 from traywise.properties.library import library
 from traywise.properties.model import PropertyModel
-from traywise.properties.unifac_parameters import unifac
 
 COMPONENTS = list(library().values())
 TEMPERATURES = np.linspace(270.0, 380.0, 12)
@@ -55,21 +54,3 @@ def test_heat_capacities_and_enthalpies_match_their_polynomials(component):
         assert h == pytest.approx(quad(gas.heat_capacity, T_REFERENCE, t)[0], rel=1e-9, abs=1e-8)
     if component.liquid_cp is not None:
         assert stages.dh_liquid_dt[:, 0] == pytest.approx(component.liquid_cp.heat_capacity(TEMPERATURES), rel=1e-12)
-
-
-def test_same_states_again_reuse_the_evaluation_only_where_composition_cannot_matter():
-    """An ideal model asked again at the same temperatures and pressures returns its last
-    properties (read-only, so no caller can change them for the next); other states, and any
-    model with a composition-dependent liquid, are evaluated afresh."""
-    by_name = library()
-    ideal = PropertyModel([by_name["water"], by_name["ammonia"], by_name["nitrogen"]])
-    p = np.full_like(TEMPERATURES, P_STANDARD)
-    first = ideal.evaluate(TEMPERATURES, p)
-    assert ideal.evaluate(TEMPERATURES.copy(), p, np.full((TEMPERATURES.size, 3), 1.0 / 3.0)) is first
-    assert not first.k.flags.writeable
-    other = ideal.evaluate(TEMPERATURES + 1e-9, p)
-    assert other is not first and np.all(other.h_liquid != first.h_liquid)
-    organic = PropertyModel([by_name["water"], by_name["acetone"], by_name["nitrogen"]],
-                            equilibrium=["raoult", "activity", "insoluble"], activity=unifac([by_name["water"], by_name["acetone"]]))
-    x = np.array([[0.9, 0.1, 0.0]] * TEMPERATURES.size)
-    assert organic.evaluate(TEMPERATURES, p, x) is not organic.evaluate(TEMPERATURES, p, x)

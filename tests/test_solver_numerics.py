@@ -11,9 +11,11 @@ from traywise.inert_basis.kremser import kremser_fraction_absorbed
 from traywise.mesh.balances import build_solution
 from traywise.mesh.equations import StageEquations
 from traywise.mesh.newton import solve_column
-from traywise.mesh.start import initial_estimate
+from traywise.mesh.start import estimate_with_properties, initial_estimate
 from traywise.properties.inline import inline_component
+from traywise.properties.library import find_component
 from traywise.properties.model import PropertyModel
+from traywise.properties.unifac_parameters import unifac
 
 
 @pytest.mark.parametrize("murphree, mode", [(1.0, "adiabatic"), (0.6, "adiabatic"), (0.6, "isothermal")])
@@ -137,3 +139,23 @@ def test_insoluble_carrier_with_murphree_efficiency_is_accepted():
     column = dilute_column(5, 3.0, solute_fraction=0.05)
     solution = solve_column(column.__class__(**{**column.__dict__, "murphree": 0.6}), model)
     assert solution.fraction_absorbed[1] < solve_column(column, model).fraction_absorbed[1]
+
+
+def test_estimate_hands_on_its_properties_only_where_they_are_the_residuals():
+    """The solver's first residual takes the properties of the starting estimate's last
+    evaluation when the model depends on temperature and pressure only; they must be what
+    the residual would evaluate at the estimate (with its compositions), and none is handed
+    on for a model whose liquid is composition-dependent."""
+    model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
+    column = water_column(model, 6, gas=np.array([0.02, 0.15, 0.03, 0.80]), solvent_flow=2.0)
+    equations = StageEquations(column, model)
+    for profile in ("hot", "linear"):
+        x, props = estimate_with_properties(equations, profile)
+        f_given, _ = equations.residual(x, props)
+        f_evaluated, fresh = equations.residual(x)
+        assert np.array_equal(f_given, f_evaluated) and np.array_equal(props.h_liquid, fresh.h_liquid)
+    water, acetone, nitrogen = (find_component(name) for name in ("water", "acetone", "nitrogen"))
+    organic = PropertyModel([water, acetone, nitrogen], equilibrium=["raoult", "activity", "insoluble"],
+                            activity=unifac([water, acetone]))
+    column = water_column(organic, 4, gas=np.array([0.0, 0.1, 0.9]), solvent_flow=1.0)
+    assert estimate_with_properties(StageEquations(column, organic), "hot")[1] is None

@@ -15,7 +15,7 @@ from ..errors import ConvergenceError, UnphysicalSolution
 from .balances import build_solution
 from .banded import BandedSystem
 from .equations import StageEquations
-from .start import initial_estimate
+from .start import estimate_with_properties
 
 START_ORDER = ("hot", "linear")
 
@@ -78,16 +78,16 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
         column.n_stages, equations.n, equations.band, equations.band_order, equations.row_scale, equations.unknown_scale,
         equations.jacobian_pattern(),
     )
-    starts = [lambda profile=profile: initial_estimate(equations, profile) for profile in START_ORDER]
+    starts = [lambda profile=profile: estimate_with_properties(equations, profile) for profile in START_ORDER]
     if start is not None and start.n_stages == column.n_stages:
-        starts.insert(0, lambda: equations.join(start.vapour_flows, start.liquid_flows, start.temperature))
+        starts.insert(0, lambda: (equations.join(start.vapour_flows, start.liquid_flows, start.temperature), None))
     runs, total, turn, last = [], 0, 0, None
     while runs or starts:
         if starts and (not runs or total >= settings.solo_iterations):  # estimates built lazily
             for make in starts[: 1 if total < settings.solo_iterations else len(starts)]:
                 starts.remove(make)
                 try:
-                    runs.append(_iterations(equations, linear, make(), settings))
+                    runs.append(_iterations(equations, linear, *make(), settings))
                 except ConvergenceError as failure:  # no estimate (properties not finite)
                     last = last or failure
             continue
@@ -106,13 +106,14 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
     raise type(last)(last.reason, iterations=total, residual=last.residual, stage=last.stage)
 
 
-def _iterations(equations, linear, x, settings):
+def _iterations(equations, linear, x, props, settings):
     """Generator of iterates: yields (x, properties at x, max-norm, converged) after each Newton
     step (one factorisation each) and, without a step, once converged; raises ConvergenceError
-    after ``settings.max_iterations`` steps. ``linear`` is the column's BandedSystem."""
+    after ``settings.max_iterations`` steps. ``linear`` is the column's BandedSystem; ``props``
+    the stage properties at x when known (else None)."""
     rows = equations.row_scale_vector
     blocks = equations.empty_jacobian()
-    f, props = _residual(equations, x)
+    f, props = _residual(equations, x, props)
     norm, size = _norms(f, rows)
     dt = settings.initial_time_step
     polish, polished_from = settings.polish_steps, np.inf
@@ -142,9 +143,9 @@ def _iterations(equations, linear, x, settings):
     )
 
 
-def _residual(equations, x):
+def _residual(equations, x, props=None):
     with np.errstate(all="ignore"):
-        return equations.residual(x)
+        return equations.residual(x, props)
 
 
 def _norms(f, rows):

@@ -33,6 +33,21 @@ T_GRID = np.linspace(150.0, 700.0, 221)  # K, 2.5 K apart; where the hot-zone te
 
 def initial_estimate(equations, profile="hot"):
     """Unknown vector (N*n,) for ``equations`` (a StageEquations); profile 'hot' or 'linear'."""
+    return estimate_with_properties(equations, profile)[0]
+
+
+def estimate_with_properties(equations, profile="hot"):
+    """(unknown vector, stage properties at it or None): the properties of the estimate's last
+    evaluation when they are those of the residual at the estimate (the model's properties
+    depend on temperature and pressure only: no composition-dependent liquid, ideal gas), so
+    that the solver need not evaluate them again."""
+    model = equations.model
+    reusable = not model.composition_dependent and model.gas_phase is None
+    x, props = _estimate(equations, profile)
+    return x, props if reusable else None
+
+
+def _estimate(equations, profile):
     column = equations.column
     if column.mode == "isothermal":
         return _flows_at(equations, np.array(column.temperature, dtype=float))
@@ -42,16 +57,18 @@ def initial_estimate(equations, profile="hot"):
     t = np.full(column.n_stages, column.solvent.temperature)
     with np.errstate(all="ignore"):  # the grid reaches far outside the correlations' ranges
         props = equations.model.evaluate(np.r_[t, T_GRID], np.r_[equations.pressure, np.full(T_GRID.size, equations.pressure[-1])])
-    flows = equations.split(_flows_at(equations, t, props.k[: t.size]))
+    flows = equations.split(_flows_at(equations, t, props.k[: t.size])[0])
     t[1:] = _hot_zone_temperature(equations, flows, props.h_vapour[0], props.h_liquid[t.size :], props.k[t.size :])
     return _flows_at(equations, t)
 
 
 def _flows_at(equations, t, k=None):
-    """Join the tridiagonal-method flows at temperatures t (K-values k (N, c) there, evaluated
-    when not given) with t itself."""
+    """(the tridiagonal-method flows at temperatures t joined with t, the stage properties
+    evaluated for them or None): K-values k (N, c) at t are evaluated when not given."""
+    props = None
     if k is None:
-        k = equations.model.evaluate(t, equations.pressure).k
+        props = equations.model.evaluate(t, equations.pressure)
+        k = props.k
     k = np.where(equations.insoluble, INSOLUBLE_K, k) * equations.column.murphree[:, None]
     if not np.all(np.isfinite(k)):
         raise ConvergenceError(
@@ -66,7 +83,7 @@ def _flows_at(equations, t, k=None):
     l = _component_liquid_flows(stripping, feed, equations.pass_liquid, equations.pass_vapour)
     v = stripping * l
     l[:, equations.insoluble] = 0.0
-    return equations.join(v, l, t)
+    return equations.join(v, l, t), props
 
 
 def _hot_zone_temperature(equations, flows, h_vapour_top, h_liquid, k):

@@ -121,7 +121,6 @@ class PropertyModel:
         self._liquids = self._composition_liquids(activity)
         self.composition_dependent = bool(self._liquids)
         self.gas_phase = gas_phase
-        self._last = None  # (t, p, properties) of the last evaluation that depended on t and p only
 
     @staticmethod
     def _check(component, kind):
@@ -189,11 +188,6 @@ class PropertyModel:
         vapour mole fractions (n, c) (default: the gas phase's reference composition)."""
         t = np.asarray(temperature, dtype=float).reshape(-1)
         p = np.broadcast_to(np.asarray(pressure, dtype=float).reshape(-1), t.shape)
-        # without a composition-dependent liquid or a real gas the properties depend on t and p
-        # only: the solver asks again at the same states (starting estimate, then its residual)
-        memo = not self.composition_dependent and self.gas_phase is None
-        if memo and self._last is not None and np.array_equal(self._last[0], t) and np.array_equal(self._last[1], p):
-            return self._last[2]
         n, m, idx = t.size, self.n_components, self.index
         h_all, cp_all = self._cp.enthalpy(t)
         h_vapour, cp_vapour = h_all[:, :m], cp_all[:, :m]
@@ -232,12 +226,7 @@ class PropertyModel:
         k = np.exp(ln_k)
         k[:, idx["nonvolatile"]] = 0.0
         k[:, idx["insoluble"]] = np.inf
-        props = StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx, dlnk_dy)
-        if memo:  # shared with later callers: read-only
-            for array in (k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt):
-                array.flags.writeable = False
-            self._last = (t.copy(), p.copy(), props)
-        return props
+        return StageProperties(k, dlnk_dt, h_vapour, cp_vapour, h_liquid, dh_liquid_dt, dlnk_dx, dlnk_dy)
 
     def _polynomial_henry(self, t):
         """ln H and its first two temperature derivatives of the 'ln_h' gases, each (n, g)."""
