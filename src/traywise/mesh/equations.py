@@ -73,6 +73,7 @@ class StageEquations:
             self.pressure[[f.stage - 1 for f in feeds]],
             np.where(vapour, solvent, flows / flows.sum(axis=1, keepdims=True)),
         )
+        self.feed_properties = props  # a row per feed, in the order of column.feeds
         h = np.sum(np.where(vapour, props.h_vapour, props.h_liquid) * flows, axis=1)
         cp = np.sum(np.where(vapour, props.dh_vapour_dt, props.dh_liquid_dt) * flows, axis=1)
         enthalpy = np.zeros(self.n_stages)
