@@ -97,15 +97,19 @@ class BandedSystem:
         """x with (J + shift D_r D_u^-1) x = rhs for the blocks of J (see class docstring),
         stacked (3, N, n, n): lower (blocks[0][j] couples stage j to j-1, blocks[0][0] unused),
         diagonal, upper (blocks[2][j] couples stage j to j+1)."""
-        self.storage.fill(0.0)  # the factorisation overwrote it, fill-in too
-        gathered = np.take(blocks.reshape(-1), self._taken, out=self._gathered)
-        gathered *= self._scale
-        self._flat[self._positions] = gathered
-        if diagonal_shift:
-            self.storage[self.below + self.above] += diagonal_shift
+        self.fill(blocks, diagonal_shift)
         self.rhs[:] = (rhs / self._row_scale)[self.permutation]
         if solve_banded_in_place(self.below, self.above, self.storage, self.rhs, self.pivots) > 0:
             raise ConvergenceError("singular stage Jacobian", iterations=0, residual=np.inf)
         solution = np.empty_like(self.rhs)
         solution[self.permutation] = self.rhs
         return solution * self._unknown_scale
+
+    def fill(self, blocks, diagonal_shift=0.0):
+        """Write the scaled, shifted matrix of ``solve`` into the band storage (no factorisation)."""
+        self.storage.fill(0.0)  # the factorisation overwrote it, fill-in too
+        gathered = np.take(blocks.reshape(-1), self._taken, out=self._gathered)
+        gathered *= self._scale
+        self._flat[self._positions] = gathered
+        if diagonal_shift:
+            self.storage[self.below + self.above] += diagonal_shift
