@@ -7,6 +7,8 @@ import numpy as np
 import pytest
 from support.columns import library_model, water_column
 
+from traywise.mesh.balances import _heat_breakdown
+from traywise.mesh.equations import StageEquations
 from traywise.mesh.newton import solve_column
 from traywise.mesh.phase_transfer import liquid_to_vapour, solvent_balance
 from traywise.properties.liquid_volume import liquid_volume_flow
@@ -80,3 +82,23 @@ def test_liquid_volume_of_water_at_20_degC():
 def test_no_volume_for_an_empty_stream():
     model = library_model("water")
     assert liquid_volume_flow(model.components, [0.0], 293.15) is None
+
+
+def test_breakdown_from_the_properties_already_evaluated_equals_a_fresh_evaluation(dry_hot_gas):
+    """Where the properties depend on temperature and pressure only, the heat breakdown reads
+    the feeds' and the end stages' enthalpies from the evaluations the solve made; the same
+    breakdown from a fresh evaluation of the four states (as for other models) agrees."""
+    model, solution = dry_hot_gas
+    equations = StageEquations(solution.column, model)
+    x = equations.join(solution.vapour_flows, solution.liquid_flows, solution.temperature)
+    props = equations.residual(x)[1]
+    args = (equations, solution.vapour_flows, solution.liquid_flows, solution.temperature, solution.heat_removed, props)
+    reused = _heat_breakdown(*args)
+    model.composition_dependent = True  # the branch that evaluates the four states
+    try:
+        fresh = _heat_breakdown(*args)
+    finally:
+        model.composition_dependent = False
+    assert reused == solution.heat
+    for name in ("released", "gas_heating", "liquid_heating", "evaporation", "removed_by_coolers", "other"):
+        assert getattr(reused, name) == pytest.approx(getattr(fresh, name), rel=1e-12, abs=1e-9)

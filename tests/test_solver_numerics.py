@@ -1,5 +1,7 @@
 """Rigorous solver numerics: analytic Jacobian, Kremser agreement, the spurious root, cost."""
 
+import dataclasses
+
 import numpy as np
 import pytest
 
@@ -9,16 +11,20 @@ from traywise.inert_basis.kremser import kremser_fraction_absorbed
 from traywise.mesh.balances import build_solution
 from traywise.mesh.equations import StageEquations
 from traywise.mesh.newton import solve_column
-from traywise.mesh.start import initial_estimate
+from traywise.mesh.start import estimate_with_properties, initial_estimate
 from traywise.properties.inline import inline_component
+from traywise.properties.library import find_component
 from traywise.properties.model import PropertyModel
+from traywise.properties.unifac_parameters import unifac
 
 
-@pytest.mark.parametrize("murphree", [1.0, 0.6])
-def test_analytic_jacobian_matches_central_differences(murphree):
+@pytest.mark.parametrize("murphree, mode", [(1.0, "adiabatic"), (0.6, "adiabatic"), (0.6, "isothermal")])
+def test_analytic_jacobian_matches_central_differences(murphree, mode):
     model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
     gas = np.array([0.02, 0.15, 0.03, 0.80])
     column = water_column(model, 4, gas=gas, solvent_flow=2.0, murphree=murphree)
+    if mode == "isothermal":
+        column = dataclasses.replace(column, mode="isothermal", temperature=np.full(4, 300.0))
     equations = StageEquations(column, model)
     x = initial_estimate(equations, "hot")
     x[equations.n - 1 :: equations.n] += np.linspace(0.0, 7.0, column.n_stages)  # off the start profile
@@ -112,9 +118,44 @@ def test_band_widths_hold_every_jacobian_entry(murphree):
     assert np.max(rows - cols) <= below and np.max(cols - rows) <= above
 
 
+@pytest.mark.parametrize("murphree", [1.0, 0.7])
+def test_jacobian_pattern_holds_every_entry(murphree):
+    """The banded solve gathers only the entries of ``jacobian_pattern``: check that no other is
+    non-zero (and that the pattern leaves out a good part of the blocks, the point of it)."""
+    model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
+    column = water_column(model, 5, gas=np.array([0.02, 0.15, 0.03, 0.80]), solvent_flow=2.0, murphree=murphree)
+    equations = StageEquations(column, model)
+    x = initial_estimate(equations, "hot")
+    blocks = equations.jacobian(x, equations.residual(x)[1])
+    outside = ~equations.jacobian_pattern()
+    for block, zero in zip(blocks, outside):
+        assert not np.any(block[:, zero])
+    assert equations.jacobian_pattern().sum() < 0.7 * 3 * equations.n**2
+
+
 def test_insoluble_carrier_with_murphree_efficiency_is_accepted():
     """sum y* = 1 on every stage also when a carrier is insoluble and trays are not ideal."""
     model = ideal_dilute_model()
     column = dilute_column(5, 3.0, solute_fraction=0.05)
     solution = solve_column(column.__class__(**{**column.__dict__, "murphree": 0.6}), model)
     assert solution.fraction_absorbed[1] < solve_column(column, model).fraction_absorbed[1]
+
+
+def test_estimate_hands_on_its_properties_only_where_they_are_the_residuals():
+    """The solver's first residual takes the properties of the starting estimate's last
+    evaluation when the model depends on temperature and pressure only; they must be what
+    the residual would evaluate at the estimate (with its compositions), and none is handed
+    on for a model whose liquid is composition-dependent."""
+    model = library_model("water", "ammonia", "sulfur dioxide", "nitrogen")
+    column = water_column(model, 6, gas=np.array([0.02, 0.15, 0.03, 0.80]), solvent_flow=2.0)
+    equations = StageEquations(column, model)
+    for profile in ("hot", "linear"):
+        x, props = estimate_with_properties(equations, profile)
+        f_given, _ = equations.residual(x, props)
+        f_evaluated, fresh = equations.residual(x)
+        assert np.array_equal(f_given, f_evaluated) and np.array_equal(props.h_liquid, fresh.h_liquid)
+    water, acetone, nitrogen = (find_component(name) for name in ("water", "acetone", "nitrogen"))
+    organic = PropertyModel([water, acetone, nitrogen], equilibrium=["raoult", "activity", "insoluble"],
+                            activity=unifac([water, acetone]))
+    column = water_column(organic, 4, gas=np.array([0.0, 0.1, 0.9]), solvent_flow=1.0)
+    assert estimate_with_properties(StageEquations(column, organic), "hot")[1] is None

@@ -42,7 +42,7 @@ def build_solution(equations, x, iterations, norm, tolerance, props=None):
         liquid_flows=l,
         k_values=props.k,
         heat_removed=heat_removed,
-        heat=_heat_breakdown(equations, v, l, t, heat_removed),
+        heat=_heat_breakdown(equations, v, l, t, heat_removed, props),
         convergence=convergence,
         warnings=tuple(model.range_warnings(np.r_[t, [f.temperature for f in column.feeds]], l / l.sum(axis=1, keepdims=True))),
     )
@@ -102,25 +102,34 @@ def _closure(equations, v, l, props, heat_removed):
     return component, float(abs(enthalpy_in - enthalpy_out) / throughput)
 
 
-def _heat_breakdown(equations, v, l, t, heat_removed):
-    """See ``HeatBreakdown``: an exact split of the overall energy balance [W]."""
+def _heat_breakdown(equations, v, l, t, heat_removed, stage_props):
+    """See ``HeatBreakdown``: an exact split of the overall energy balance [W]; stage_props:
+    the stage properties at the solution."""
     column, model = equations.column, equations.model
     gas_in, solvent_in = column.gas.component_flows, column.solvent.component_flows
     gas_out, liquid_out, _, _ = _outlets(equations, v, l)
     p_top, p_bottom = equations.pressure[[0]], equations.pressure[[-1]]
 
-    # one evaluation for four states: gas in, gas out (top), solvent in, liquid out (bottom);
-    # the vapour enthalpies take the vapour compositions (a real gas), not the liquid's given with them
-    x_solvent = solvent_in / solvent_in.sum()
-    y_in, y_top = gas_in / gas_in.sum(), v[0] / v[0].sum()
-    props = model.evaluate(
-        np.array([column.gas.temperature, t[0], column.solvent.temperature, t[-1]]),
-        np.r_[p_bottom, p_top, p_top, p_bottom],
-        np.array([x_solvent, x_solvent, x_solvent, l[-1] / l[-1].sum()]),
-        np.array([y_in, y_top, y_in, y_in]),
-    )
-    h_v_gas_in, h_v_top = props.h_vapour[0], props.h_vapour[1]
-    h_l_solvent_in, h_l_bottom = props.h_liquid[2], props.h_liquid[3]
+    state_only = not model.composition_dependent and model.gas_phase is None
+    if state_only and column.solvent.stage == 1 and column.gas.stage == column.n_stages:
+        # properties of temperature and pressure only: the four states are the feeds' (solvent,
+        # gas: column.feeds) and the top and bottom stages', already evaluated
+        feeds = equations.feed_properties
+        h_v_gas_in, h_l_solvent_in = feeds.h_vapour[1], feeds.h_liquid[0]
+        h_v_top, h_l_bottom = stage_props.h_vapour[0], stage_props.h_liquid[-1]
+    else:
+        # one evaluation for four states: gas in, gas out (top), solvent in, liquid out (bottom); the
+        # vapour enthalpies take the vapour compositions (a real gas), not the liquid's given with them
+        x_solvent = solvent_in / solvent_in.sum()
+        y_in, y_top = gas_in / gas_in.sum(), v[0] / v[0].sum()
+        props = model.evaluate(
+            np.array([column.gas.temperature, t[0], column.solvent.temperature, t[-1]]),
+            np.r_[p_bottom, p_top, p_top, p_bottom],
+            np.array([x_solvent, x_solvent, x_solvent, l[-1] / l[-1].sum()]),
+            np.array([y_in, y_top, y_in, y_in]),
+        )
+        h_v_gas_in, h_v_top = props.h_vapour[0], props.h_vapour[1]
+        h_l_solvent_in, h_l_bottom = props.h_liquid[2], props.h_liquid[3]
     absorbed = gas_in - gas_out
     transfer = absorbed * (h_v_gas_in - h_l_bottom)
     released = float(np.sum(np.where(absorbed > 0.0, transfer, 0.0)))

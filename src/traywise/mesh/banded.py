@@ -11,7 +11,9 @@ column and refills them in place each Newton step; LAPACK's dgbsv factorises and
 storage (``lapack.py``), so nothing is copied or allocated per step beyond the gathered
 block entries (scipy.linalg.solve_banded copies its input, and a fresh C-ordered array is copied
 again to Fortran order by the LAPACK wrapper: at 320 stages that costs as much as the
-factorisation).
+factorisation). Only the block entries that can be non-zero (the equations' pattern: about
+half of the in-band ones for the MESH blocks) are gathered, in one take and one scatter over
+the three blocks stacked; the rest of the storage is cleared with one fill.
 """
 
 import functools
@@ -23,37 +25,35 @@ from .lapack import solve_banded_in_place
 
 
 @functools.lru_cache(maxsize=16)
-def _layout(n_stages, n, below, above, order):
+def _layout(n_stages, n, below, above, order, pattern):
     """Where the block entries go in LAPACK band storage (2 below + above + 1, N n), flat in
-    Fortran order: ((positions, taken, mask) for the lower, diagonal and upper blocks, unheld,
-    permutation). positions index the storage, taken the (N, n, n) blocks flat, mask (n, n) the
-    block entries inside the band; unheld are the in-band positions no block holds (entries two
-    stages apart: zero, but the factorisation overwrites them); banded unknown k is original
-    unknown permutation[k]. Cached: columns of one shape share it (design loops, sweeps)."""
-    rows, size = 2 * below + above + 1, n_stages * n
+    Fortran order: (positions, taken, masks, permutation). positions index the storage, taken
+    the stacked (3, N, n, n) blocks flat, masks (3, n, n) the block entries gathered: in the
+    band and in ``pattern`` (flat bools, 3 n n: the entries that can be non-zero); banded
+    unknown k is original unknown permutation[k]. Cached: columns of one shape share it
+    (design loops, sweeps)."""
+    rows = 2 * below + above + 1
     inverse = np.empty(n, dtype=int)
     inverse[list(order)] = np.arange(n)
     a, b = np.meshgrid(inverse, inverse, indexing="ij")  # permuted row, column of entry (a, b)
     within = np.arange(n * n).reshape(n, n)  # flat index of entry (a, b) inside a block
+    pattern = np.array(pattern, dtype=bool).reshape(3, n, n)
 
-    def entries(stages, shift):
+    def entries(kind, stages, shift):
         offset = shift * n + b - a  # column minus row in the permuted matrix
-        mask = (offset <= above) & (offset >= -below)
+        mask = (offset <= above) & (offset >= -below) & pattern[kind]
         row = stages[:, None] * n + a[mask]
         col = (stages[:, None] + shift) * n + b[mask]
-        taken = (stages[:, None] * n * n + within[mask]).ravel()
+        taken = ((kind * n_stages + stages[:, None]) * n * n + within[mask]).ravel()
         return (col * rows + below + above + row - col).ravel(), taken, mask
 
     stages = np.arange(n_stages)
-    blocks = (entries(stages[1:], -1), entries(stages, 0), entries(stages[:-1], 1))
-    col = np.arange(size)[:, None]
-    row = col + np.arange(-above, below + 1)[None, :]
-    inside = (row >= 0) & (row < size)
-    in_band = np.zeros(rows * size, dtype=bool)
-    in_band[(col * rows + below + above + row - col)[inside]] = True
-    in_band[np.concatenate([positions for positions, _, _ in blocks])] = False
+    blocks = (entries(0, stages[1:], -1), entries(1, stages, 0), entries(2, stages[:-1], 1))
+    positions = np.concatenate([block[0] for block in blocks])
+    taken = np.concatenate([block[1] for block in blocks])
     permutation = (stages[:, None] * n + np.asarray(order)[None, :]).ravel()
-    return blocks, np.flatnonzero(in_band), permutation
+    masks = np.array([block[2] for block in blocks])
+    return positions, taken, masks, permutation
 
 
 class BandedSystem:
@@ -68,9 +68,11 @@ class BandedSystem:
     order : sequence of int      Per-stage permutation applied before banding
     row_scale, unknown_scale : array (n,), optional   The system solved is
                                  (D_r^-1 J D_u + shift I) y = D_r^-1 rhs, x = D_u y
+    pattern : bool array (3, n, n), optional   Entries of the lower, diagonal and upper blocks
+                                 that can be non-zero (default all); only these are gathered
     """
 
-    def __init__(self, n_stages, n, band, order, row_scale=None, unknown_scale=None):
+    def __init__(self, n_stages, n, band, order, row_scale=None, unknown_scale=None, pattern=None):
         below, above = (int(w) for w in band)
         self.below, self.above = below, above
         size = n_stages * n
@@ -78,28 +80,36 @@ class BandedSystem:
         self.rhs = np.empty(size)
         self.pivots = np.empty(size, dtype=np.int64)
         self._flat = self.storage.T.reshape(-1)  # a view: flat index = column * rows + row
-        blocks, self._unheld, self.permutation = _layout(n_stages, n, below, above, tuple(int(k) for k in order))
+        pattern = np.ones((3, n, n), dtype=bool) if pattern is None else np.asarray(pattern, dtype=bool)
+        self._positions, self._taken, masks, self.permutation = _layout(
+            n_stages, n, below, above, tuple(int(k) for k in order), tuple(pattern.ravel().tolist())
+        )
         row_scale = np.ones(n) if row_scale is None else np.asarray(row_scale, dtype=float)
         unknown_scale = np.ones(n) if unknown_scale is None else np.asarray(unknown_scale, dtype=float)
         scale = unknown_scale[None, :] / row_scale[:, None]
-        self._blocks = tuple(
-            (positions, taken, np.tile(scale[mask], taken.size // max(int(mask.sum()), 1))) for positions, taken, mask in blocks
-        )
+        counts = (n_stages - 1, n_stages, n_stages - 1)  # lower[0] and upper[N-1] are not gathered
+        self._scale = np.concatenate([np.tile(scale[mask], count) for mask, count in zip(masks, counts)])
+        self._gathered = np.empty(self._taken.size)
         self._row_scale = np.tile(row_scale, n_stages)
         self._unknown_scale = np.tile(unknown_scale, n_stages)
 
-    def solve(self, lower, diagonal, upper, rhs, diagonal_shift=0.0):
-        """x with (J + shift D_r D_u^-1) x = rhs for the blocks of J (see class docstring):
-        lower[j] couples stage j to j-1 (lower[0] unused), upper[j] stage j to j+1."""
-        flat = self._flat
-        flat[self._unheld] = 0.0
-        for block, (positions, taken, scale) in zip((lower, diagonal, upper), self._blocks):
-            flat[positions] = block.reshape(-1)[taken] * scale
-        if diagonal_shift:
-            self.storage[self.below + self.above] += diagonal_shift
+    def solve(self, blocks, rhs, diagonal_shift=0.0):
+        """x with (J + shift D_r D_u^-1) x = rhs for the blocks of J (see class docstring),
+        stacked (3, N, n, n): lower (blocks[0][j] couples stage j to j-1, blocks[0][0] unused),
+        diagonal, upper (blocks[2][j] couples stage j to j+1)."""
+        self.fill(blocks, diagonal_shift)
         self.rhs[:] = (rhs / self._row_scale)[self.permutation]
         if solve_banded_in_place(self.below, self.above, self.storage, self.rhs, self.pivots) > 0:
             raise ConvergenceError("singular stage Jacobian", iterations=0, residual=np.inf)
         solution = np.empty_like(self.rhs)
         solution[self.permutation] = self.rhs
         return solution * self._unknown_scale
+
+    def fill(self, blocks, diagonal_shift=0.0):
+        """Write the scaled, shifted matrix of ``solve`` into the band storage (no factorisation)."""
+        self.storage.fill(0.0)  # the factorisation overwrote it, fill-in too
+        gathered = np.take(blocks.reshape(-1), self._taken, out=self._gathered)
+        gathered *= self._scale
+        self._flat[self._positions] = gathered
+        if diagonal_shift:
+            self.storage[self.below + self.above] += diagonal_shift

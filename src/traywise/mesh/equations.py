@@ -73,6 +73,7 @@ class StageEquations:
             self.pressure[[f.stage - 1 for f in feeds]],
             np.where(vapour, solvent, flows / flows.sum(axis=1, keepdims=True)),
         )
+        self.feed_properties = props  # a row per feed, in the order of column.feeds
         h = np.sum(np.where(vapour, props.h_vapour, props.h_liquid) * flows, axis=1)
         cp = np.sum(np.where(vapour, props.dh_vapour_dt, props.dh_liquid_dt) * flows, axis=1)
         enthalpy = np.zeros(self.n_stages)
@@ -139,35 +140,62 @@ class StageEquations:
         return np.array(self.column.heat_removed)
 
     def empty_jacobian(self):
-        """Zeroed blocks (lower, diagonal, upper), each (N, n, n), to pass to ``jacobian``."""
-        return tuple(np.zeros((self.n_stages, self.n, self.n)) for _ in range(3))
-
-    def jacobian(self, x, props, out=None):
-        """Blocks (lower, diagonal, upper), each (N, n, n): d(rows of stage j)/d(unknowns of
-        stage j-1, j, j+1). lower[0] and upper[N-1] are unused (zero). ``out``: blocks from
-        ``empty_jacobian`` or an earlier call of this column, filled in place (every entry
-        that can be non-zero is written on every call)."""
+        """Blocks (lower, diagonal, upper) stacked (3, N, n, n), to pass to ``jacobian``: zero but
+        for the entries that do not depend on the unknowns, written here once (the material
+        rows; the temperature rows in isothermal mode)."""
         c = self.c
-        v, l, t = self.split(x)
-        big_v, big_l = v.sum(axis=1), l.sum(axis=1)
-        lower, diagonal, upper = self.empty_jacobian() if out is None else out
+        lower, diagonal, upper = blocks = np.zeros((3, self.n_stages, self.n, self.n))
         eye = np.eye(c)
-        vs, ls, ts = slice(0, c), slice(c, 2 * c), 2 * c
-        es, ms, hs = slice(0, c), slice(c, 2 * c), 2 * c
-        # material rows
+        vs, ls, ms = slice(0, c), slice(c, 2 * c), slice(c, 2 * c)
         diagonal[:, ms, vs] = eye
         diagonal[:, ms, ls] = eye
         lower[1:, ms, ls] = -self.pass_liquid[:-1, None, None] * eye
         upper[:-1, ms, vs] = -self.pass_vapour[1:, None, None] * eye
-        # equilibrium rows
+        if self.isothermal:
+            diagonal[:, 2 * c, 2 * c] = 1.0
+        return blocks
+
+    def jacobian_pattern(self):
+        """(3, n, n) bool: the entries of the lower, diagonal and upper blocks that ``jacobian``
+        can make non-zero (rows E, M, H against unknowns v, l, T)."""
+        c = self.c
+        vs, ls, ts = slice(0, c), slice(c, 2 * c), 2 * c
+        es, ms, hs = slice(0, c), slice(c, 2 * c), 2 * c
+        eye = np.eye(c, dtype=bool)
+        pattern = np.zeros((3, self.n, self.n), dtype=bool)
+        lower, diagonal, upper = pattern
+        diagonal[es] = True
+        diagonal[ms, vs] = diagonal[ms, ls] = eye
+        diagonal[hs] = True
+        lower[ms, ls] = eye
+        lower[hs, ls] = lower[hs, ts] = True
+        upper[es, vs] = np.any(self.murphree < 1.0)  # (1 - eta) y_in: none on ideal trays
+        upper[ms, vs] = eye
+        upper[hs, vs] = upper[hs, ts] = True
+        return pattern
+
+    def jacobian(self, x, props, out=None):
+        """Blocks (lower, diagonal, upper) stacked (3, N, n, n): d(rows of stage j)/d(unknowns
+        of stage j-1, j, j+1). lower[0] and upper[N-1] are unused (zero). ``out``: blocks from
+        ``empty_jacobian`` or an earlier call of this column, filled in place (every entry of
+        ``jacobian_pattern`` that depends on the unknowns is written on every call)."""
+        c = self.c
+        v, l, t = self.split(x)
+        big_v, big_l = v.sum(axis=1), l.sum(axis=1)
+        blocks = self.empty_jacobian() if out is None else out
+        lower, diagonal, upper = blocks
+        eye = np.eye(c)
+        vs, ls, ts = slice(0, c), slice(c, 2 * c), 2 * c
+        es, hs = slice(0, c), 2 * c
+        # equilibrium rows (the material rows are constant: ``empty_jacobian``)
         eta = self.murphree[:, None]
         k = np.where(self.insoluble, 0.0, props.k)
         x_l = l / big_l[:, None]
         y_in = self.vapour_from_below(v)
         equilibrium_y = eta * k * x_l + (1.0 - eta) * y_in  # y_ij = this, at the solution
-        diagonal[:, es, vs] = eye - equilibrium_y[:, :, None]
+        np.subtract(eye, equilibrium_y[:, :, None], out=diagonal[:, es, vs])
         a = (big_v / big_l)[:, None] * eta * k  # (N, c)
-        de_dl = -a[:, :, None] * (eye - x_l[:, :, None])
+        de_dl = np.multiply(-a[:, :, None], eye - x_l[:, :, None], out=diagonal[:, es, ls])
         dlnk_dt = np.where(self.insoluble, 0.0, props.dlnk_dt)
         de_dt = -big_v[:, None] * eta * k * x_l * dlnk_dt
         if props.dlnk_dx is not None:
@@ -178,21 +206,19 @@ class StageEquations:
             y_v = v / big_v[:, None]
             dlnk_dv = (props.dlnk_dy - np.einsum("sim,sm->si", props.dlnk_dy, y_v)[:, :, None]) / big_v[:, None, None]
             diagonal[:, es, vs] -= (big_v[:, None] * eta * k * x_l)[:, :, None] * dlnk_dv
-        diagonal[:, es, ls] = de_dl
         diagonal[:, es, ts] = de_dt
-        v_below = v[1:].sum(axis=1)
-        y_below = y_in[:-1]
-        upper[:-1, es, vs] = -((1.0 - eta[:-1]) * (big_v[:-1] / v_below)[:, None])[:, :, None] * (
-            eye - y_below[:, :, None]
-        )
+        if np.any(self.murphree < 1.0):  # else zero, as ``empty_jacobian`` left it
+            v_below = v[1:].sum(axis=1)
+            y_below = y_in[:-1]
+            upper[:-1, es, vs] = -((1.0 - eta[:-1]) * (big_v[:-1] / v_below)[:, None])[:, :, None] * (
+                eye - y_below[:, :, None]
+            )
         ins = np.flatnonzero(self.insoluble)
         diagonal[:, ins, :] = 0.0
         upper[:, ins, :] = 0.0
         diagonal[:, ins, c + ins] = 1.0
         # energy rows
-        if self.isothermal:
-            diagonal[:, hs, ts] = 1.0
-        else:
+        if not self.isothermal:
             diagonal[:, hs, vs] = props.h_vapour
             diagonal[:, hs, ls] = props.h_liquid
             diagonal[:, hs, ts] = np.sum(l * props.dh_liquid_dt + v * props.dh_vapour_dt, axis=1)
@@ -201,4 +227,4 @@ class StageEquations:
             lower[1:, hs, ts] = -pl[:, 0] * np.sum(l[:-1] * props.dh_liquid_dt[:-1], axis=1)
             upper[:-1, hs, vs] = -pv * props.h_vapour[1:]
             upper[:-1, hs, ts] = -pv[:, 0] * np.sum(v[1:] * props.dh_vapour_dt[1:], axis=1)
-        return lower, diagonal, upper
+        return blocks

@@ -234,6 +234,21 @@ WAGNER_PRUSS_SATURATION = (
     (22.6807411, 3.5), (-15.9618719, 4.0), (1.80122502, 7.5),
 )
 WATER_CRITICAL_TEMPERATURE = 647.096  # K, IAPWS R6-95(2018)
+
+
+def _wagner_pruss_sums():
+    """(17, 3): the coefficients of sqrt(tau)**k, k = -1..15 (row k + 1), in the Wagner-Pruss
+    sum and its first two derivatives with respect to tau (a term a tau**1 has no second)."""
+    sums = np.zeros((17, 3))
+    for a, e in WAGNER_PRUSS_SATURATION:
+        sums[round(2 * e) + 1, 0] += a
+        sums[round(2 * (e - 1.0)) + 1, 1] += a * e
+        if e != 1.0:
+            sums[round(2 * (e - 2.0)) + 1, 2] += a * e * (e - 1.0)
+    return sums
+
+
+_WAGNER_PRUSS_SUMS = _wagner_pruss_sums()
 WATER_CRITICAL_PRESSURE = 22.064e6  # Pa, IAPWS R6-95(2018)
 
 
@@ -250,20 +265,14 @@ def wagner_pruss_saturation_pressure(temperature):
     """
     t = np.asarray(temperature, dtype=float)
     tc = WATER_CRITICAL_TEMPERATURE
-    tau = 1.0 - t / tc
-    root = np.sqrt(tau)
-    tau2 = tau * tau
-    powers = {0.5: root, 1.0: tau, 1.5: tau * root, 2.0: tau2, 2.5: tau2 * root, 3.0: tau2 * tau}
-    powers.update({3.5: powers[3.0] * root, 4.0: tau2 * tau2, 5.5: tau2 * tau2 * tau * root})
-    powers[6.5] = powers[5.5] * tau
-    powers[7.5] = powers[6.5] * tau
-    powers.update({0.0: 1.0, -0.5: 1.0 / root})
-    s = ds = d2s = 0.0  # sum and its derivatives with respect to tau, by powers built by products
-    for a, e in WAGNER_PRUSS_SATURATION:
-        s = s + a * powers[e]
-        ds = ds + a * e * powers[e - 1.0]
-        if e != 1.0:
-            d2s = d2s + a * e * (e - 1.0) * powers[e - 2.0]
+    root = np.sqrt(1.0 - t / tc)  # every exponent is a multiple of 1/2: powers of sqrt(tau)
+    powers = np.empty(t.shape + (_WAGNER_PRUSS_SUMS.shape[0],))  # sqrt(tau)**k, k = -1 .. 15
+    powers[..., 1] = 1.0
+    powers[..., 2:] = root[..., None]
+    np.cumprod(powers[..., 1:], axis=-1, out=powers[..., 1:])
+    powers[..., 0] = 1.0 / root
+    sums = powers @ _WAGNER_PRUSS_SUMS  # the sum s and its first two derivatives with respect to tau
+    s, ds, d2s = sums[..., 0], sums[..., 1], sums[..., 2]
     # ln(p/pc) = u s with u = tc/T; d/dT = -(1/tc) d/dtau for s; du/dT = -u/T
     u = tc / t
     ln_p = np.log(WATER_CRITICAL_PRESSURE) + u * s
@@ -313,11 +322,15 @@ def iapws_henry(temperature, a, b, c, offset=0.0):
     tau_c = tau_b / tau
     g = tr**-0.41 * np.exp(tau)  # and tr**-1.41, tr**-2.41 times exp(tau)
     g1, g2 = g * inverse, g * inverse * inverse
-    f = a * inverse + b * tau_a * inverse + c * g
-    df = -a * inverse**2 + b * (-0.355 * tau_b * inverse - tau_a * inverse**2) + c * (-0.41 * g1 - g)
-    d2f = (2.0 * a * inverse**3
-           + b * (-0.355 * 0.645 * tau_c * inverse + 0.71 * tau_b * inverse**2 + 2.0 * tau_a * inverse**3)
-           + c * (0.41 * 1.41 * g2 + 0.82 * g1 + g))
+    inverse2 = inverse * inverse
+    # the terms multiplying A, B and C and their derivatives in Tr, on the temperatures' shape
+    # (the coefficients broadcast against it only in the three sums)
+    b0 = tau_a * inverse
+    b1 = -0.355 * tau_b * inverse - tau_a * inverse2
+    b2 = -0.355 * 0.645 * tau_c * inverse + 0.71 * tau_b * inverse2 + 2.0 * tau_a * inverse2 * inverse
+    f = a * inverse + b * b0 + c * g
+    df = a * -inverse2 + b * b1 + c * (-0.41 * g1 - g)
+    d2f = a * (2.0 * inverse2 * inverse) + b * b2 + c * (0.41 * 1.41 * g2 + 0.82 * g1 + g)
     ln_p, dln_p, d2ln_p = wagner_pruss_saturation_pressure(t)
     ln_h = ln_p + f + offset
     dln_h = dln_p + df / tc

@@ -36,16 +36,16 @@ class StackedHeatCapacities:
         """Integral polynomial and its T-derivative (= Cp), each (n, m)."""
         s = self.scale * np.reshape(temperature, (1, -1)) + self.offset  # (m, n)
         n_powers = self._coefficients.shape[2]
-        powers = np.empty((n_powers,) + s.shape)  # s**k for k = 0 .. n_powers-1
-        powers[0] = 1.0
+        powers = np.empty((s.shape[0], n_powers, s.shape[1]))  # s**k for k = 0 .. n_powers-1, (m, k, n)
+        powers[:, 0] = 1.0
         if n_powers > 1:
-            powers[1] = s
+            powers[:, 1] = s
         done = 2
         while done < n_powers:
             block = min(done, n_powers - done)
-            np.multiply(powers[:block], powers[done - 1] * s, out=powers[done : done + block])
+            np.multiply(powers[:, :block], (powers[:, done - 1] * s)[:, None], out=powers[:, done : done + block])
             done += block
-        both = np.matmul(self._coefficients, powers.transpose(1, 0, 2))  # (m, 2, n)
+        both = np.matmul(self._coefficients, powers)  # (m, 2, n)
         return both[:, 0, :].T, both[:, 1, :].T
 
     def enthalpy(self, temperature):
