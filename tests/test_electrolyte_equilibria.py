@@ -100,10 +100,10 @@ def test_hydrochloric_acid_activity_coefficients():
 
 
 # Perry's Chemical Engineers' Handbook (7th ed. 1997, section 2, partial pressures of HCl over
-# aqueous solutions of HCl; the compilation of F. C. Zeisberg, Chem. Met. Eng. 32 (1925) 326,
-# recalled from memory): wt% HCl -> p(HCl) [mmHg]. Read from a public transcription of the
-# handbook table, not from the printed handbook; its 2 wt% row agrees with the handbook as
-# recalled from memory.
+# aqueous solutions of HCl, after F. C. Zeisberg, Chem. Met. Eng. 32 (1925) 326; the citation is
+# recalled from memory): wt% HCl -> p(HCl) [mmHg]. The values were read from a public
+# transcription of that handbook table, not from the printed handbook, and are not checked
+# against print; its 2 wt% row agrees with the handbook as recalled from memory.
 HCL_TABLE = {
     293.15: {6.0: 0.00076, 8.0: 0.00178, 10.0: 0.00395, 12.0: 0.0088, 14.0: 0.0196},
     313.15: {6.0: 0.0062, 8.0: 0.0136, 10.0: 0.0282, 12.0: 0.058, 14.0: 0.121},
