@@ -48,6 +48,7 @@ def estimate_with_properties(equations, profile="hot"):
 
 
 def _estimate(equations, profile):
+    """(unknown vector, properties of its last evaluation or None) of one profile."""
     column = equations.column
     if column.mode == "isothermal":
         return _flows_at(equations, np.array(column.temperature, dtype=float))
@@ -56,7 +57,8 @@ def _estimate(equations, profile):
     # one evaluation for the stages at the solvent temperature and for the grid at the bottom pressure
     t = np.full(column.n_stages, column.solvent.temperature)
     with np.errstate(all="ignore"):  # the grid reaches far outside the correlations' ranges
-        props = equations.model.evaluate(np.r_[t, T_GRID], np.r_[equations.pressure, np.full(T_GRID.size, equations.pressure[-1])])
+        pressures = np.r_[equations.pressure, np.full(T_GRID.size, equations.pressure[-1])]
+        props = equations.model.evaluate(np.r_[t, T_GRID], pressures)
     flows = equations.split(_flows_at(equations, t, props.k[: t.size])[0])
     t[1:] = _hot_zone_temperature(equations, flows, props.h_vapour[0], props.h_liquid[t.size :], props.k[t.size :])
     return _flows_at(equations, t)

@@ -128,14 +128,16 @@ class AqueousElectrolyte:
             t_last, ln_totals_last, y_last, dy_dt_last, dy_dln_last = self._last
             change = dy_dt_last * (t - t_last)[:, None] + np.matmul(dy_dln_last, (ln_totals - ln_totals_last)[:, :, None])[:, :, 0]
             start = y_last + np.clip(change, -PREDICTION_LIMIT, PREDICTION_LIMIT)
-        solved = system.solve(t, totals, start)
         # one batch at t and t +- dT: the solved state evaluated afresh (its Jacobian exact), and the
         # states at t +- dT predicted to first order, whose errors, of order dT**2, are alike on both
         # sides and leave the central difference second-order accurate
         n = t.size
+        t_all = np.concatenate([t, t + TEMPERATURE_STEP, t - TEMPERATURE_STEP])
+        totals_all = np.tile(np.maximum(totals, MOLALITY_FLOOR), (3, 1))
+        fixed = system.batch(t_all, totals_all)  # what depends on t and the totals alone, once
+        solved = system.solve(t, totals, start, batch=fixed.head(n))
         shift = TEMPERATURE_STEP * solved.dy_dt_before
-        batch = system.evaluate_at(np.concatenate([solved.y, solved.y + shift, solved.y - shift]),
-                                   np.concatenate([t, t + TEMPERATURE_STEP, t - TEMPERATURE_STEP]), np.tile(totals, (3, 1)))
+        batch = system.evaluate_at(np.concatenate([solved.y, solved.y + shift, solved.y - shift]), t_all, totals_all, batch=fixed)
         dy_dt_all, dy_dln = batch.sensitivity(system, full=n)
         dphi_all, daw_all = self._temperature_derivatives(batch, dy_dt_all)
         eq = batch.head(n)

@@ -124,6 +124,10 @@ class _Batch(NamedTuple):
     inverse_rows: np.ndarray  # (n, s) its inverse
     ln_r0: np.ndarray  # (n,) ln(1 + M_w T_NaOH)
 
+    def head(self, n):
+        """The batch of the first n stages."""
+        return _Batch(*(tuple(term[:n] for term in value) if isinstance(value, tuple) else value[:n] for value in self))
+
 
 _FIELDS = tuple(f.name for f in fields(Equilibrium))
 
@@ -200,7 +204,7 @@ class SpeciationSystem:
         both = terms[:, :2] @ self.ln_k_coefficients.T  # (n, 2, s)
         return both[:, 0], both[:, 1]
 
-    def _batch(self, t, totals):
+    def batch(self, t, totals):
         """The ``_Batch`` of temperatures t (n,) and apparent molalities totals (n, k), floored."""
         ln_k, dlnk_dt = self._ln_k(t)
         rows = self._rows_of_totals(totals)
@@ -299,12 +303,13 @@ class SpeciationSystem:
         return y
 
     # ------------------------------------------------------------------ solve
-    def solve(self, t, totals, start=None):
+    def solve(self, t, totals, start=None, batch=None):
         """Equilibrium at temperatures t (n,) [K] and apparent molalities totals (n, k) [mol/kg],
-        from ``start`` (ln m, (n, s)) if given, else the last solution of this shape."""
+        from ``start`` (ln m, (n, s)) if given, else the last solution of this shape (batch: the
+        ``batch`` of t and the floored totals, when the caller has it)."""
         t = np.asarray(t, dtype=float)
         totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
-        batch = self._batch(t, totals)
+        batch = self.batch(t, totals) if batch is None else batch
         start = self._cache.get(t.shape) if start is None else start
         for attempt in ("warm", "cold"):
             if attempt == "cold" or start is None:
@@ -319,12 +324,12 @@ class SpeciationSystem:
         self._cache[t.shape] = y
         return Equilibrium(t, totals, y, m, *activity, jacobian, batch.dlnk_dt, iterations, dy_dt)
 
-    def evaluate_at(self, y, t, totals):
+    def evaluate_at(self, y, t, totals, batch=None):
         """The ``Equilibrium`` record of given ln m (n, s), without iterating (for states
-        predicted from a solved one by its sensitivities)."""
+        predicted from a solved one by its sensitivities; batch as for ``solve``)."""
         t = np.asarray(t, dtype=float)
         totals = np.maximum(np.asarray(totals, dtype=float), MOLALITY_FLOOR)
-        batch = self._batch(t, totals)
+        batch = self.batch(t, totals) if batch is None else batch
         _, jacobian, m, activity = self._residual_and_jacobian(y, batch)
         return Equilibrium(t, totals, y, m, *activity, jacobian, batch.dlnk_dt, 0)
 
