@@ -6,6 +6,7 @@ dissociation (K1 = 1.3e-2 mol/kg at 25 degC, the value the issue names; recalled
 dissociation the apparent K of a dilute SO2 solution lies far below the physical one.
 """
 
+import json
 from pathlib import Path
 
 import numpy as np
@@ -18,17 +19,22 @@ DEMO = Path(__file__).resolve().parents[1] / "cases" / "acid-gas-vent-scrubber.t
 FILE = Path("electrolyte.toml")
 
 
+SO2_ELECTROLYTE = '[component."sulfur dioxide"]\nequilibrium = "electrolyte"\n'
+SO2_HENRY = '[component."sulfur dioxide"]\nequilibrium = "henry"\n'
+CO2_HENRY = '[component."carbon dioxide"]\nequilibrium = "henry"\n'
+
+
 def demo_with(extra):
     return DEMO.read_text() + "\n" + extra
 
 
 def test_each_solute_chooses_the_electrolyte_liquid_or_henrys_law():
-    case = parse_case(demo_with('[component."sulfur dioxide"]\nequilibrium = "electrolyte"\n'), FILE)
+    case = parse_case(demo_with(SO2_ELECTROLYTE + CO2_HENRY), FILE)
     names = case.model.names
     assert case.model.equilibrium[names.index("sulfur dioxide")] == "electrolyte"
-    assert case.model.equilibrium[names.index("carbon dioxide")] == "henry"  # the library's own, unchanged
+    assert case.model.equilibrium[names.index("carbon dioxide")] == "henry"  # chosen in the case
     assert case.model.electrolyte is not None and case.key_component == "sulfur dioxide"
-    physical = parse_case(DEMO.read_text(), FILE)
+    physical = parse_case(demo_with(SO2_HENRY + CO2_HENRY), FILE)
     assert physical.model.electrolyte is None
     # dilute SO2 in water (1e-5 mole fraction) at 20 degC: bisulfite takes most of it, K falls
     x = np.zeros((1, len(names)))
@@ -53,7 +59,7 @@ def test_the_run_reports_ph_ionic_strength_and_species_on_every_stage(tmp_path):
     from traywise.report.outputs import write_outputs
     from traywise.run import run_case
 
-    case = parse_case(demo_with('[component."sulfur dioxide"]\nequilibrium = "electrolyte"\n'), FILE)
+    case = parse_case(demo_with(SO2_ELECTROLYTE + CO2_HENRY), FILE)
     run = run_case(case)
     assert run.speciation is not None and run.speciation.ph.shape == (case.column.n_stages,)
     write_outputs(tmp_path / "out", run)
@@ -92,16 +98,20 @@ def test_the_assumptions_say_which_solutes_ionise():
 
 
 def test_the_acid_gas_demo_on_the_electrolyte_liquid_shows_itself_with_and_without_it(tmp_path):
-    """The acid-gas demo with sulfur dioxide on the electrolyte liquid: the run solves the same
-    column with Henry's law beside it; both close their balances (the solver's limits 1e-9 and 1e-7),
-    and the bisulfite takes more SO2 than physical solubility alone."""
+    """The acid-gas demo as written (sulfur dioxide and carbon dioxide on the electrolyte liquid,
+    the library's default in water): the run solves the same column with Henry's law beside it;
+    both close their balances (the solver's limits 1e-9 and 1e-7), and the bisulfite takes more
+    SO2 than physical solubility alone."""
     from traywise.report.outputs import write_outputs
     from traywise.run import run_case
 
-    case = parse_case(demo_with('[component."sulfur dioxide"]\nequilibrium = "electrolyte"\n'), FILE)
+    case = parse_case(DEMO.read_text(), FILE)
+    names = case.model.names
+    assert [case.model.equilibrium[names.index(n)] for n in ("sulfur dioxide", "carbon dioxide")] == [
+        "electrolyte", "electrolyte"]
     run = run_case(case)
     assert run.physical_henry is not None
-    i = case.model.names.index("sulfur dioxide")
+    i = names.index("sulfur dioxide")
     assert run.solution.fraction_absorbed[i] > run.physical_henry.fraction_absorbed[i]
     for solution in (run.solution, run.physical_henry):
         assert np.max(solution.convergence.component_closure) < 1e-9
@@ -109,3 +119,6 @@ def test_the_acid_gas_demo_on_the_electrolyte_liquid_shows_itself_with_and_witho
     write_outputs(tmp_path / "out", run, plots=False)
     report = (tmp_path / "out" / "report.md").read_text()
     assert "## With and without the electrolyte liquid" in report
+    assert "physical Henry's law (same column)" in report and "electrolyte liquid (this run)" in report
+    with_henry = json.loads((tmp_path / "out" / "results.json").read_text())["electrolyte"]["with_henry"]
+    assert with_henry["max_component_closure"] < 1e-9 and with_henry["energy_closure"] < 1e-7

@@ -208,6 +208,9 @@ solvent = "water"
 [component.methanol]
 equilibrium = "raoult"
 
+[component.ammonia]
+equilibrium = "henry"             # the gas physical, as the model below is checked for
+
 [liquid_model]
 activity = "nrtl"
 source = "invented for the tests"

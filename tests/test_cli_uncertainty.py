@@ -24,6 +24,8 @@ def test_uncertainty_writes_its_folder_and_says_how_sure(tmp_path):
     result = CliRunner().invoke(main, ["uncertainty", str(path), "--out", str(out), "--processes", "1"])
     assert result.exit_code == 0, result.output
     assert "with 90 % confidence" in result.output
+    # the demo's acid gases are on the electrolyte liquid (the default in water), whose constants are not sampled
+    assert "the aqueous electrolyte liquid of sulfur dioxide and carbon dioxide" in result.output
     record = json.loads((out / "uncertainty.json").read_text(encoding="utf-8"))
     assert record["software"]["name"] == "traywise" and record["samples"] == 12 and record["seed"] == 3
     assert record["statement"].startswith("With the property data as uncertain as their sources state, sulfur dioxide")

@@ -17,6 +17,13 @@ def test_library_table_has_one_line_per_component():
     for component, line in zip(COMPONENTS, lines[1:]):
         assert line.startswith(component.name) and component.cas in line and line.endswith(component.equilibrium)
         assert f"{1000 * component.molar_mass.value:.4f}" in line  # g/mol
+        assert ("electrolyte in water, else henry" in line) == (component.equilibrium_in_water == "electrolyte")
+
+
+def test_sheet_names_the_default_in_water_and_with_another_solvent():
+    sheet = component_sheet(next(c for c in COMPONENTS if c.name == "ammonia"))
+    assert "default equilibrium model with water as solvent: electrolyte; with another solvent: henry" in sheet
+    assert "default equilibrium model: henry" in component_sheet(next(c for c in COMPONENTS if c.name == "nitrogen"))
 
 
 @pytest.mark.parametrize("component", COMPONENTS, ids=[c.name for c in COMPONENTS])

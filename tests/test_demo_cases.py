@@ -66,11 +66,16 @@ def demo_run(request, tmp_path_factory):
 def test_demo_runs_and_writes_every_output(demo_run):
     _, folder, result = demo_run
     assert "Results written to" in result.stdout
-    sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
-    figures = FIGURES
-    if strict_json(folder / "results.json")["electrolyte"] is not None:
-        # the pH profile; the electrolyte demos' key solute is all absorbed, so no x-y diagram (the report says why)
-        figures = FIGURES - {"xy_diagram.png"} | {"ph_profile.png"}
+    record = strict_json(folder / "results.json")
+    sized = SIZED_FILES if record["sizing"] is not None else set()
+    figures = set(FIGURES)
+    if record["electrolyte"] is not None:  # the pH profile
+        figures |= {"ph_profile.png"}
+    comparison = record["isothermal_comparison"]
+    if comparison is None or comparison["theoretical_stages_isothermal"] is None:
+        # no isothermal design to step (e.g. the key solute all absorbed): no x-y diagram, the report says why
+        figures -= {"xy_diagram.png"}
+        assert "No x-y diagram" in (folder / "report.md").read_text(encoding="utf-8")
     assert {p.name for p in folder.iterdir()} == ({"results.json", "stages.csv", "report.md", "report.html",
                                                   ".traywise-results"} | figures | sized)
     assert not [p for p in folder.parent.iterdir() if p.name.startswith(".")]  # no temporary folder left
@@ -171,7 +176,9 @@ def test_table_demo_absorbs_more_than_henrys_law_says(tmp_path):
 
     case = REPOSITORY / "cases" / "sulfur-dioxide-plant-table.toml"
     text = case.read_text(encoding="utf-8")
-    henry_text = text[: text.index('\n[component."sulfur dioxide"]\n')] + text[text.index("\n[gas_feed]\n") :]
+    henry_text = (text[: text.index('\n[component."sulfur dioxide"]\n')]
+                  + '\n[component."sulfur dioxide"]\nequilibrium = "henry"\n'  # the library's constant, physical
+                  + text[text.index("\n[gas_feed]\n") :])
     absorbed = []
     for written in (text, henry_text):
         parsed = parse_case(written, case.name)
@@ -202,11 +209,16 @@ def test_entry_point_runs_a_demo_in_a_fresh_process(tmp_path):
                               capture_output=True, text=True, check=False)
     assert finished.returncode == 0, finished.stderr
     folder = tmp_path / "solvent-recovery-dryer-air-results"
-    sized = SIZED_FILES if strict_json(folder / "results.json")["sizing"] is not None else set()
-    figures = FIGURES
-    if strict_json(folder / "results.json")["electrolyte"] is not None:
-        # the pH profile; the electrolyte demos' key solute is all absorbed, so no x-y diagram (the report says why)
-        figures = FIGURES - {"xy_diagram.png"} | {"ph_profile.png"}
+    record = strict_json(folder / "results.json")
+    sized = SIZED_FILES if record["sizing"] is not None else set()
+    figures = set(FIGURES)
+    if record["electrolyte"] is not None:  # the pH profile
+        figures |= {"ph_profile.png"}
+    comparison = record["isothermal_comparison"]
+    if comparison is None or comparison["theoretical_stages_isothermal"] is None:
+        # no isothermal design to step (e.g. the key solute all absorbed): no x-y diagram, the report says why
+        figures -= {"xy_diagram.png"}
+        assert "No x-y diagram" in (folder / "report.md").read_text(encoding="utf-8")
     assert {p.name for p in folder.iterdir()} == ({"results.json", "stages.csv", "report.md", "report.html",
                                                   ".traywise-results"} | figures | sized)
     missing = subprocess.run(traywise_command() + ["run", "missing.toml"], cwd=tmp_path, env=env,

@@ -19,6 +19,7 @@ from ..properties.inline import (
 from ..properties.library import find_component, library
 from ..properties.model import PropertyModel
 from .equilibrium_tables import TABLE_KEYS, default_table_solvent, read_equilibrium_table
+from .in_water import in_water_defaults
 from .liquid_model import read_liquid_model
 from .reader import Section, suggestion, where
 from .units import UnitProblem, quantity
@@ -97,7 +98,7 @@ def read_components(top):
         if name not in names:
             tables.fail(name, f"'{name}' is not listed in components = {names}; add it there or correct the name"
                         f"{suggestion(name, names)}")
-    components, echo, concentration, library_henry, warnings, table_sections = [], [], [], [], [], {}
+    components, readers, concentration, warnings, table_sections = [], [], [], [], {}
     for i, name in enumerate(names):
         section = tables.table(name, COMPONENT_KEYS) if name in tables.data else None
         base = _library_component(name)
@@ -111,19 +112,20 @@ def read_components(top):
             if other.name == component.name:
                 top.fail(f"components[{i}]", f"'{name}' is the same component as components[{j}] ('{names[j]}')")
         components.append(component)
-        echo.append(reader.echo(component))
+        readers.append(reader)
         if reader.table_section is not None:
             table_sections[i] = reader.table_section
         warnings.extend(reader.warnings)
         if reader.concentration_form:
             concentration.append(component.name)
-        if component.equilibrium in ("henry", "activity") and base is not None and (
-                component.henry_in_water is base.henry_in_water):
-            library_henry.append(component.name)
     if len(components) < 2:
         top.fail("components", f"found {names}; a case needs at least a solvent and one gas component")
-    equilibrium_tables = {}
     solvent = default_table_solvent(top, components)
+    components = in_water_defaults(components, readers, solvent)
+    library_henry = [c.name for c, r in zip(components, readers) if c.equilibrium in ("henry", "activity")
+                     and r.base is not None and c.henry_in_water is r.base.henry_in_water]
+    echo = [reader.echo(component) for reader, component in zip(readers, components)]
+    equilibrium_tables = {}
     for i, section in table_sections.items():
         equilibrium_tables[components[i].name], echo[i]["given_in_case"]["equilibrium_table"] = read_equilibrium_table(
             section, i, components, solvent)
@@ -157,6 +159,7 @@ class _ComponentReader:
         self.warnings = []
         self.concentration_form = False
         self.table_section = None  # the equilibrium_table Section of a 'table' component
+        self.in_water_default = False  # the model is the library's default with water as solvent
 
     def has(self, key):
         return key in self.section
@@ -386,6 +389,8 @@ class _ComponentReader:
             "equilibrium": component.equilibrium,
             "molar_mass_kg_per_mol": component.molar_mass.value,
         }
+        if self.in_water_default:
+            entry["equilibrium_from"] = "the library's default with water as the solvent"
         if self.given:
             entry["given_in_case"] = dict(self.given)
         return entry

@@ -10,7 +10,8 @@ Each run also rewrites binary/peng-robinson-kij.toml for the component files in 
 Each file names, per value, the library that shipped it and the publication behind it; see
 ``traywise.databank.tables`` for the choices and checks. Default equilibrium model with water as
 solvent: 'raoult' for water, 'henry' for every component Sander's compilation covers (gases, and
-organic solutes in water), else 'raoult'. Liquid data (vapour pressure, heat of vaporisation,
+organic solutes in water), else 'raoult'; the five gases of the aqueous electrolyte liquid (NH3,
+CO2, H2S, SO2, HCl) add equilibrium_in_water = 'electrolyte'. Liquid data (vapour pressure, heat of vaporisation,
 liquid heat capacity, melting point) are added for components that are liquid at 25 degC
 (melting point below and normal boiling point above 298.15 K), so a case may choose 'raoult' for them.
 """
@@ -41,6 +42,10 @@ FORMULAS = {
     "7446-09-5": "SO2", "7664-41-7": "NH3", "7647-01-0": "HCl", "7783-06-4": "H2S",
     "67-64-1": "CH3COCH3", "67-56-1": "CH3OH", "64-17-5": "C2H5OH", "108-88-3": "C6H5CH3", "1310-73-2": "NaOH",
 }
+# The gases the aqueous electrolyte liquid treats as solutes (traywise.properties.electrolyte: they
+# dissociate, or ionise completely, and react with each other in water); their files name
+# 'electrolyte' as the model with water as the solvent, their own 'henry' for other solvents.
+ELECTROLYTES_IN_WATER = ("7664-41-7", "124-38-9", "7783-06-4", "7446-09-5", "7647-01-0")
 ALIASES = {
     "7446-09-5": ["sulphur dioxide"], "7783-06-4": ["hydrogen sulphide"], "67-64-1": ["propanone"],
     "67-56-1": ["methyl alcohol"], "64-17-5": ["ethyl alcohol"], "7440-37-1": ["Ar"],
@@ -102,6 +107,8 @@ def build_component(text):
     if aliases:
         identity["aliases"] = aliases
     identity["equilibrium"] = equilibrium
+    if cas in ELECTROLYTES_IN_WATER:
+        identity["equilibrium_in_water"] = "electrolyte"
     sources = {}
     for table in found.values():
         sources.update(table.sources)

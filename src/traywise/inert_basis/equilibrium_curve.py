@@ -15,7 +15,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from ..errors import InputError
+from ..errors import InputError, PropertyRangeError
 
 
 @dataclass(frozen=True)
@@ -43,6 +43,8 @@ class ConstantKEquilibrium:
 
 
 ESTIMATE_POINTS = 4097  # liquid compositions tabulated for MixtureEquilibrium.liquid_ratio_estimate
+MINIMUM_TABLE_TOP = 1e-3  # smallest top mole fraction of that table before a model's refusal stands
+PROBE_POINTS = 65  # compositions of the coarse probe for that top (a refusal costs little on few)
 
 
 @dataclass(frozen=True, eq=False)
@@ -82,8 +84,17 @@ class MixtureEquilibrium:
         a table of the curve over every liquid composition, built on first use: a start for an
         exact root finder, which then needs a few evaluations instead of dozens."""
         if "table" not in self._remembered:
-            x = np.linspace(0.0, 1.0, ESTIMATE_POINTS)[:-1]  # mole fraction of the key
-            gas = self._evaluate(x / (1.0 - x))
+            top = 1.0  # highest mole fraction of the key tabulated: halved while the model refuses it
+            for points in (PROBE_POINTS, ESTIMATE_POINTS):  # a coarse probe finds it cheaply first
+                while True:
+                    x = np.linspace(0.0, top, points)[:-1]  # mole fraction of the key
+                    try:
+                        gas = self._evaluate(x / (1.0 - x))
+                        break
+                    except PropertyRangeError:  # e.g. the aqueous electrolyte liquid far beyond its range
+                        top *= 0.5
+                        if top < MINIMUM_TABLE_TOP:
+                            raise
             with np.errstate(invalid="ignore"):  # Y* is infinite where y* reaches 1
                 rising = np.concatenate([[True], np.diff(gas) > 0.0]) & np.isfinite(gas)
             self._remembered["table"] = (gas[rising], (x / (1.0 - x))[rising])

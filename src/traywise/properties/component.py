@@ -29,6 +29,9 @@ EQUILIBRIUM_KINDS = ("henry", "raoult", "nonvolatile", "insoluble")  # a compone
 # (an activity model of the liquid, an equilibrium table, the other members of the aqueous
 # electrolyte liquid), so they are chosen per case.
 MODEL_KINDS = EQUILIBRIUM_KINDS + ("activity", "table", "eos", "electrolyte")
+# Models a library file may name as its component's default with water as the solvent
+# (``equilibrium_in_water``): models that need nothing the case has to state.
+IN_WATER_KINDS = ("electrolyte",)
 # What each equilibrium model needs of a component: the Component attributes that must not be
 # None (an activity model or an equilibrium table, needed too, belongs to the case, not here).
 MODEL_NEEDS = {
@@ -155,8 +158,10 @@ class Quantity:
 class Component:
     """Identity and property data of one component (SI units).
 
-    ``equilibrium`` is the default phase-equilibrium model when the component takes part in a
-    column with water as solvent: 'henry' for gases, 'raoult' for solvents and condensables.
+    ``equilibrium`` is the component's own phase-equilibrium model, which needs only its data:
+    'henry' for gases, 'raoult' for solvents and condensables. ``equilibrium_in_water``, or None,
+    is the model a case gives it instead when water is the solvent (``case.components``):
+    'electrolyte' for the gases that dissociate or react in water.
     ``sources`` maps each source key used by a property to its full citation.
     """
 
@@ -167,6 +172,7 @@ class Component:
     ideal_gas_cp: HeatCapacity
     equilibrium: str
     aliases: tuple = ()
+    equilibrium_in_water: str | None = None
     liquid_cp: HeatCapacity | None = None
     vapour_pressure: VapourPressure | None = None
     heat_of_vaporisation: Quantity | None = None  # J/mol at its temperature

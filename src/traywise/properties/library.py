@@ -11,7 +11,16 @@ from importlib import resources
 from pathlib import Path
 
 from ..errors import ComponentDataError
-from .component import EQUILIBRIUM_KINDS, HENRY_FORMS, Component, HeatCapacity, HenryConstant, Quantity, VapourPressure
+from .component import (
+    EQUILIBRIUM_KINDS,
+    HENRY_FORMS,
+    IN_WATER_KINDS,
+    Component,
+    HeatCapacity,
+    HenryConstant,
+    Quantity,
+    VapourPressure,
+)
 
 HEAT_CAPACITY_FORMS = ("stable_polynomial", "polynomial")
 VAPOUR_PRESSURE_FORMS = {"iapws_if97": (), "dippr101": ("a", "b", "c", "d", "e")}
@@ -157,6 +166,9 @@ class _FileReader:
         equilibrium = self.text("equilibrium")
         if equilibrium not in EQUILIBRIUM_KINDS:
             self.fail("equilibrium", f"must be one of {EQUILIBRIUM_KINDS}, found {equilibrium!r}")
+        in_water = self.data.get("equilibrium_in_water")
+        if in_water is not None and in_water not in IN_WATER_KINDS:
+            self.fail("equilibrium_in_water", f"must be one of {IN_WATER_KINDS} (or absent), found {in_water!r}")
         notes = {k: v["note"] for k, v in self.data.items() if isinstance(v, dict) and "note" in v}
         component = Component(
             name=self.text("name"),
@@ -164,6 +176,7 @@ class _FileReader:
             cas=self.text("cas"),
             aliases=tuple(self.data.get("aliases", ())),
             equilibrium=equilibrium,
+            equilibrium_in_water=in_water,
             molar_mass=self.quantity("molar_mass", "kg/mol", required=True),
             ideal_gas_cp=self.heat_capacity("ideal_gas_cp", required=True),
             liquid_cp=self.heat_capacity("liquid_cp"),

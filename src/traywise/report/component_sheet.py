@@ -16,8 +16,15 @@ WIDTH = 100
 
 def library_table(components):
     """One line per component: name, formula, CAS number, molar mass [g/mol], default equilibrium."""
-    rows = [(c.name, c.formula, c.cas or "-", f"{1000.0 * c.molar_mass.value:.4f}", c.equilibrium) for c in components]
+    rows = [(c.name, c.formula, c.cas or "-", f"{1000.0 * c.molar_mass.value:.4f}", default_models(c)) for c in components]
     return text_table(("component", "formula", "CAS", "molar mass [g/mol]", "equilibrium"), rows)
+
+
+def default_models(component):
+    """The library's default equilibrium model: 'henry', or 'electrolyte in water, else henry'."""
+    if component.equilibrium_in_water:
+        return f"{component.equilibrium_in_water} in water, else {component.equilibrium}"
+    return component.equilibrium
 
 
 def component_sheet(component):
@@ -26,7 +33,11 @@ def component_sheet(component):
     lines = [title, "=" * len(title)]
     if component.aliases:
         lines.append(f"also called: {', '.join(component.aliases)}")
-    lines.append(f"default equilibrium model with water as solvent: {component.equilibrium}")
+    if component.equilibrium_in_water:
+        lines.append(f"default equilibrium model with water as solvent: {component.equilibrium_in_water}; "
+                     f"with another solvent: {component.equilibrium}")
+    else:
+        lines.append(f"default equilibrium model: {component.equilibrium}")
     lines.append(f"data from: {component.origin}")
     for key, heading, body, source in _properties(component):
         lines += ["", heading]

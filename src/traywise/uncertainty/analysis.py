@@ -133,6 +133,10 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     tables = [name for name, kind in zip(model.names, model.equilibrium) if kind == "table"]
     if tables:
         sentence = f"{sentence[:-1]}; the equilibrium table of {' and '.join(tables)} is not sampled."
+    electrolytes = [name for name, kind in zip(model.names, model.equilibrium) if kind == "electrolyte"]
+    if electrolytes:  # its constants and Pitzer parameters come from components/electrolyte/, unsampled
+        sentence = (f"{sentence[:-1]}; the aqueous electrolyte liquid of {' and '.join(electrolytes)} (its Henry's, "
+                    "dissociation and Pitzer constants) is not sampled.")
     return UncertaintyResult(inputs, tuple(correlations), seed, n_samples, engine, scores, factors, job.outputs,
                              np.array(nominal, dtype=float), data, converged, tuple(r[2] for r in results),
                              summaries, design_output, model.names[key], sentence, seconds)
