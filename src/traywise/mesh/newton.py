@@ -11,7 +11,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..errors import ConvergenceError, UnphysicalSolution
+from ..errors import ConvergenceError, PropertyRangeError, UnphysicalSolution
 from .balances import build_solution
 from .banded import BandedSystem
 from .equations import StageEquations
@@ -31,6 +31,7 @@ class SolverSettings:
     max_flow_shrink : a flow may fall to at most this fraction of its old value in one step
     max_temperature_step : largest temperature change in one step [K]
     max_growth : a step that multiplies the RMS scaled residual by more than this is rejected
+        (so is one whose state the property model refuses with PropertyRangeError)
     polish_steps : Newton steps taken past the tolerance while each still reduces the residual
         tenfold (so that balances summed over many stages close to 1e-9)
     rounding_level : no polish step is taken from a residual below this: the rounding error
@@ -53,7 +54,8 @@ class SolverSettings:
 
 
 def solve_column(column, model, *, settings=SolverSettings(), start=None):
-    """Solve the column; return a ``ColumnSolution`` or raise ``ConvergenceError``.
+    """Solve the column; return a ``ColumnSolution`` or raise ``ConvergenceError`` (also when
+    the property model refused every starting estimate: its message is kept in the reason).
 
     Parameters
     ----------
@@ -66,8 +68,12 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
     The automatic estimates 'hot', then 'linear' (see start.py) follow the warm start. The
     first start iterates alone for ``settings.solo_iterations``; if it has not converged by
     then, all starts iterate in turn and the first to converge wins (an estimate that cannot be
-    built is skipped). Neither estimate is best everywhere: 'hot' suits pinched, heat-bulged
-    columns, 'linear' columns whose absorption front sits at the bottom. On the 200 generated
+    built, or whose state the property model refuses, is skipped). A trial state the model
+    refuses (PropertyRangeError, e.g. an aqueous speciation that does not converge at an extreme
+    temperature) is a rejected step, as one whose residual grew: 1/dt is raised tenfold and the
+    iteration goes on; the converged state is always one the model evaluated cleanly. Neither
+    estimate is best everywhere: 'hot' suits pinched, heat-bulged columns, 'linear' columns
+    whose absorption front sits at the bottom. On the 200 generated
     hard cases of tests/benchmarks (Newton steps counted): 'hot' alone converges on all, in at
     most 37; 'linear' alone fails on 4; taking turns after 12 solo steps needed median 7, max
     63, after 20 solo steps median 7, max 55 (the setting kept: the race is the safety net,
@@ -88,28 +94,46 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
                 starts.remove(make)
                 try:
                     runs.append(_iterations(equations, linear, *make(), settings))
-                except ConvergenceError as failure:  # no estimate (properties not finite)
-                    last = last or failure
+                except (ConvergenceError, PropertyRangeError) as failure:  # no estimate
+                    last = _telling(last, failure, ties=False)
             continue
         run = runs[turn % len(runs)]
         try:
             for _ in range(settings.solo_iterations - total if total < settings.solo_iterations else 1):
                 x, props, norm, done = next(run)
                 if done:
-                    return build_solution(equations, x, total, norm, settings.tolerance, props)
+                    break
                 total += 1
-            turn += 1
-        except ConvergenceError as failure:
+        except (ConvergenceError, PropertyRangeError) as failure:  # the latter: the model refused the estimate
             runs.remove(run)
-            if not isinstance(last, UnphysicalSolution):  # a state refused says more than a non-convergence
-                last = failure
+            last = _telling(last, failure, ties=True)
+            continue
+        if done:  # outside the handler: a converged state that does not evaluate cleanly is an error
+            return build_solution(equations, x, total, norm, settings.tolerance, props)
+        turn += 1
+    if isinstance(last, PropertyRangeError):  # every estimate refused: no start, as for K not finite
+        raise ConvergenceError(f"no starting estimate the property model accepts: {last}", iterations=total,
+                               residual=np.inf) from last
     raise type(last)(last.reason, iterations=total, residual=last.residual, stage=last.stage)
+
+
+def _telling(last, failure, ties):
+    """The failure to report of the one so far (``last``, or None) and a new one: a state refused
+    (UnphysicalSolution) over a non-convergence over the property model refusing an estimate
+    (PropertyRangeError); on a tie the new one when ``ties`` (a run's end), else the first."""
+    def rank(error):
+        if error is None:
+            return 0
+        return 3 if isinstance(error, UnphysicalSolution) else 2 if isinstance(error, ConvergenceError) else 1
+
+    return failure if rank(failure) > rank(last) or (ties and rank(failure) == rank(last)) else last
 
 
 def _iterations(equations, linear, x, props, settings):
     """Generator of iterates: yields (x, properties at x, max-norm, converged) after each Newton
     step (one factorisation each) and, without a step, once converged; raises ConvergenceError
-    after ``settings.max_iterations`` steps. ``linear`` is the column's BandedSystem; ``props``
+    after ``settings.max_iterations`` steps (PropertyRangeError when the model refuses x itself,
+    a trial state it refuses is a rejected step). ``linear`` is the column's BandedSystem; ``props``
     the stage properties at x when known (else None)."""
     rows = equations.row_scale_vector
     blocks = equations.empty_jacobian()
@@ -129,8 +153,11 @@ def _iterations(equations, linear, x, props, settings):
         shift = 0.0 if dt >= settings.newton_time_step else 1.0 / dt
         step = linear.solve(equations.jacobian(x, props, out=blocks), -f, shift)
         x_new = _limited(x, step, equations.n, settings)
-        f_new, props_new = _residual(equations, x_new)
-        norm_new, size_new = _norms(f_new, rows)
+        try:
+            f_new, props_new = _residual(equations, x_new)
+            norm_new, size_new = _norms(f_new, rows)
+        except PropertyRangeError:  # the model refuses the trial state: rejected as if it had diverged
+            size_new = np.inf
         if not np.isfinite(size_new) or size_new > settings.max_growth * size:
             dt = 0.1 / shift if shift else settings.initial_time_step
         else:

@@ -19,7 +19,9 @@ the top to gas temperature at the bottom) is the fallback.
 Each estimate costs one property evaluation ('linear') or two ('hot': the first takes the
 stages at the solvent temperature and a temperature grid, off which the hot-zone balance and the
 solvent's bubble point are read). An estimate whose properties are not finite
-(feeds far outside any correlation's range) is refused with ``ConvergenceError``.
+(feeds far outside any correlation's range) is refused with ``ConvergenceError``; one the
+property model refuses raises the model's ``PropertyRangeError`` (the solver then tries the
+other estimates).
 """
 
 import numpy as np
