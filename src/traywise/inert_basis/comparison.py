@@ -26,6 +26,7 @@ import numpy as np
 from ..errors import PinchError, TraywiseError
 from .design import inert_basis_design
 from .equilibrium_curve import mole_ratio_equilibrium
+from .tabulated_curve import stepping_equilibrium
 from .lewis import stage_equivalent
 from .verdict import CELSIUS, SAME_TEMPERATURE, STAGE_TOLERANCE, ProfileMeasures, judge, tolerance_text
 
@@ -155,17 +156,17 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None, units=C
     reason = _not_applicable(key, fraction)
     temperatures = (("solvent inlet", temperature), ("mean liquid", float(np.mean(solution.temperature))),
                     ("hottest stage", float(solution.temperature.max())))
-    bracket, design = [], None
+    bracket, design, curves = [], None, _Curves(model, common)
     for label, t in temperatures:
         if bracket and abs(t - temperature) < SAME_TEMPERATURE:
             bracket.append(IsothermalPoint(label, t, bracket[0].stages, bracket[0].reason, bracket[0].pinched))
             continue
-        point, found = _design_at(model, key, fraction, reason, label, t, common)
+        point, found = _design_at(model, key, fraction, reason, label, t, common, curves)
         bracket.append(point)
         design = found if design is None and label == "solvent inlet" else design
     reason = bracket[0].reason
     indices = [names.index(name) for name in solutes] if solutes is not None else _solute_indices(solution, solvent_index)
-    compared = tuple(_solute(solution, model, i, stages, solvent_index, dict(common, temperature=temperature))
+    compared = tuple(_solute(solution, model, i, stages, solvent_index, dict(common, temperature=temperature), curves)
                      for i in indices)
     measures = _measures(solution, model, key, solvent_index, temperature, pressure, design)
     direction, causes, verdict = judge(key, stages, tuple(bracket), measures, reason, pinched=bracket[0].pinched,
@@ -177,12 +178,31 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None, units=C
     )
 
 
-def _design_at(model, key, fraction, reason, label, temperature, common):
+class _Curves:
+    """The key solutes' curves Y*(X) for stepping (``stepping_equilibrium``) at the column's
+    pressure and solvent, each built once per (solute, temperature): the solvent-inlet design and
+    the rating of the same solute share one."""
+
+    def __init__(self, model, common):
+        self.model, self.common, self.built = model, common, {}
+
+    def __call__(self, name, temperature):
+        if (name, temperature) not in self.built:
+            gas = np.asarray(self.common["gas_flows"], dtype=float)
+            i = self.model.component_index(name)
+            self.built[name, temperature] = stepping_equilibrium(
+                self.model, name, temperature=temperature, pressure=self.common["pressure"],
+                solvent_mole_fractions=self.common["solvent_flows"], highest_gas_ratio=gas[i] / (gas.sum() - gas[i]))
+        return self.built[name, temperature]
+
+
+def _design_at(model, key, fraction, reason, label, temperature, common, curves):
     """(IsothermalPoint, design or None) of the rigorous removal at one temperature."""
     if reason is not None:
         return IsothermalPoint(label, temperature, None, reason), None
     try:
-        design = inert_basis_design(model, key, target_fraction_absorbed=fraction, temperature=temperature, **common)
+        design = inert_basis_design(model, key, target_fraction_absorbed=fraction, temperature=temperature,
+                                    equilibrium=curves(key, temperature), **common)
     except PinchError:
         why = f"the isothermal design cannot reach the rigorous removal of {key} at all (pinch)"
         return IsothermalPoint(label, temperature, None, why, pinched=True), None
@@ -211,14 +231,15 @@ def _solute_indices(solution, solvent_index):
     return [i for i in range(len(absorbed)) if i != solvent_index and np.isfinite(absorbed[i]) and absorbed[i] > MIN_ABSORBED]
 
 
-def _solute(solution, model, i, stages, solvent_index, common):
+def _solute(solution, model, i, stages, solvent_index, common, curves):
     name = solution.component_names[i]
     gas_out = solution.gas_out
     rigorous_y = float(gas_out[i] / (gas_out.sum() - gas_out[solvent_index]))
     try:
         # stepped from the bottom: Y*(X) is evaluated directly, never inverted (one property
         # evaluation a stage); for a whole number of stages both ends give the same outlet
-        rating = inert_basis_design(model, name, n_stages=stages, start="bottom", **common)
+        rating = inert_basis_design(model, name, n_stages=stages, start="bottom",
+                                    equilibrium=curves(name, common["temperature"]), **common)
     except TraywiseError:  # pinched, no outlet found for a barely absorbed gas, or a curve that cannot be stepped
         return SoluteComparison(name, rigorous_y, None, float(solution.fraction_absorbed[i]), None)
     solute = rating.gas_ratio_out * rating.inert_gas_flow

@@ -29,6 +29,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from .equilibrium_curve import ConstantKEquilibrium, MixtureEquilibrium, mole_ratio_equilibrium
+from .tabulated_curve import TabulatedEquilibrium, stepping_equilibrium
 from ..column import actual_trays
 from ..errors import InputError
 from .stepping import StageStepping, minimum_liquid_to_gas_ratio, outlet_for_stages, step_stages
@@ -115,7 +116,8 @@ def inert_basis_design(
     target_fraction_absorbed : float       0 < f < 1 [-]; give this or ``n_stages``
     n_stages : float                       Theoretical stages N > 0, fractional allowed [-]
     overall_efficiency : float, optional   0 < E <= 1; actual trays = ceil(N / E) [-]
-    equilibrium : callable, optional       Y*(X) replacing the model's curve [mol/mol]
+    equilibrium : callable, optional       Y*(X) replacing the model's curve [mol/mol]; without
+        it ``stepping_equilibrium`` at temperature and pressure
     start : str                            'top' or 'bottom', see ``step_stages``
 
     Returns
@@ -143,12 +145,14 @@ def inert_basis_design(
         raise InputError("gas_flows", f"expected some {key} and some inert carrier, found {gas_flows!r}")
     if inert_solvent <= 0.0:
         raise InputError("solvent_flows", f"expected some solvent besides {key}, found {solvent_flows!r}")
-    if equilibrium is None:
-        equilibrium = mole_ratio_equilibrium(
-            model, key, temperature=temperature, pressure=pressure, solvent_mole_fractions=solvent
-        )
-    k_value = equilibrium.k_value if isinstance(equilibrium, (ConstantKEquilibrium, MixtureEquilibrium)) else None
     ratio, gas_in, liquid_in = inert_solvent / inert_gas, gas[i] / inert_gas, solvent[i] / inert_solvent
+    if equilibrium is None:
+        equilibrium = stepping_equilibrium(
+            model, key, temperature=temperature, pressure=pressure, solvent_mole_fractions=solvent,
+            highest_gas_ratio=gas_in,
+        )
+    known = (ConstantKEquilibrium, MixtureEquilibrium, TabulatedEquilibrium)
+    k_value = equilibrium.k_value if isinstance(equilibrium, known) else None
     if n_stages is None:
         if not 0.0 < target_fraction_absorbed < 1.0:
             raise InputError("target_fraction_absorbed", f"expected 0 < f < 1, found {target_fraction_absorbed!r}")

@@ -103,13 +103,30 @@ class MixtureEquilibrium:
 
     def _evaluate(self, ratio):
         """Y*(X) at the mole ratios ``ratio`` [mol/mol], flattened."""
-        x = (ratio / (1.0 + ratio)).reshape(-1)
+        return self.evaluate_with_slope(ratio)[0]
+
+    def evaluate_with_slope(self, ratio):
+        """Y*(X) [mol/mol] and its logarithmic slope d ln Y*/d ln X [-] at the mole ratios
+        ``ratio`` (flattened), from one property evaluation.
+
+        With x = X / (1 + X), y = K x and D = d ln K/dx along the curve's liquid (the model's
+        d ln K/dx_j times the direction e_key - solvent):
+        d ln Y*/d ln X = (1 - x)(1 + x D) / (1 - y); infinite Y* has a NaN slope.
+        """
+        x = (np.asarray(ratio, dtype=float) / (1.0 + np.asarray(ratio, dtype=float))).reshape(-1)
         liquid = (1.0 - x)[:, None] * self.solvent
         liquid[:, self.index] += x
         n = x.size
-        y = self.model.evaluate(np.full(n, self.temperature), np.full(n, self.pressure), liquid).k[:, self.index] * x
-        with np.errstate(divide="ignore"):
-            return np.where(y < 1.0, y / (1.0 - y), np.inf)
+        state = self.model.evaluate(np.full(n, self.temperature), np.full(n, self.pressure), liquid)
+        y = state.k[:, self.index] * x
+        direction = -self.solvent.copy()
+        direction[self.index] += 1.0
+        along = state.dlnk_dx[:, self.index, :] @ direction
+        with np.errstate(divide="ignore", invalid="ignore"):
+            finite = y < 1.0
+            gas = np.where(finite, y / (1.0 - y), np.inf)
+            slope = np.where(finite, (1.0 - x) * (1.0 + x * along) / (1.0 - y), np.nan)
+        return gas, slope
 
 
 def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fractions=None):
