@@ -79,7 +79,7 @@ def test_every_starting_estimate_refused_is_a_convergence_error_with_the_model_m
     with pytest.raises(ConvergenceError) as failure:
         solve_column(column, refusing)
     assert "no starting estimate the property model accepts" in str(failure.value) and REFUSAL in str(failure.value)
-    assert refusing.refused == 2  # both estimates ('hot', 'linear') were tried
+    assert refusing.refused == 3  # every estimate ('hot', 'linear', then 'cold') was tried
 
 
 def test_a_refused_first_estimate_leaves_the_second_to_converge():
@@ -118,3 +118,22 @@ def test_hot_gas_on_the_electrolyte_liquid_converges_past_refused_trial_points(t
     component, energy = recomputed_closure(solution, case.model)
     assert np.all(component < 1e-9) and energy < 1e-7
     assert solution.temperature.max() < 423.15  # the liquid below the gas inlet temperature
+
+
+def test_a_hot_gas_over_little_water_starts_from_the_cold_estimate(tmp_path, monkeypatch):
+    """The starter case's gas at 150 degC over 5000 kg/h of water (invented numbers): the 'hot'
+    and 'linear' estimates leave the hot stages' liquid almost without water, which the aqueous
+    electrolyte liquid (ammonia's default in water) refuses; from 'cold' the column converges,
+    with liquid water left at the bottom and the gas's heat in it."""
+    from traywise.api import solve
+
+    text = replace_stream_value(starter_case(), "gas_feed", "temperature", '"150 degC"')
+    case_file = tmp_path / "hot.toml"
+    case_file.write_text(replace_stream_value(text, "solvent_feed", "flow", '"5000 kg/h"'), encoding="utf-8")
+    case = load_case(case_file)
+    result = solve(case)
+    assert result.liquid_out["water"].value > 0.0
+    assert result.stage_table()[-1]["temperature_K"] > 298.15 + 5.0  # warmed from the solvent's 25 degC
+    monkeypatch.setattr(newton, "FALLBACK_ORDER", ())
+    with pytest.raises(ConvergenceError, match="no starting estimate the property model accepts"):
+        solve(case)

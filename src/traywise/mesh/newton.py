@@ -18,6 +18,7 @@ from .equations import StageEquations
 from .start import estimate_with_properties
 
 START_ORDER = ("hot", "linear")
+FALLBACK_ORDER = ("cold",)  # built only when every start above is refused or has failed
 
 
 @dataclass(frozen=True)
@@ -65,7 +66,10 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
     start : ColumnSolution, optional   A solution of a similar column (same stage count and
         components) to start from (warm start).
 
-    The automatic estimates 'hot', then 'linear' (see start.py) follow the warm start. The
+    The automatic estimates 'hot', then 'linear' (see start.py) follow the warm start, and
+    'cold' when both are refused or have failed (a hot gas over little solvent: at the
+    estimates' hot stages the liquid holds almost no water, which the aqueous electrolyte
+    liquid refuses, while the column at the solvent temperature it accepts). The
     first start iterates alone for ``settings.solo_iterations``; if it has not converged by
     then, all starts iterate in turn and the first to converge wins (an estimate that cannot be
     built, or whose state the property model refuses, is skipped). A trial state the model
@@ -85,10 +89,13 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
         equations.jacobian_pattern(),
     )
     starts = [lambda profile=profile: estimate_with_properties(equations, profile) for profile in START_ORDER]
+    fallbacks = [lambda profile=profile: estimate_with_properties(equations, profile) for profile in FALLBACK_ORDER]
     if start is not None and start.n_stages == column.n_stages:
         starts.insert(0, lambda: (equations.join(start.vapour_flows, start.liquid_flows, start.temperature), None))
     runs, total, turn, last = [], 0, 0, None
-    while runs or starts:
+    while runs or starts or fallbacks:
+        if not runs and not starts:
+            starts.append(fallbacks.pop(0))
         if starts and (not runs or total >= settings.solo_iterations):  # estimates built lazily
             for make in starts[: 1 if total < settings.solo_iterations else len(starts)]:
                 starts.remove(make)

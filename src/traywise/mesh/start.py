@@ -14,9 +14,11 @@ bubble point: with little solvent for much heat the balance alone can put it hun
 higher, from where Newton loses the liquid (a generated case, 160 stages, L/G 0.3, 12 % solutes
 at up to 62 kJ/mol: 543 K estimated, no convergence; from the cap, 416 K (water boiling at the
 bottom's 3.9 bar), converged in 15). The 'linear' estimate (solvent temperature at
-the top to gas temperature at the bottom) is the fallback.
+the top to gas temperature at the bottom) is the fallback, and 'cold' (every stage at the
+solvent temperature) the last: with a hot gas over little solvent both others leave the hot
+stages' liquid almost without water, which the aqueous electrolyte liquid refuses.
 
-Each estimate costs one property evaluation ('linear') or two ('hot': the first takes the
+Each estimate costs one property evaluation ('linear', 'cold') or two ('hot': the first takes the
 stages at the solvent temperature and a temperature grid, off which the hot-zone balance and the
 solvent's bubble point are read). An estimate whose properties are not finite
 (feeds far outside any correlation's range) is refused with ``ConvergenceError``; one the
@@ -34,7 +36,7 @@ T_GRID = np.linspace(150.0, 700.0, 221)  # K, 2.5 K apart; where the hot-zone te
 
 
 def initial_estimate(equations, profile="hot"):
-    """Unknown vector (N*n,) for ``equations`` (a StageEquations); profile 'hot' or 'linear'."""
+    """Unknown vector (N*n,) for ``equations`` (a StageEquations); profile 'hot', 'linear' or 'cold'."""
     return estimate_with_properties(equations, profile)[0]
 
 
@@ -56,6 +58,8 @@ def _estimate(equations, profile):
         return _flows_at(equations, np.array(column.temperature, dtype=float))
     if profile == "linear":
         return _flows_at(equations, np.linspace(column.solvent.temperature, column.gas.temperature, column.n_stages))
+    if profile == "cold":
+        return _flows_at(equations, np.full(column.n_stages, column.solvent.temperature))
     # one evaluation for the stages at the solvent temperature and for the grid at the bottom pressure
     t = np.full(column.n_stages, column.solvent.temperature)
     with np.errstate(all="ignore"):  # the grid reaches far outside the correlations' ranges
