@@ -142,3 +142,16 @@ def test_a_looser_tolerance_needs_fewer_nodes():
     tight, loose = tabulate(exact, highest_gas_ratio=0.1), tabulate(exact, highest_gas_ratio=0.1, tolerance=1e-5)
     assert loose.ln_ratio.size < tight.ln_ratio.size
     assert TABLE_TOLERANCE < loose.error <= 1e-5
+
+
+def test_a_curve_with_a_jump_is_not_tabulated():
+    """A stand-in curve whose Y* jumps by 1 % at X = 1e-3: no cubic follows it within the
+    tolerance, so no table is offered (the stepping keeps the exact curve)."""
+
+    class Jumping:
+        def evaluate_with_slope(self, ratio):
+            ratio = np.asarray(ratio, dtype=float)
+            return 0.5 * ratio * np.where(ratio > 1e-3, 1.01, 1.0), np.ones_like(ratio)
+
+    with pytest.raises(PropertyRangeError, match="within"):
+        tabulate(Jumping(), highest_gas_ratio=0.01)

@@ -29,6 +29,7 @@ LOWEST_MOLE_FRACTION = 1e-14  # dilute end of the table; below it the model itse
 NODES_PER_DECADE = 16  # starting nodes per decade of X, before refinement
 MAX_PIECES = 16  # an interval off by more than the tolerance is split into at most this many
 SMALLEST_SPACING = 1e-6  # intervals in ln X are not split below this; their error is recorded
+ACCEPTED_ERROR = 10.0  # a table off by more than this many tolerances at that spacing is not used
 TOP_MARGIN = 2.0  # the table reaches the liquid in equilibrium with this multiple of the richest gas
 TOP_LADDER = (1e-6, 1e-5, 1e-4, 1e-3, 3e-3, 0.01, 0.03, 0.1, 0.2, 0.3, 0.45, 0.6, 0.8, 0.95)  # mole fractions probed
 DILUTE_RUNG = 0.01  # rungs up to here are asked together (the model accepts a dilute liquid)
@@ -129,12 +130,14 @@ def stepping_equilibrium(model, key, *, temperature, pressure, solvent_mole_frac
 def tabulate(exact, *, highest_gas_ratio=None, tolerance=TABLE_TOLERANCE):
     """A ``TabulatedEquilibrium`` of the ``MixtureEquilibrium`` ``exact``.
 
-    The nodes run from X at ``LOWEST_MOLE_FRACTION`` up to the liquid in equilibrium with
+    The nodes run from X at ``LOWEST_MOLE_FRACTION`` up to a liquid in equilibrium with at least
     ``TOP_MARGIN`` x ``highest_gas_ratio`` [mol/mol] (the gas entering a column: no stage of an
-    absorber holds a richer liquid), or when that is None or beyond it, to the highest mole
-    fraction of the key that the model accepts (halved while it refuses, as
-    ``PropertyRangeError``) with Y* finite and rising. Every interval whose midpoint is off by
-    more than ``tolerance`` (relative) is split.
+    absorber holds a liquid richer than the one in equilibrium with it), or when that is None or
+    out of reach, as far as the model answers with Y* finite and rising (``_highest_accepted``).
+    Every interval whose midpoint is off by more than ``tolerance`` (relative) is split, down to
+    ``SMALLEST_SPACING``. Raises ``PropertyRangeError`` when no table can be built or one stays
+    off by more than ``ACCEPTED_ERROR`` x ``tolerance`` (a curve with a jump): the caller then
+    keeps the exact curve.
     """
     top = _highest_accepted(exact, highest_gas_ratio)
     low, high = np.log(_ratio(LOWEST_MOLE_FRACTION)), np.log(_ratio(top))
@@ -145,6 +148,8 @@ def tabulate(exact, *, highest_gas_ratio=None, tolerance=TABLE_TOLERANCE):
     gas, slope = exact.evaluate_with_slope(np.exp(points))
     kept = _rising_prefix(gas, slope)
     kept -= 1 - kept % 2  # end on a node
+    if kept < 3:
+        raise PropertyRangeError("the equilibrium curve cannot be tabulated: Y* not finite and rising at its dilute end")
     u, v, s = points[:kept:2], np.log(gas[:kept:2]), slope[:kept:2]
     middle, middle_gas = points[1:kept:2], gas[1:kept:2]
     worst = 0.0  # largest midpoint error of the intervals kept
@@ -157,6 +162,9 @@ def tabulate(exact, *, highest_gas_ratio=None, tolerance=TABLE_TOLERANCE):
         coarse = (off > tolerance) & (width > 2.0 * SMALLEST_SPACING)
         worst = max(worst, float(np.max(off[~coarse], initial=0.0)))
         if not np.any(coarse):
+            if worst > ACCEPTED_ERROR * tolerance:
+                raise PropertyRangeError(f"the equilibrium curve cannot be tabulated within {tolerance:g} "
+                                         f"(off by {worst:.3g} at the finest spacing)")
             return TabulatedEquilibrium(exact, u, v, s, worst)
         # each coarse interval in k equal pieces, k from the error's fourth-power fall with spacing
         with np.errstate(over="ignore"):
