@@ -25,7 +25,6 @@ import numpy as np
 
 from ..errors import PinchError, TraywiseError
 from .design import inert_basis_design
-from .equilibrium_curve import mole_ratio_equilibrium
 from .tabulated_curve import stepping_equilibrium
 from .lewis import stage_equivalent
 from .verdict import CELSIUS, SAME_TEMPERATURE, STAGE_TOLERANCE, ProfileMeasures, judge, tolerance_text
@@ -168,7 +167,7 @@ def compare(solution, model, key=None, *, solvent_index=0, solutes=None, units=C
     indices = [names.index(name) for name in solutes] if solutes is not None else _solute_indices(solution, solvent_index)
     compared = tuple(_solute(solution, model, i, stages, solvent_index, dict(common, temperature=temperature), curves)
                      for i in indices)
-    measures = _measures(solution, model, key, solvent_index, temperature, pressure, design)
+    measures = _measures(solution, key, solvent_index, temperature, design, curves)
     direction, causes, verdict = judge(key, stages, tuple(bracket), measures, reason, pinched=bracket[0].pinched,
                                      units=units)
     return Comparison(
@@ -248,7 +247,7 @@ def _solute(solution, model, i, stages, solvent_index, common, curves):
                             float(rating.fraction_absorbed))
 
 
-def _measures(solution, model, key, solvent_index, temperature, pressure, design):
+def _measures(solution, key, solvent_index, temperature, design, curves):
     """ProfileMeasures of the rigorous column (``verdict``)."""
     column = solution.column
     gas_in = column.gas.component_flows
@@ -264,20 +263,20 @@ def _measures(solution, model, key, solvent_index, temperature, pressure, design
         hottest_stage=solution.hottest_stage,
         solvent_condensed=condensed,
         gas_absorbed=absorbed,
-        curvature=_curvature(model, key, column, temperature, pressure, design),
+        curvature=_curvature(curves, key, temperature, design),
         murphree_trays=bool(np.any(column.murphree < 1.0)),
         solvent=solution.component_names[solvent_index],
         absorption_factor=None if design is None else design.absorption_factor,
     )
 
 
-def _curvature(model, key, column, temperature, pressure, design):
-    """Y*(X_out) / (X_out dY*/dX at 0) - 1 of the key at the solvent inlet temperature, or None."""
+def _curvature(curves, key, temperature, design):
+    """Y*(X_out) / (X_out dY*/dX at 0) - 1 of the key at the solvent inlet temperature, or None,
+    on the curve its design stepped (``curves``)."""
     if design is None or not design.liquid_ratio_out > 0.0:
         return None
     try:
-        curve = mole_ratio_equilibrium(model, key, temperature=temperature, pressure=pressure,
-                                       solvent_mole_fractions=column.solvent.component_flows)
+        curve = curves(key, temperature)
         x_out = design.liquid_ratio_out
         small = 1e-6 * x_out
         secant, initial = float(curve(x_out)) / x_out, float(curve(small)) / small

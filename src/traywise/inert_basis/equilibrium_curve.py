@@ -148,14 +148,8 @@ def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fr
     [mol/mol -> mol/mol], with ``k_value`` the K used (at infinite dilution for a mixture)
     """
     i = model.component_index(key)
-    k_value = float(model.evaluate([temperature], [pressure]).k[0, i])
-    if not (np.isfinite(k_value) and k_value > 0.0):
-        raise InputError(
-            key,
-            f"K = {k_value:g} at {temperature:g} K and {pressure:g} Pa (equilibrium model "
-            f"'{model.equilibrium[i]}'); the key solute needs a finite K > 0, e.g. model 'henry'",
-        )
     if not model.composition_dependent:
+        k_value = _checked_k(model, key, i, model.evaluate([temperature], [pressure]).k[0, i], temperature, pressure)
         return ConstantKEquilibrium(k_value, float(temperature), float(pressure))
     given = model.reference_liquid if solvent_mole_fractions is None else solvent_mole_fractions
     solvent = np.array(given, dtype=float).reshape(-1)
@@ -166,4 +160,17 @@ def mole_ratio_equilibrium(model, key, *, temperature, pressure, solvent_mole_fr
         raise InputError("solvent_mole_fractions", f"the solvent must hold something besides {key}")
     solvent /= solvent.sum()
     dilute = model.evaluate([temperature], [pressure], solvent[None, :]).k[0, i]
-    return MixtureEquilibrium(model, i, solvent, float(temperature), float(pressure), float(dilute))
+    dilute = _checked_k(model, key, i, dilute, temperature, pressure)
+    return MixtureEquilibrium(model, i, solvent, float(temperature), float(pressure), dilute)
+
+
+def _checked_k(model, key, i, k_value, temperature, pressure):
+    """``k_value`` as a float when finite and positive, else an InputError naming the key."""
+    k_value = float(k_value)
+    if not (np.isfinite(k_value) and k_value > 0.0):
+        raise InputError(
+            key,
+            f"K = {k_value:g} at {temperature:g} K and {pressure:g} Pa (equilibrium model "
+            f"'{model.equilibrium[i]}'); the key solute needs a finite K > 0, e.g. model 'henry'",
+        )
+    return k_value
