@@ -38,6 +38,7 @@ MAX_ITERATIONS = 60
 MOLALITY_FLOOR = 1e-9  # mol/kg: apparent molalities below this are taken as this (a trace)
 LN_M_RANGE = (-700.0, 12.0)  # ln m [mol/kg] kept inside this during the iteration (no overflow)
 LN_H_BRACKET = (-46.0, 5.0)  # ln m(H+) bracket of the cold start (pH -2 to 20)
+COLD_START_BISECTIONS = 20  # ln m(H+) of the cold start to 51 / 2**20 = 5e-5: Newton corrects the rest
 
 SOLUTES = ("NH3", "CO2", "H2S", "SO2", "HCl", "NaOH")
 MOLECULAR = ("NH3", "CO2", "H2S", "SO2")
@@ -274,7 +275,7 @@ class SpeciationSystem:
                 groups.append((i, masters[0] if masters else None))
         rows = self._rows_of_totals(totals)
         low, high = np.full(n, LN_H_BRACKET[0]), np.full(n, LN_H_BRACKET[1])
-        for _ in range(56):
+        for _ in range(COLD_START_BISECTIONS):
             mid = 0.5 * (low + high)
             positive = np.exp(self._ideal(mid, ln_k, rows, groups)) @ self.charges > 0.0
             high = np.where(positive, mid, high)
