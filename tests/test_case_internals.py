@@ -1,5 +1,7 @@
 """The [internals] table: read into the sizing layer's objects; bad input refused naming the key."""
 
+import csv
+import json
 import re
 from pathlib import Path
 
@@ -50,13 +52,50 @@ def test_bad_internals_name_the_key(table, key, words):
     assert f"sized.toml: {key}" in str(error.value) and words in str(error.value)
 
 
-def test_rating_a_too_small_diameter_warns_of_flooding(tmp_path):
-    # A rating diameter far too small floods the trays: the run completes and says so in a warning.
+SOUR_GAS = (Path(__file__).resolve().parents[1] / "cases" / "sour-gas-water-wash.toml").read_text(encoding="utf-8")
+
+
+def rated(demo, diameter):
+    """The demo with its [internals] rated at ``diameter``."""
+    head, internals = demo.split("[internals]\n")
+    return head + "[internals]\n" + f'diameter = "{diameter}"\n' + internals
+
+
+@pytest.mark.parametrize("demo, kind", [(DEMO, "trays"), (SOUR_GAS, "packing")])
+def test_a_rated_column_that_floods_says_so_everywhere_and_exits_4(tmp_path, demo, kind):
+    # 100 mm is far below either demo's design diameter (0.35 m trays, 0.52 m packing): every stage
+    # floods. The results are written, but nothing reads as an operating point.
     case = tmp_path / "tiny.toml"
-    case.write_text(BASE + '[internals]\ntray_type = "sieve"\ndiameter = "100 mm"\n', encoding="utf-8")
-    result = CliRunner().invoke(main, ["run", str(case), "--out", str(tmp_path / "out"), "--no-plots"])
-    assert result.exit_code == 0, result.output
+    case.write_text(rated(demo, "100 mm"), encoding="utf-8")
+    out = tmp_path / "out"
+    result = CliRunner().invoke(main, ["run", str(case), "--out", str(out), "--no-plots"])
+    assert result.exit_code == 4, result.output
+    assert "the column floods at the given diameter of 0.100 m" in result.output
+    assert "THE COLUMN FLOODS at this diameter: stages 1-10 are above 100 % of flood" in result.output
+    assert "pressure drop not defined (the column floods)" in result.output
     assert re.search(r"sizing: stage [0-9, .]+: above 100 % of flood", result.output)
+    sizing = json.loads((out / "results.json").read_text(encoding="utf-8"))["sizing"]
+    assert sizing["kind"] == kind and sizing["floods"] is True and sizing["flooded_stages"] == list(range(1, 11))
+    assert sizing["pressure_drop_Pa"] is None
+    report = (out / "report.md").read_text(encoding="utf-8")
+    assert "**THE COLUMN FLOODS at this diameter" in report and "| pressure drop | not defined (the column floods) |" in report
+    if kind == "packing":  # beyond Stichlmair's flooding point: no fraction and no pressure drop at all
+        assert sizing["worst_fraction_of_flood"] is None and "beyond the flooding point" in result.output
+        rows = list(csv.DictReader((out / "hydraulics.csv").open(encoding="utf-8")))
+        assert rows[0]["fraction_of_flood"] == "" and rows[0]["pressure_drop_Pa"] == ""
+    else:
+        assert sizing["worst_fraction_of_flood"] > 1.0
+
+
+def test_a_wide_enough_rated_column_does_not_flood(tmp_path):
+    case = tmp_path / "wide.toml"
+    case.write_text(rated(DEMO, "1.2 m"), encoding="utf-8")
+    out = tmp_path / "out"
+    result = CliRunner().invoke(main, ["run", str(case), "--out", str(out), "--no-plots"])
+    assert result.exit_code == 0, result.output
+    sizing = json.loads((out / "results.json").read_text(encoding="utf-8"))["sizing"]
+    assert sizing["floods"] is False and sizing["flooded_stages"] == [] and sizing["pressure_drop_Pa"] > 0.0
+    assert "FLOODS" not in result.output
 
 
 def test_tray_spacing_chosen():

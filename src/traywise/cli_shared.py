@@ -112,7 +112,13 @@ def echo_warnings(record):
 
 def exit_if_not_met(ctx, case_run, folder=None):
     """Exit with status 4 when the run's design misses its removal target or breaks its
-    temperature limit or liquid outlet limit (after its results were written and printed)."""
+    temperature limit or liquid outlet limit, or its rated column floods at the given diameter
+    (after its results were written and printed)."""
+    where = f" (see the warnings; results in {folder})" if folder is not None else " (see the warnings)"
+    sizing = case_run.sizing
+    if sizing is not None and sizing.rated and sizing.floods:
+        fail(ctx, f"the run does not meet its capacity: the column floods at the given diameter of "
+                  f"{sizing.diameter:.3f} m{where}", EXIT_NOT_MET)
     design = case_run.design
     if design is None:
         return
@@ -120,8 +126,7 @@ def exit_if_not_met(ctx, case_run, folder=None):
                                        ("its temperature limit", design.limit_held),
                                        ("its liquid outlet limit", design.liquid_limit_held)) if met is False]
     if missed:
-        where = f"; results in {folder}" if folder is not None else ""
-        fail(ctx, f"the design does not meet {' and '.join(missed)} (see the warnings{where})", EXIT_NOT_MET)
+        fail(ctx, f"the design does not meet {' and '.join(missed)}{where}", EXIT_NOT_MET)
 
 
 def progress(hidden, total):

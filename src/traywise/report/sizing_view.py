@@ -22,7 +22,10 @@ SIZING_KEYS = {
     "sizing.design_stage": "1-based stage that needs the largest diameter",
     "sizing.fraction_of_flood_design": "the design approach to flood [-]",
     "sizing.worst_stage": "1-based stage with the highest fraction of flood at diameter_m",
-    "sizing.worst_fraction_of_flood": "its fraction of flood [-]",
+    "sizing.worst_fraction_of_flood": "its fraction of flood [-]; null when a packed bed is beyond its flooding point "
+                                      "(the flooding model has no solution there)",
+    "sizing.floods": "true when a stage is above 100 % of flood at diameter_m (a rated column too narrow)",
+    "sizing.flooded_stages": "1-based stages above 100 % of flood at diameter_m",
     "sizing.trays": "actual trays (trays), or null",
     "sizing.tray_spacing_m": "tray spacing (trays) [m], or null",
     "sizing.downcomer_area_fraction": "downcomer area over column area (trays) [-], or null",
@@ -30,9 +33,9 @@ SIZING_KEYS = {
     "sizing.bed_height_m": "packed height, the sum of each stage's HETP (packing) [m], or null",
     "sizing.beds": "number of packed beds (packing), or null",
     "sizing.column_height_m": "tangent-to-tangent height with the allowances in sizing.internals [m]",
-    "sizing.pressure_drop_Pa": "pressure drop over all trays or the whole bed [Pa]",
+    "sizing.pressure_drop_Pa": "pressure drop over all trays or the whole bed [Pa]; null when the column floods",
     "sizing.stages": "per-stage hydraulics, stage 1 at the top (also in hydraulics.csv)",
-    "sizing.stages.fraction_of_flood": "(N,) [-]",
+    "sizing.stages.fraction_of_flood": "(N,) [-]; null on a packed stage beyond its flooding point",
     "sizing.stages.pressure_drop_Pa": "per tray, or over the stage's bed section (N,) [Pa]",
     "sizing.stages.gas_density_kg_per_m3": "(N,) [kg/m3]",
     "sizing.stages.liquid_density_kg_per_m3": "(N,) [kg/m3]",
@@ -80,7 +83,9 @@ def sizing_json(sizing):
         "design_stage": sizing.design_stage,
         "fraction_of_flood_design": sizing.internals.fraction_of_flood,
         "worst_stage": sizing.worst_stage,
-        "worst_fraction_of_flood": sizing.worst_fraction_of_flood,
+        "worst_fraction_of_flood": _finite(sizing.worst_fraction_of_flood),
+        "floods": sizing.floods,
+        "flooded_stages": list(sizing.flooded_stages),
         "trays": sizing.trays,
         "tray_spacing_m": sizing.internals.tray_spacing if trays else None,
         "downcomer_area_fraction": h.downcomer_area_fraction if trays else None,
@@ -89,7 +94,7 @@ def sizing_json(sizing):
         "bed_height_m": sizing.bed_height,
         "beds": sizing.beds,
         "column_height_m": sizing.column_height,
-        "pressure_drop_Pa": sizing.total_pressure_drop,
+        "pressure_drop_Pa": _finite(sizing.total_pressure_drop),
         "stages": stages,
         "methods": list(_methods(sizing)),
         "warnings": list(sizing.warnings),
@@ -117,7 +122,42 @@ def _methods(sizing):
 
 
 def _list(values):
-    return [None if not np.isfinite(v) else float(v) for v in np.asarray(values, dtype=float)]
+    return [_finite(v) for v in np.asarray(values, dtype=float)]
+
+
+def _finite(value):
+    """A float for JSON, None where it is not defined (NaN, or inf beyond a flooding point)."""
+    return float(value) if np.isfinite(value) else None
+
+
+def flood_text(s):
+    """'THE COLUMN FLOODS at this diameter: stages ...' for a sizing record that floods, else None."""
+    if not s.get("floods"):
+        return None
+    stages = s["flooded_stages"]
+    which = f"stage {stages[0]} is" if len(stages) == 1 else f"stages {_stage_ranges(stages)} are"
+    return f"THE COLUMN FLOODS at this diameter: {which} above 100 % of flood"
+
+
+def _stage_ranges(stages):
+    """'1-4, 7' from [1, 2, 3, 4, 7]."""
+    runs = []
+    for stage in stages:
+        if runs and stage == runs[-1][1] + 1:
+            runs[-1][1] = stage
+        else:
+            runs.append([stage, stage])
+    return ", ".join(str(first) if first == last else f"{first}-{last}" for first, last in runs)
+
+
+def _percent_of_flood(s):
+    if s["worst_fraction_of_flood"] is None:
+        return f"beyond the flooding point on stage {s['worst_stage']}"
+    return f"{100 * s['worst_fraction_of_flood']:.1f} % of flood on stage {s['worst_stage']}"
+
+
+def _pressure_drop(s):
+    return "not defined (the column floods)" if s["pressure_drop_Pa"] is None else f"{s['pressure_drop_Pa'] / 1e3:.3g} kPa"
 
 
 def sizing_lines(record):
@@ -132,13 +172,15 @@ def sizing_lines(record):
     else:
         what = f"{s['internals']['packing']}, bed {s['bed_height_m']:.2f} m in {s['beds']} bed(s)"
     mode = "given (rating)" if s["mode"] == "rating" else f"for {100 * s['fraction_of_flood_design']:.0f} % of flood"
-    return [
+    lines = [
         f"Column diameter {s['diameter_m']:.3f} m {mode}; {what}",
         f"Column height {s['column_height_m']:.2f} m (tangent to tangent, allowances included); pressure drop "
-        f"{s['pressure_drop_Pa'] / 1e3:.3g} kPa",
-        f"Stage {s['design_stage']} sets the diameter; highest load on stage {s['worst_stage']} at "
-        f"{100 * s['worst_fraction_of_flood']:.1f} % of flood",
+        f"{_pressure_drop(s)}",
+        f"Stage {s['design_stage']} sets the design diameter ({s['design_diameter_m']:.3f} m); highest load: "
+        f"{_percent_of_flood(s)}",
     ]
+    flooding = flood_text(s)
+    return lines if flooding is None else [flooding] + lines
 
 
 def sizing_markdown(record):
@@ -151,9 +193,9 @@ def sizing_markdown(record):
     rows = [("type", "trays" if s["kind"] == "trays" else f"{s['internals']['type']} packing"),
             ("mode", s["mode"]), ("inside diameter", f"{s['diameter_m']:.3f} m"),
             ("design diameter (worst stage)", f"{s['design_diameter_m']:.3f} m, stage {s['design_stage']}"),
-            ("highest fraction of flood", f"{100 * s['worst_fraction_of_flood']:.1f} % on stage {s['worst_stage']}"),
+            ("highest fraction of flood", _percent_of_flood(s)),
             ("column height, tangent to tangent", f"{s['column_height_m']:.2f} m"),
-            ("pressure drop", f"{s['pressure_drop_Pa'] / 1e3:.3g} kPa"),
+            ("pressure drop", _pressure_drop(s)),
             ("pressure drop the stage model assumed", f"{_assumed_drop(record) / 1e3:.3g} kPa (the stage pressures are not "
                                                       "changed by the sizing)")]
     rows += [(key.replace("_", " "), _shown(value)) for key, value in s["internals"].items() if value is not None]
@@ -163,7 +205,9 @@ def sizing_markdown(record):
                  ("highest fractional entrainment", f"{s['worst_fractional_entrainment']:.3g} (Fair's chart; limit 0.1)")]
     else:
         rows += [("packed height", f"{s['bed_height_m']:.2f} m"), ("beds", s["beds"])]
-    blocks = ["## Equipment datasheet", markdown_table(["item", "value"], rows),
+    flooding = flood_text(s)
+    blocks = ["## Equipment datasheet"] + ([f"**{flooding}.** The hydraulics below are not an operating point."]
+                                           if flooding else []) + [markdown_table(["item", "value"], rows),
               "Diameter is the inside diameter the hydraulics need, not rounded up to a fabricable size. "
               "Per-stage hydraulics: `hydraulics.csv`.",
               "Methods:\n" + "\n".join(f"- {m}" for m in s["methods"])]
@@ -226,7 +270,7 @@ def write_hydraulics_csv(path, sizing):
         writer = csv.writer(handle)
         writer.writerow(columns)
         for row in zip(*columns.values()):
-            writer.writerow([int(v) if i == 0 else f"{float(v):.6g}" for i, v in enumerate(row)])
+            writer.writerow([int(v) if i == 0 else f"{float(v):.6g}" if np.isfinite(v) else "" for i, v in enumerate(row)])
 
 
 def write_hydraulics_plot(path, sizing):
@@ -238,7 +282,7 @@ def write_hydraulics_plot(path, sizing):
 
     def draw(figure):
         flood, drop = figure.subplots(1, 2, sharey=True)
-        flood.plot(100 * h.fraction_of_flood, stages, marker="o")
+        flood.plot(100 * np.where(np.isfinite(h.fraction_of_flood), h.fraction_of_flood, np.nan), stages, marker="o")
         flood.axvline(100 * sizing.internals.fraction_of_flood, linestyle="--", color="grey", label="design")
         flood.set_xlabel("percent of flood [%]")
         flood.legend(loc="best")
@@ -246,6 +290,7 @@ def write_hydraulics_plot(path, sizing):
         drop.set_xlabel("pressure drop per tray [kPa]" if sizing.kind == "trays" else "pressure drop per stage's bed [kPa]")
         _stage_axis(flood, stages.size)
         drop.grid(True, alpha=0.3)
-        figure.suptitle(f"Hydraulics: D = {sizing.diameter:.3f} m")
+        floods = f" - THE COLUMN FLOODS (stages {_stage_ranges(list(sizing.flooded_stages))})" if sizing.floods else ""
+        figure.suptitle(f"Hydraulics: D = {sizing.diameter:.3f} m{floods}")
 
     _save(path, draw)

@@ -26,7 +26,8 @@ class ColumnSizing:
     trays : actual trays (trays) or None
     bed_height : total packed height [m] (packing) or None; beds : number of beds
     column_height : tangent to tangent [m], allowances in ``internals``
-    total_pressure_drop : over all trays or the whole bed [Pa]
+    total_pressure_drop : over all trays or the whole bed [Pa]; NaN when a stage floods (no
+                          pressure drop is defined there)
     properties : StageLoads the sizing used
     warnings : tuple of str
     notes : tuple of str            choices made for the user (tray spacing)
@@ -56,7 +57,17 @@ class ColumnSizing:
 
     @property
     def worst_fraction_of_flood(self):
+        """The highest fraction of flood [-]; inf where a packed bed is beyond its flooding point."""
         return float(np.max(self.hydraulics.fraction_of_flood))
+
+    @property
+    def flooded_stages(self):
+        """1-based stages above 100 % of flood at ``diameter`` (a rated column that is too narrow)."""
+        return tuple(int(j) + 1 for j in np.flatnonzero(~(self.hydraulics.fraction_of_flood <= 1.0)))
+
+    @property
+    def floods(self):
+        return bool(self.flooded_stages)
 
 
 def size_column(solution, components, internals, *, key_component, diameter=None, overall_efficiency=None):
@@ -93,9 +104,11 @@ def size_column(solution, components, internals, *, key_component, diameter=None
             hydraulics = rate_packing(properties, internals, diameter)
         trays, bed = None, hydraulics.bed_height
         height, beds = packed_column_height(bed, internals)
-        pressure_drop, kind = float(np.nansum(hydraulics.stage_pressure_drop)), "packing"  # flooded stages: warned
+        pressure_drop, kind = float(hydraulics.stage_pressure_drop.sum()), "packing"
     else:
         raise SizingInputError("internals", f"must be TrayInternals or PackedInternals, found {type(internals).__name__}")
+    if np.any(~(hydraulics.fraction_of_flood <= 1.0)):
+        pressure_drop = float("nan")  # a flooded stage has no pressure drop to add up
     warnings = properties.warnings + hydraulics.warnings
     if diameter is not None and diameter < designed:
         warnings += (f"the given diameter {diameter:.3f} m is below the {designed:.3f} m needed for "

@@ -24,7 +24,7 @@ PRESSURE_DROP_METHODS = ("stichlmair", "robbins")
 # for packings below 75 mm (Morris & Jackson, Absorption Towers, Butterworths (1953); recalled from memory).
 MINIMUM_WETTING_RATE = 0.08 / 3600.0
 MAX_BED_HEIGHT = 6.0  # m between liquid redistributors (common practice for random packings)
-FLOODED = 1e6  # fraction-of-flood excess used where the flooding model has no solution (deep in flood)
+FLOODED = 1e6  # the diameter search's fraction-of-flood excess where the flooding model has no solution
 PRESSURE_DROP_HIGH = 1200.0  # Pa/m; above about 1.2 kPa/m packings run near flood (common practice)
 
 
@@ -105,7 +105,7 @@ def _flooding_velocity(packing, liquid_velocity, properties, j, start=None):
 
 def flooding_fraction(properties, internals, diameter, start=None):
     """(fraction of flood, flooding gas velocity [m/s]) of every stage at ``diameter`` [m]; a stage
-    whose flooding model has no solution (deep in flood) gets a fraction of ``FLOODED``. Each
+    whose flooding model has no solution (deep in flood) gets an infinite fraction. Each
     stage's flooding point starts from those of the stages above it (extrapolated), the first from
     ``start`` (a flooding point of any stage, or None)."""
     packing, area = internals.data, np.pi * diameter ** 2 / 4.0
@@ -122,7 +122,7 @@ def flooding_fraction(properties, internals, diameter, start=None):
             flood[j], history = np.nan, []
         start = _extrapolated(history)
     fraction = properties.gas_volume_flow / area / flood
-    return np.where(np.isfinite(fraction) & (flood > 0.0), fraction, FLOODED), flood
+    return np.where(np.isfinite(fraction) & (flood > 0.0), fraction, np.inf), flood
 
 
 def _extrapolated(history):
@@ -301,7 +301,7 @@ def _with_warnings(h):
         (h.wetting_rate < MINIMUM_WETTING_RATE, "liquid below the minimum wetting rate 0.08 m3/(m h): part of the packing stays dry"),
         (h.pressure_drop_per_height > PRESSURE_DROP_HIGH, "pressure drop above 1.2 kPa/m: near flood"),
         (np.isnan(h.pressure_drop_per_height), "no pressure drop: the bed floods (Stichlmair's model has no solution "
-                                               "there); the total pressure drop leaves these stages out"),
+                                               "there), so the column has no total pressure drop"),
     )
     for mask, message in checks:
         stages = np.flatnonzero(mask) + 1

@@ -8,8 +8,6 @@ less than ``tolerance`` (relative) between rounds.
 
 from dataclasses import dataclass, replace
 
-import numpy as np
-
 from .column import size_column
 from .errors import SizingInputError
 
@@ -40,8 +38,8 @@ def size_with_stage_pressures(column, model, internals, *, key_component, diamet
     for rounds in range(1, MAX_ROUNDS + 1):
         sizing = size_column(solution, model.components, internals, key_component=key_component, diameter=diameter,
                              overall_efficiency=overall_efficiency)
-        if sizing.kind == "packing" and np.isnan(sizing.hydraulics.pressure_drop_per_height).any():
-            raise SizingInputError("diameter", f"the packed bed floods at {sizing.diameter:.3f} m across, so it has no "
+        if sizing.floods:
+            raise SizingInputError("diameter", f"the column floods at {sizing.diameter:.3f} m across, so it has no "
                                    "pressure drop to set the stage pressures; give a larger diameter or "
                                    "pressure_drop_per_stage instead")
         drop = sizing.total_pressure_drop / column.n_stages
