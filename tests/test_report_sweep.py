@@ -128,3 +128,27 @@ def test_without_a_range_the_designed_input_is_swept_around_its_designed_value(t
     assert flows == pytest.approx([0.5 * designed, 0.75 * designed, designed, 1.25 * designed, 1.5 * designed], rel=1e-12)
     assert record["points"][2]["outlet_ppmv:ammonia"] == pytest.approx(30.0, rel=1e-3)  # the design's target
     assert "swept around its designed value" in result.stdout
+
+
+def test_a_liquid_outlet_limit_is_swept_by_default_and_drawn(tmp_path):
+    # The design demo with a 2 wt% limit on ammonia in the liquid out and no [sweep] range: the
+    # sweep runs around the designed flow, its default outputs gain ammonia's mass fraction in the
+    # liquid out, and the limit is drawn on that output.
+    text = DEMO.read_text(encoding="utf-8")
+    text = text[:text.index("\n[sweep]")].replace('solve_for = "solvent_flow"\n', 'solve_for = "solvent_flow"\n'
+                                                  'liquid_out_concentration_limit = "2 wt%"\n') + "\n"
+    case_file = tmp_path / "limited.toml"
+    case_file.write_text(text, encoding="utf-8")
+    folder = tmp_path / "sweep"
+    result = CliRunner().invoke(main, ["sweep", str(case_file), "--points", "3", "--out", str(folder)])
+    assert result.exit_code == 0, result.output
+    record = strict_json(folder / "sweep.json")
+    assert "liquid_out_mass_fraction:ammonia" in record["sweep"]["outputs"]
+    assert reference_lines(record, "liquid_out_mass_fraction:ammonia") == [(0.02, "liquid outlet limit")]
+    assert reference_lines(record, "liquid_out_mole_fraction:ammonia") == []
+    assert "ammonia in the liquid out [mass frac]" in result.stdout
+    # the middle point is the designed column: its mass fraction is the one the design checks
+    design = run_case(load_case(case_file)).design
+    assert record["points"][1]["solvent_flow_mol_per_s"] == pytest.approx(record["design"]["designed_value"], rel=1e-12)
+    assert record["points"][1]["liquid_out_mass_fraction:ammonia"] == pytest.approx(
+        design.liquid_limit.reached(design.result.solution), rel=1e-6)

@@ -82,9 +82,13 @@ class SweepRequest:
         }
 
 
-def default_outputs(key):
-    """Outputs tabulated when none are asked for: the key solute's removal and the temperatures."""
-    return (f"fraction_absorbed:{key}", f"outlet_ppmv:{key}", "max_temperature", "liquid_out_temperature")
+def default_outputs(key, liquid_limit=None):
+    """Outputs tabulated when none are asked for: the key solute's removal and the temperatures,
+    and the liquid outlet concentration a design's ``liquid_limit`` (LiquidOutletLimit) bounds."""
+    outputs = (f"fraction_absorbed:{key}", f"outlet_ppmv:{key}", "max_temperature", "liquid_out_temperature")
+    if liquid_limit is None:
+        return outputs
+    return outputs + (f"liquid_out_{liquid_limit.basis}:{liquid_limit.component}",)
 
 
 def sweep_request(case, *, input_name=None, start=None, end=None, points=None, log=None, outputs=(), cooler_stage=None,
@@ -208,7 +212,8 @@ class _Reader:
 
     def _outputs(self):
         if not self.present("outputs"):
-            return default_outputs(self.case.key_component)
+            design = getattr(self.case, "design", None)
+            return default_outputs(self.case.key_component, None if design is None else design.liquid_limit)
         value = self.raw("outputs")
         if isinstance(value, tuple):
             value = list(value)

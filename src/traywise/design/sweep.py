@@ -9,7 +9,8 @@ warnings are issued again in it (``traywise.workers``).
 
 Outputs (strings; ``key`` is a component name):
   fraction_absorbed:key      [-]       outlet_mole_fraction:key  [-]     outlet_ppmv:key  [ppmv]
-  liquid_out_mole_fraction:key [-]     max_temperature [K]               hottest_stage [-]
+  liquid_out_mole_fraction:key [-]     liquid_out_mass_fraction:key [-]
+  max_temperature [K]                  hottest_stage [-]
   gas_out_temperature [K]              liquid_out_temperature [K]        heat_released [W]
   heat_removed [W] (all coolers)       solvent_lost [mol/s] (net gas pick-up, all components)
   iterations [-]
@@ -34,6 +35,7 @@ _COMPONENT_OUTPUTS = {
     "outlet_mole_fraction": ("-", lambda s, i: s.gas_out[i] / s.gas_out.sum()),
     "outlet_ppmv": ("ppmv", lambda s, i: 1e6 * s.gas_out[i] / s.gas_out.sum()),
     "liquid_out_mole_fraction": ("-", lambda s, i: s.liquid_out[i] / s.liquid_out.sum()),
+    "liquid_out_mass_fraction": ("-", lambda s, i: s.liquid_out[i] * s.molar_mass[i] / float(s.liquid_out @ s.molar_mass)),
 }
 _COLUMN_OUTPUTS = {
     "max_temperature": ("K", lambda s: s.max_temperature),

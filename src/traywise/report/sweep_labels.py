@@ -3,8 +3,8 @@
 Inputs and outputs keep their code names in sweep.csv and sweep.json (``outlet_ppmv:ammonia``);
 tables and the figure show words ("ammonia in the gas out") in the units the case was written in
 (``display_units`` of the record: temperature, pressure, and the solvent flow in kg/h when the
-case gives it as a mass flow). The design's target and temperature limit are drawn on the
-outputs they concern, and the designed value of the swept input is marked.
+case gives it as a mass flow). The design's target, temperature limit and liquid outlet limit are
+drawn on the outputs they concern, and the designed value of the swept input is marked.
 """
 
 from ..properties.constants import ZERO_CELSIUS
@@ -22,6 +22,7 @@ COMPONENT_WORDS = {
     "outlet_mole_fraction": "{} in the gas out",
     "outlet_ppmv": "{} in the gas out",
     "liquid_out_mole_fraction": "{} in the liquid out",
+    "liquid_out_mass_fraction": "{} in the liquid out",
 }
 COLUMN_WORDS = {
     "max_temperature": "hottest stage temperature",
@@ -73,6 +74,8 @@ def converter(record, name, unit):
         return "kmol/h", lambda v: v * 3.6
     if unit == "-" and name.startswith(("outlet_mole_fraction", "liquid_out_mole_fraction")):
         return "mol frac", lambda v: v
+    if unit == "-" and name.startswith("liquid_out_mass_fraction"):
+        return "mass frac", lambda v: v
     return ("-" if unit == "-" else unit), lambda v: v
 
 
@@ -83,7 +86,7 @@ def label(record, name, unit):
 
 
 def reference_lines(record, name):
-    """(value in SI, text) of the design's target or limit drawn on the output ``name``."""
+    """(value in SI, text) of the design's target or limits drawn on the output ``name``."""
     design = record.get("design") or {}
     lines = []
     target, key = design.get("target_quantity"), design.get("key_component")
@@ -101,4 +104,7 @@ def reference_lines(record, name):
     if place is not None and name == {"liquid_outlet": "liquid_out_temperature",
                                       "column_maximum": "max_temperature"}[place]:
         lines.append((design["temperature_limit_K"], "limit"))
+    liquid = design.get("liquid_out_limit")
+    if liquid is not None and name == f"liquid_out_{liquid['basis']}:{liquid['component']}":
+        lines.append((liquid["value"], "liquid outlet limit"))
     return lines
