@@ -35,8 +35,10 @@ def results_record(run, files):
     from .comparison_view import comparison_json
     from .design_view import design_json
     from .sizing_view import sizing_json
+    from .warning_units import in_display_units
 
     case, solution = run.case, run.solution
+    units = getattr(case, "display_units", None) or DEFAULT_UNITS
     sizing = None if run.sizing is None else sizing_json(run.sizing)
     names = list(solution.component_names)
     column = solution.column
@@ -98,7 +100,7 @@ def results_record(run, files):
                  "by_component_W": _per_name(names, solution.heat.by_component or [None] * len(names))},
         "solvent_balance": _solvent_balance(case.solvent, run.solvent_balance),
         "electrolyte": _electrolyte(run.speciation, run.physical_henry),
-        "display_units": getattr(case, "display_units", None) or DEFAULT_UNITS,
+        "display_units": units,
         "inputs_as_written": _as_written(getattr(case, "data", None)),
         "convergence": {
             "iterations": solution.convergence.iterations,
@@ -113,7 +115,8 @@ def results_record(run, files):
         "sizing": sizing,
         "property_sources": {c.name: property_sources(c, kind, **_liquid_data(case.model, c.name))
                              for c, kind in zip(case.model.components, case.model.equilibrium)},
-        "warnings": list(dict.fromkeys([*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))])),
+        "warnings": list(dict.fromkeys(in_display_units(w, units) for w in
+                                       [*run.warnings, *(f"sizing: {w}" for w in (sizing or {}).get("warnings", ()))])),
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
