@@ -54,6 +54,8 @@ def test_an_overcooled_column_is_refused_with_exit_3(tmp_path):
     result = run(tmp_path, '[[column.cooler]]\nstage = 9\nduty = "2 MW"')
     assert result.exit_code == 3, result.output
     assert "frozen liquid" in result.stderr and "melting point of water" in result.stderr
+    assert "melting point of water, 0.00 degC)" in result.stderr  # in the case's unit; the core writes K
+    assert " K" not in result.stderr.split("frozen liquid")[1].split(":")[0]
     assert "the converged column is physically impossible" in result.stderr
     assert "no converged solution" not in result.stderr
     assert "Traceback" not in result.output

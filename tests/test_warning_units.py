@@ -21,6 +21,7 @@ KELVIN = {"temperature": {"unit": "K", "scale": 1.0, "offset": 0.0}}
     ("more than 5 K outside the valid range", CELSIUS, "more than 5 K outside the valid range"),  # a difference
     ("12 K-values at 298.15 K and 101325 Pa", CELSIUS, "12 K-values at 25.00 degC and 101325 Pa"),
     ("hottest stage at 315.42 K", KELVIN, "hottest stage at 315.42 K"),
+    ("melting point 273.1 K", CELSIUS, "melting point 0.0 degC"),  # -0.05 rounds to 0.0, not -0.0
 ])
 def test_absolute_temperatures_follow_the_display_unit(text, units, shown):
     assert in_display_units(text, units) == shown

@@ -12,6 +12,7 @@ EXIT_OUTPUT = 1
 EXIT_INPUT = 2
 EXIT_CONVERGENCE = 3
 EXIT_NOT_MET = 4
+DISPLAY_UNITS = "traywise.display_units"  # ctx.meta key: the loaded case's display units
 
 
 class Command(click.Command):
@@ -42,9 +43,9 @@ class Command(click.Command):
         except (CaseError, ComponentDataError, PinchError, PropertyRangeError) as error:
             fail(ctx, str(error), EXIT_INPUT)
         except ConvergenceError as error:
-            fail(ctx, no_result(error), EXIT_CONVERGENCE)
+            fail(ctx, in_case_units(ctx, no_result(error)), EXIT_CONVERGENCE)
         except TargetNotReached as error:
-            fail(ctx, f"design target not reached: {error}", EXIT_CONVERGENCE)
+            fail(ctx, in_case_units(ctx, f"design target not reached: {error}"), EXIT_CONVERGENCE)
         except OSError as error:
             fail(ctx, f"cannot write the results: {error}", EXIT_OUTPUT)
 
@@ -52,6 +53,17 @@ class Command(click.Command):
 class Group(click.Group):
     command_class = Command
     group_class = type  # subgroups are Group too
+
+
+def in_case_units(ctx, text):
+    """``text`` (the core's words, temperatures in kelvin) with its temperatures in the units of
+    the case the command loaded, when it loaded one."""
+    units = ctx.meta.get(DISPLAY_UNITS)
+    if units is None:
+        return text
+    from .report.warning_units import in_display_units
+
+    return in_display_units(text, units)
 
 
 def no_result(error):
@@ -93,7 +105,9 @@ def load_case_file(ctx, case_file, quiet, verbose, *, target=None):
         check_replaceable(target, protect=(case_file,))
     from .case import load_case
 
-    return load_case(case_file)
+    case = load_case(case_file)
+    ctx.meta[DISPLAY_UNITS] = case.display_units
+    return case
 
 
 def run_case_file(ctx, case_file, quiet, verbose, *, target=None, plots=False):

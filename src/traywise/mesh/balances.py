@@ -156,8 +156,8 @@ def _check_state(model, l, t, iterations, norm):
         if cold.size:
             raise UnphysicalSolution(
                 f"the stage equations lead only to a frozen liquid ({_stages(cold)} at down to "
-                f"{t[cold].min() - 273.15:.1f} degC, below the melting point of {component.name}, "
-                f"{component.melting_point.value - 273.15:.1f} degC): remove less heat or feed warmer streams",
+                f"{t[cold].min():.2f} K, below the melting point of {component.name}, "
+                f"{component.melting_point.value:.2f} K): remove less heat or feed warmer streams",
                 iterations=iterations,
                 residual=norm,
                 stage=int(cold[np.argmin(t[cold])]) + 1,
@@ -167,9 +167,9 @@ def _check_state(model, l, t, iterations, norm):
         if t_low < t_min - RANGE_MARGIN or t_high > t_max + RANGE_MARGIN:
             stage = int(np.argmin(t) if t_low < t_min - RANGE_MARGIN else np.argmax(t)) + 1
             raise UnphysicalSolution(
-                f"the stage equations lead to {t[stage - 1] - 273.15:.1f} degC on stage {stage}, more than "
+                f"the stage equations lead to {t[stage - 1]:.2f} K on stage {stage}, more than "
                 f"{RANGE_MARGIN:.0f} K outside the valid range of the {label} of {name} "
-                f"({t_min - 273.15:.1f} to {t_max - 273.15:.1f} degC): no result is given that far from the data",
+                f"({t_min:.2f}-{t_max:.2f} K): no result is given that far from the data",
                 iterations=iterations,
                 residual=norm,
                 stage=stage,
