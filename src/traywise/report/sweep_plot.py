@@ -3,8 +3,8 @@ the input axis; words for labels and the case's units (``sweep_labels``). Whole-
 (the hottest stage, iterations) and a swept stage count are drawn as steps, not as lines that
 suggest values between whole numbers; the design's target, temperature limit and liquid outlet
 limit are drawn as dashed lines on the outputs they concern, and the designed value of the swept
-input as a dotted vertical line. Failed points are marked by a red cross on the axis and a dotted line, never left
-out silently. matplotlib through its object interface (as in ``plots``)."""
+input as a dotted vertical line. Failed points are marked by a red cross on the axis and a dotted
+line, never left out silently. matplotlib through its object interface (as in ``plots``)."""
 
 import numpy as np
 

@@ -2,10 +2,10 @@
 
 The core writes its messages in SI: absolute temperatures as "313.2 K" or a range "273.2-373.2 K".
 The results record (its warnings) and the CLI (the errors of a run that gives no result) show them
-in the display unit of temperature (``Case.display_units``), with the decimals the core wrote. A figure below ``ABSOLUTE_FROM`` kelvin is taken as a temperature
-difference ("more than 5 K outside") and left in kelvin, which is correct in any unit system: the
-core's messages hold no absolute temperature that low (absorbers run far above 100 K) and no
-difference that large.
+in the display unit of temperature (``Case.display_units``), with the decimals the core wrote. A
+figure below ``ABSOLUTE_FROM`` kelvin is taken as a temperature difference ("more than 5 K
+outside") and left in kelvin, which is correct in any unit system: the core's messages hold no
+absolute temperature that low (absorbers run far above 100 K) and no difference that large.
 """
 
 import re

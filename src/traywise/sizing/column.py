@@ -63,11 +63,16 @@ class ColumnSizing:
     @property
     def flooded_stages(self):
         """1-based stages above 100 % of flood at ``diameter`` (a rated column that is too narrow)."""
-        return tuple(int(j) + 1 for j in np.flatnonzero(~(self.hydraulics.fraction_of_flood <= 1.0)))
+        return tuple(int(j) + 1 for j in np.flatnonzero(_flooded(self.hydraulics)))
 
     @property
     def floods(self):
         return bool(self.flooded_stages)
+
+
+def _flooded(hydraulics):
+    """Stages above 100 % of flood (an infinite fraction beyond a packed bed's flooding point included)."""
+    return ~(hydraulics.fraction_of_flood <= 1.0)
 
 
 def size_column(solution, components, internals, *, key_component, diameter=None, overall_efficiency=None):
@@ -107,7 +112,7 @@ def size_column(solution, components, internals, *, key_component, diameter=None
         pressure_drop, kind = float(hydraulics.stage_pressure_drop.sum()), "packing"
     else:
         raise SizingInputError("internals", f"must be TrayInternals or PackedInternals, found {type(internals).__name__}")
-    if np.any(~(hydraulics.fraction_of_flood <= 1.0)):
+    if _flooded(hydraulics).any():
         pressure_drop = float("nan")  # a flooded stage has no pressure drop to add up
     warnings = properties.warnings + hydraulics.warnings
     if diameter is not None and diameter < designed:
