@@ -36,6 +36,8 @@ def test_kremser_agrees_with_the_rigorous_dilute_isothermal_column(n_stages):
     assert rated.outlet_mole_fraction == pytest.approx(rigorous_outlet, rel=1e-3)
     assert 1.0 - rated.fraction_absorbed == pytest.approx(1.0 - solution.fraction_absorbed[1], rel=1e-3)
     assert rating.stages_for_rigorous_removal == pytest.approx(n_stages, rel=1e-3)
+    # the line is straight: the chord Y*(X_out)/X_out = K / (1 + (1 - K) X_out) stays within 0.1 % of K
+    assert rated.straight and rated.chord_k_value == pytest.approx(2.0, rel=1e-3)
 
 
 @pytest.fixture(scope="module")
@@ -77,3 +79,31 @@ def test_kremser_in_results_json_is_recomputed_from_the_record(demo):
     assert n == record["column"]["theoretical_stages"]  # ideal trays in the demo
     assert rated["fraction_absorbed"] == pytest.approx((a ** (n + 1) - a) / (a ** (n + 1) - 1.0), rel=1e-12)
     assert rated["fraction_absorbed"] == pytest.approx(record["fraction_absorbed"][key], abs=2e-3)  # dilute, near-isothermal
+
+
+def test_kremser_on_henrys_law_reports_a_straight_line(demo):
+    _, folder = demo
+    record = json.loads((folder / "results.json").read_text(encoding="utf-8"))
+    (rated,) = [s for s in record["isothermal_comparison"]["kremser"]["solutes"] if s["name"] == "sulfur dioxide"]
+    assert rated["straight_line"] is True
+    assert rated["chord_k_value_at_liquid_outlet"] == pytest.approx(rated["k_value"], rel=0.02)
+
+
+def test_kremser_is_not_shown_where_the_equilibrium_line_is_far_from_straight(tmp_path):
+    """The acid-gas demo as shipped, sulfur dioxide on the electrolyte liquid: at infinite
+    dilution in water nearly all dissolved SO2 is bisulfite (K1 about 1.3e-2 mol/kg at 25 degC,
+    Goldberg & Parker, J. Res. NBS 90 (1985) 341), so K there lies orders of magnitude below the
+    chord to the liquid outlet and Kremser's straight line says nothing about this column: its
+    cells read n/a, with the ratio that says why; results.json keeps the numbers, flagged."""
+    folder = tmp_path / "vent"
+    result = CliRunner().invoke(main, ["run", str(DEMO), "--out", str(folder), "--no-plots"])
+    assert result.exit_code == 0, result.output
+    record = json.loads((folder / "results.json").read_text(encoding="utf-8"))
+    (rated,) = [s for s in record["isothermal_comparison"]["kremser"]["solutes"] if s["name"] == "sulfur dioxide"]
+    assert rated["straight_line"] is False
+    assert rated["chord_k_value_at_liquid_outlet"] / rated["k_value"] > 100.0
+    for text in (result.stdout, (folder / "report.md").read_text(encoding="utf-8")):
+        stages = next(line for line in text.splitlines() if "theoretical stages for the sulfur dioxide removal" in line)
+        assert "n/a (curved line)" in stages
+        assert "sulfur dioxide equilibrium line: chord to the liquid outlet over K" in text
+        assert "far from straight" in text

@@ -10,6 +10,13 @@ the stages that reach the rigorous removal (None where no number of stages can).
 dilute solute and constant flows; how far the rigorous result lies from it measures the heat
 effects, the curvature of the equilibrium line and the changing flows together.
 
+The straight line is checked against the curve it stands for: the chord slope Y*(X_out)/X_out
+to the liquid Kremser's own result leaves with (X_out from the solute balance) over K. Outside
+1/STRAIGHT_LINE_LIMIT to STRAIGHT_LINE_LIMIT the line is far from straight over the column, as
+for a gas that dissociates in water (at infinite dilution nearly all dissolved sulfur dioxide is
+bisulfite, so K there is orders of magnitude below the chord), and Kremser's figures for that
+solute are not a design estimate; the rating keeps them, flagged (``KremserSolute.straight``).
+
 References
 ----------
 A. Kremser, Natl. Petroleum News 22 (1930) 43; M. Souders, G. G. Brown, Ind. Eng. Chem. 24
@@ -21,6 +28,8 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..errors import TraywiseError
+
+STRAIGHT_LINE_LIMIT = 2.0  # chord slope over K beyond which the line is far from straight [-]; our judgement
 from .equilibrium_curve import mole_ratio_equilibrium
 from .kremser import approach_to_equilibrium, kremser_gas_outlet, kremser_stages
 
@@ -36,6 +45,8 @@ class KremserSolute:
     gas_ratio_in, gas_ratio_out, liquid_ratio_in : float   Y_in, Y_out, X_in [mol/mol]
     solvent_free_outlet_mole_fraction : float or None   The outlet free of the solvent vapour the
         gas feed brought, the basis of the comparison (``comparison``); None without a solvent [-]
+    chord_k_value : float or None   Y*(X_out) / X_out of the equilibrium curve at Kremser's liquid
+        outlet, None where it cannot be evaluated (no solute absorbed, a curve out of range) [-]
     """
 
     name: str
@@ -46,6 +57,15 @@ class KremserSolute:
     gas_ratio_out: float
     liquid_ratio_in: float
     solvent_free_outlet_mole_fraction: float | None = None
+    chord_k_value: float | None = None
+
+    @property
+    def straight(self):
+        """Whether Y* = K X stays within STRAIGHT_LINE_LIMIT of the curve's chord to the liquid
+        outlet (True where the chord is unknown)."""
+        if self.chord_k_value is None:
+            return True
+        return 1.0 / STRAIGHT_LINE_LIMIT <= self.chord_k_value / self.k_value <= STRAIGHT_LINE_LIMIT
 
     @property
     def fraction_absorbed(self):
@@ -118,10 +138,11 @@ def _rate(model, name, gas, solvent, temperature, pressure, n_stages, solvent_in
     if not (gas[i] > 0.0 and inert_gas > 0.0 and solvent_free > 0.0):
         return None
     try:
-        k_value = mole_ratio_equilibrium(model, name, temperature=temperature, pressure=pressure,
-                                         solvent_mole_fractions=solvent).k_value
+        curve = mole_ratio_equilibrium(model, name, temperature=temperature, pressure=pressure,
+                                       solvent_mole_fractions=solvent)
     except TraywiseError:  # no finite K > 0 (an insoluble gas): nothing for Kremser to rate
         return None
+    k_value = curve.k_value
     ratio = solvent_free / inert_gas
     absorption = ratio / k_value
     gas_in, liquid_in = gas[i] / inert_gas, solvent[i] / solvent_free
@@ -132,7 +153,19 @@ def _rate(model, name, gas, solvent, temperature, pressure, n_stages, solvent_in
         leaving, others = gas_out * inert_gas, inert_gas - gas[solvent_index]
         solvent_free = float(leaving / (leaving + others))
     return KremserSolute(name, float(k_value), float(ratio), float(absorption), float(gas_in), float(gas_out),
-                         float(liquid_in), solvent_free)
+                         float(liquid_in), solvent_free, _chord(curve, liquid_in + (gas_in - gas_out) / ratio))
+
+
+def _chord(curve, liquid_out):
+    """Y*(X_out) / X_out of ``curve`` [-], or None where nothing is absorbed or the curve cannot
+    be evaluated there."""
+    if not (np.isfinite(liquid_out) and liquid_out > 0.0):
+        return None
+    try:
+        gas = float(curve(liquid_out))
+    except TraywiseError:  # beyond a table or a model's range
+        return None
+    return gas / liquid_out if np.isfinite(gas) else None
 
 
 def _stages_for(solute, fraction_absorbed):

@@ -13,6 +13,8 @@ max_temperature_rise, hottest_stage, direction, causes, stage_tolerance, held, v
 
 from .tables import number, percent
 
+CURVED = "n/a (curved line)"  # Kremser's cell for a solute whose equilibrium line is far from straight
+
 
 def comparison_json(record, kremser=None):
     """The comparison (and Kremser's rating of the same column, when there is one) as a
@@ -91,6 +93,8 @@ def kremser_json(rating):
                 "gas_out_mole_fraction": solute.outlet_mole_fraction,
                 "gas_out_mole_fraction_solvent_free": solute.solvent_free_outlet_mole_fraction,
                 "fraction_absorbed": solute.fraction_absorbed,
+                "chord_k_value_at_liquid_outlet": solute.chord_k_value,
+                "straight_line": bool(solute.straight),
             }
             for solute in rating.solutes
         ],
@@ -100,16 +104,18 @@ def kremser_json(rating):
 def comparison_rows(comparison, units):
     """Rows (quantity, rigorous, isothermal inert basis, Kremser) of the comparison table, as
     text, from the dict of ``comparison_json``, temperatures in the report's units (``tables.Display``);
-    Kremser's column is '-' where it rated nothing."""
+    Kremser's column is '-' where it rated nothing and 'n/a' for a solute whose equilibrium line is
+    far from straight (``kremser_rating.STRAIGHT_LINE_LIMIT``), with the chord-to-K ratio that says so."""
     stages = comparison["theoretical_stages_isothermal"]
     kremser = comparison["kremser"] or {"theoretical_stages_for_rigorous_removal": None, "solutes": []}
     by_name = {solute["name"]: solute for solute in kremser["solutes"]}
+    key_curved = not by_name.get(comparison["key_component"], {}).get("straight_line", True)
     rows = [
         (
             f"theoretical stages for the {comparison['key_component']} removal",
             _rigorous_stages(comparison),
             "none (see the verdict)" if stages is None else number(stages),
-            number(kremser["theoretical_stages_for_rigorous_removal"]),
+            CURVED if key_curved else number(kremser["theoretical_stages_for_rigorous_removal"]),
         ),
         *[
             (f"  isothermal at the {point['temperature_of']} temperature, {units.temperature(point['temperature_K'])} {units.t_unit}", "-",
@@ -125,12 +131,13 @@ def comparison_rows(comparison, units):
     ]
     for solute in comparison["solutes"]:
         rated = by_name.get(solute["name"], {})
+        curved = not rated.get("straight_line", True)
         rows.append(
             (
                 f"{solute['name']} in gas out, solvent-free [mol frac]",
                 number(solute["gas_out_mole_fraction_rigorous"]),
                 number(solute["gas_out_mole_fraction_isothermal"]),
-                number(rated.get("gas_out_mole_fraction_solvent_free", rated.get("gas_out_mole_fraction"))),
+                CURVED if curved else number(rated.get("gas_out_mole_fraction_solvent_free", rated.get("gas_out_mole_fraction"))),
             )
         )
         rows.append(
@@ -138,12 +145,16 @@ def comparison_rows(comparison, units):
                 f"{solute['name']} absorbed [%]",
                 percent(solute["fraction_absorbed_rigorous"]),
                 percent(solute["fraction_absorbed_isothermal"]),
-                percent(rated.get("fraction_absorbed")),
+                CURVED if curved else percent(rated.get("fraction_absorbed")),
             )
         )
         if rated:
             rows.append((f"{solute['name']} absorption factor A = L'/(K V') [-]", "-", "-",
                          number(rated["absorption_factor"])))
+        if curved:
+            ratio = rated["chord_k_value_at_liquid_outlet"] / rated["k_value"]
+            rows.append((f"{solute['name']} equilibrium line: chord to the liquid outlet over K [-]", "-", "-",
+                         f"{number(ratio)}, far from straight"))
     return rows
 
 
@@ -153,7 +164,7 @@ def comparison_heading(comparison, units):
         f"isothermal inert-basis design at {units.temperature(comparison['isothermal_temperature_K'])} "
         f"{units.t_unit} and {units.pressure(comparison['isothermal_pressure_Pa'])} {units.p_unit}, "
         "every component but one solute inert, and "
-        "Kremser's equation there with K at infinite dilution"
+        "Kremser's equation there with K at infinite dilution (n/a where the equilibrium line is far from straight)"
     )
 
 

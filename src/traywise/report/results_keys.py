@@ -164,6 +164,8 @@ RESULTS_KEYS = {
     "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction": "Kremser's outlet, solute over solute and inert gas [-]",
     "isothermal_comparison.kremser.solutes[].gas_out_mole_fraction_solvent_free": "the same free of the solvent vapour the gas feed brought, the basis of the comparison's outlets [-]",
     "isothermal_comparison.kremser.solutes[].fraction_absorbed": "1 - Y_out / Y_in [-]",
+    "isothermal_comparison.kremser.solutes[].chord_k_value_at_liquid_outlet": "Y*(X_out) / X_out of the equilibrium curve at Kremser's liquid outlet, or null where it cannot be evaluated [-]",
+    "isothermal_comparison.kremser.solutes[].straight_line": "whether K stays within a factor of 2 of that chord; false: the line is far from straight over the column (a gas that dissociates, a strongly curved table) and Kremser's figures for the solute are not a design estimate (the report shows them as n/a)",
     "design": "the design of a case with a [design] table (cases/README.md); null without one",
     "design.solve_for": "the input solved for: 'solvent_flow', 'stages' or 'cooler_duty'",
     "design.solvent_flow_mol_per_s": "solvent feed of the designed column [mol/s]",
