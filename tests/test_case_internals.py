@@ -16,6 +16,7 @@ from traywise.sizing.trays import TrayInternals
 
 DEMO = (Path(__file__).resolve().parents[1] / "cases" / "ammonia-recovery.toml").read_text(encoding="utf-8")
 BASE = DEMO[: DEMO.index("[internals]")]
+LOW_DROP = re.sub(r'pressure_drop_per_stage = "3 kPa".*', 'pressure_drop_per_stage = "0.5 kPa"', BASE)
 
 
 def with_internals(table):
@@ -103,10 +104,8 @@ def test_tray_spacing_chosen():
 
 
 def test_stage_pressures_from_the_sized_pressure_drop(tmp_path):
-    import json
-
     case = tmp_path / "fed-back.toml"
-    case.write_text(BASE + '[internals]\ntray_type = "sieve"\npressure_drop_from_sizing = true\n', encoding="utf-8")
+    case.write_text(LOW_DROP + '[internals]\ntray_type = "sieve"\npressure_drop_from_sizing = true\n', encoding="utf-8")
     result = CliRunner().invoke(main, ["run", str(case), "--out", str(tmp_path / "out"), "--no-plots"])
     assert result.exit_code == 0, result.output
     record = json.loads((tmp_path / "out" / "results.json").read_text(encoding="utf-8"))
@@ -115,7 +114,30 @@ def test_stage_pressures_from_the_sized_pressure_drop(tmp_path):
     # the loop stops when the drop per stage changes by under 1 % between rounds
     assert per_stage == pytest.approx(record["sizing"]["pressure_drop_Pa"] / n_stages, rel=0.01)
     assert record["stages"]["pressure_Pa"][-1] - record["stages"]["pressure_Pa"][0] == pytest.approx(per_stage * (n_stages - 1))
-    assert per_stage > 500.0  # the case's own 0.5 kPa per stage was replaced
+    assert per_stage > 1000.0  # the case's own 0.5 kPa per stage was replaced
+    assert not [w for w in record["warnings"] if "sized pressure drop" in w]
+    report = (tmp_path / "out" / "report.md").read_text(encoding="utf-8")
+    assert f"| pressure drop the stage model solved with | {per_stage * n_stages / 1e3:.3g} kPa " in report
+    assert "from the sized pressure drop" in report
+
+
+def test_a_pressure_drop_far_from_the_sized_one_is_warned_about(tmp_path):
+    """The demo at 0.5 kPa a stage: its 20 sieve trays size to some 30 kPa, six times the 5 kPa
+    the stage model solved with, a fifth of the bottom pressure."""
+    case = tmp_path / "low-drop.toml"
+    case.write_text(LOW_DROP + DEMO[DEMO.index("[internals]"):], encoding="utf-8")
+    result = CliRunner().invoke(main, ["run", str(case), "--out", str(tmp_path / "out"), "--no-plots"])
+    assert result.exit_code == 0, result.output
+    record = json.loads((tmp_path / "out" / "results.json").read_text(encoding="utf-8"))
+    sized = record["sizing"]["pressure_drop_Pa"]
+    assert sized > 4 * 5000.0
+    (warning,) = [w for w in record["warnings"] if "sized pressure drop" in w]
+    assert f"the sized pressure drop, {sized / 1e3:.3g} kPa, differs from the 5 kPa the stage model solved with" in warning
+    assert "pressure_drop_from_sizing = true" in warning
+    top = record["column"]["top_pressure_Pa"]
+    assert f"fed at about {(top + sized) / 1e5:.4g} bar" in warning
+    report = (tmp_path / "out" / "report.md").read_text(encoding="utf-8")
+    assert "| pressure drop the stage model solved with | 5 kPa (0.5 kPa on each of 10 stages, as given" in report
 
 
 def test_pressure_drop_from_sizing_is_refused_with_a_design():

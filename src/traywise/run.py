@@ -17,8 +17,11 @@ render it. ``sweep_case`` runs the solver over a range of one input for ``traywi
 Only the standard library is imported at module level, so that the command line stays fast.
 """
 
+import math
 import warnings
 from dataclasses import dataclass
+
+PRESSURE_DROP_MISMATCH = 0.02  # of the bottom stage pressure, beyond which the sizing warns [-]; our judgement
 
 
 @dataclass(frozen=True)
@@ -266,9 +269,27 @@ def _size(case, solution):
 
             loop = size_with_stage_pressures(case.column, case.model, given.internals, start=solution, **arguments)
             return loop.sizing, loop.solution
-        return size_column(solution, case.model.components, given.internals, **arguments), None
+        sizing = size_column(solution, case.model.components, given.internals, **arguments)
     except SizingInputError as error:
         raise CaseError(f"{case.source}: internals.{error.quantity}", error.message) from None
+    return _pressure_drop_checked(sizing, solution.column), None
+
+
+def _pressure_drop_checked(sizing, column):
+    """``sizing`` with a warning where its pressure drop and the one the stage model solved with
+    (drop per stage times stages, ``sizing.pressure_loop``'s convention) differ by more than
+    PRESSURE_DROP_MISMATCH of the bottom stage pressure, which shifts the K-values there about as much."""
+    from dataclasses import replace
+
+    assumed, bottom = column.pressure_drop * column.n_stages, float(column.pressures[-1])
+    sized = sizing.total_pressure_drop
+    if not math.isfinite(sized) or abs(sized - assumed) <= PRESSURE_DROP_MISMATCH * bottom:  # NaN: flooded, said elsewhere
+        return sizing
+    warning = (f"the sized pressure drop, {sized / 1e3:.3g} kPa, differs from the {assumed / 1e3:.3g} kPa the stage "
+               f"model solved with by {abs(sized - assumed) / bottom:.0%} of the bottom pressure: the gas must be fed at "
+               f"about {(float(column.pressures[0]) + sized) / 1e5:.4g} bar, and the K-values at the bottom are off by "
+               "about as much; pressure_drop_from_sizing = true in [internals] solves at the sized pressures")
+    return replace(sizing, warnings=sizing.warnings + (warning,))
 
 
 def _solvent_balance(case, solution):

@@ -196,8 +196,7 @@ def sizing_markdown(record):
             ("highest fraction of flood", _percent_of_flood(s)),
             ("column height, tangent to tangent", f"{s['column_height_m']:.2f} m"),
             ("pressure drop", _pressure_drop(s)),
-            ("pressure drop the stage model assumed", f"{_assumed_drop(record) / 1e3:.3g} kPa (the stage pressures are not "
-                                                      "changed by the sizing)")]
+            _stage_model_drop(record)]
     rows += [(key.replace("_", " "), _shown(value)) for key, value in s["internals"].items() if value is not None]
     if s["kind"] == "trays":
         rows += [("trays", s["trays"]), ("downcomer area / column area", f"{s['downcomer_area_fraction']:.3f}"),
@@ -217,10 +216,15 @@ def sizing_markdown(record):
     return blocks
 
 
-def _assumed_drop(record):
-    """Pressure difference between the bottom and the top stage that the stage pressures assume [Pa]."""
+def _stage_model_drop(record):
+    """The datasheet row of the pressure drop the stage model solved with: its drop per stage times
+    the stages (the convention of ``sizing.pressure_loop``), and whether the sizing set it."""
     column = record["column"]
-    return column["pressure_drop_Pa_per_stage"] * (column["theoretical_stages"] - 1)
+    per_stage, stages = column["pressure_drop_Pa_per_stage"], column["theoretical_stages"]
+    looped = (record["inputs"].get("internals") or {}).get("pressure_drop_from_sizing")
+    origin = "from the sized pressure drop" if looped else "as given; the stage pressures are not changed by the sizing"
+    return ("pressure drop the stage model solved with",
+            f"{per_stage * stages / 1e3:.3g} kPa ({per_stage / 1e3:.3g} kPa on each of {stages} stages, {origin})")
 
 
 def _shown(value):
