@@ -1,6 +1,8 @@
 """The report's section on the aqueous electrolyte liquid: pH, ionic strength and the molality of
 every species on every stage, read from the results record's ``electrolyte`` section."""
 
+from .tables import concentration, percent
+
 SECTION = "Liquid chemistry (aqueous electrolyte)"
 NOTE = ("Species molalities per kg of water on each stage, from the converged profile; pH is -log10 of "
         "the hydrogen-ion activity on the molality basis. The model's stated range and any caustic used "
@@ -23,16 +25,24 @@ def electrolyte_blocks(results):
 
 
 def _with_and_without(results):
-    """The same column with and without the electrolyte liquid: absorbed per solute, both closures."""
+    """The same column with and without the electrolyte liquid: absorbed and left in the gas per
+    solute, both closures."""
     physical = results["electrolyte"]["with_henry"]
     if physical is None:
         return []
     names = [c["name"] for c in results["components"] if c["equilibrium_model"] == "electrolyte"]
-    rows = [(name, f"{100 * results['fraction_absorbed'][name]:.6g}", f"{100 * physical['fraction_absorbed'][name]:.6g}")
-            for name in names]
+    gas_out = results["gas_out"]
+    rigorous_left = {name: gas_out["component_flows_mol_per_s"][name] / gas_out["flow_mol_per_s"] for name in names}
+    henry_gas = physical["gas_out_mol_per_s"]
+    henry_left = {name: henry_gas[name] / sum(henry_gas.values()) for name in names}
+    rows = []
+    for name in names:
+        rows.append((f"{name} absorbed [%]", percent(results["fraction_absorbed"][name]),
+                     percent(physical["fraction_absorbed"][name])))
+        rows.append((f"{name} in the gas out", concentration(rigorous_left[name]), concentration(henry_left[name])))
     closure = max(results["convergence"]["component_closure"].values())
     rows.append(("largest component balance closure [-]", f"{closure:.1e}", f"{physical['max_component_closure']:.1e}"))
     rows.append(("energy balance closure [-]", f"{results['convergence']['energy_closure']:.1e}",
                  f"{physical['energy_closure']:.1e}"))
-    headers = ["absorbed [%]", "electrolyte liquid (this run)", "physical Henry's law (same column)"]
+    headers = ["", "electrolyte liquid (this run)", "physical Henry's law (same column)"]
     return [("With and without the electrolyte liquid", "table", (headers, rows))]
