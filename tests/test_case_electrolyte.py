@@ -120,5 +120,12 @@ def test_the_acid_gas_demo_on_the_electrolyte_liquid_shows_itself_with_and_witho
     report = (tmp_path / "out" / "report.md").read_text()
     assert "## With and without the electrolyte liquid" in report
     assert "physical Henry's law (same column)" in report and "electrolyte liquid (this run)" in report
-    with_henry = json.loads((tmp_path / "out" / "results.json").read_text())["electrolyte"]["with_henry"]
+    record = json.loads((tmp_path / "out" / "results.json").read_text())
+    with_henry = record["electrolyte"]["with_henry"]
     assert with_henry["max_component_closure"] < 1e-9 and with_henry["energy_closure"] < 1e-7
+    # what each leaves in the gas, from the two gas outlets of results.json (ppm below 0.1 %)
+    rigorous = record["gas_out"]["component_flows_mol_per_s"]["sulfur dioxide"] / record["gas_out"]["flow_mol_per_s"]
+    physical = with_henry["gas_out_mol_per_s"]["sulfur dioxide"] / sum(with_henry["gas_out_mol_per_s"].values())
+    assert rigorous < 1e-3 < physical
+    row = next(line for line in report.splitlines() if line.startswith("| sulfur dioxide in the gas out |"))
+    assert row == f"| sulfur dioxide in the gas out | {1e6 * rigorous:.4g} ppm (mol) | {100 * physical:.4g} mol% |"
