@@ -19,8 +19,20 @@ BASE = DEMO[: DEMO.index("[internals]")]
 LOW_DROP = re.sub(r'pressure_drop_per_stage = "3 kPa".*', 'pressure_drop_per_stage = "0.5 kPa"', BASE)
 
 
+NO_TRAYS = BASE.replace("overall_efficiency = 0.5\n", "")  # a packed column has no tray efficiency
+
+
 def with_internals(table):
-    return parse_case(BASE + "[internals]\n" + table, "sized.toml")
+    return parse_case((NO_TRAYS if "packing" in table else BASE) + "[internals]\n" + table, "sized.toml")
+
+
+@pytest.mark.parametrize("efficiency", ["overall_efficiency = 0.5", "murphree_efficiency = 0.7"])
+def test_a_tray_efficiency_with_packing_is_refused(efficiency):
+    text = NO_TRAYS.replace("[column]\n", f"[column]\n{efficiency}\n") + '[internals]\npacking = "ceramic raschig rings 25 mm"\n'
+    key = efficiency.split(" =")[0]
+    with pytest.raises(CaseError, match=f"column.{key}") as refused:
+        parse_case(text, "packed.toml")
+    assert "HETP" in str(refused.value) and "internals.tray_type" in str(refused.value)
 
 
 def test_trays_with_units_and_defaults():

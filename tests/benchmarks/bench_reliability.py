@@ -185,6 +185,11 @@ def valid_case(rng):
             "enthalpy_of_solution": f"{-rng.uniform(5, 30):.1f} kJ/mol", "gas_heat_capacity": "37 J/(mol K)"}
         case["gas_feed"]["composition"]["demo gas"] = "0.5 mol%"
         features.append("inline component")
+    if "packing" in case.get("internals", {}):  # a packed column has no trays (case/internals.py)
+        for key in ("overall_efficiency", "murphree_efficiency"):
+            column.pop(key, None)
+        if "murphree" in features:
+            features.remove("murphree")
     if rng.random() < 0.1:
         case["report"] = {"plots": rng.random() < 0.5}
     if "sweep" in case and "design" not in case:

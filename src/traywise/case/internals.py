@@ -30,6 +30,15 @@ class InternalsInput:
     pressure_drop_from_sizing: bool = False
 
 
+def _no_tray_efficiency(column):
+    """A packed column has no trays: refuse the tray efficiencies of its [column] table."""
+    for key in ("overall_efficiency", "murphree_efficiency"):
+        if column is not None and key in column:
+            column.fail(key, "applies to trays, and [internals] describes packing: a packed column's height comes from "
+                        "its theoretical stages and the HETP; leave the tray efficiency out, or size trays "
+                        "(internals.tray_type)")
+
+
 def read_internals(top):
     """The ``[internals]`` table of the top-level Section as an InternalsInput, or None when absent."""
     section = top.table("internals", INTERNALS_KEYS)
@@ -68,6 +77,8 @@ def read_internals(top):
                      "stage pressures of [column]); give column.pressure_drop_per_stage instead")
     if diameter is not None and not 0.05 <= diameter <= 20.0:
         section.fail("diameter", f"found {diameter:g} m; expected 0.05-20 m")
+    if packed:
+        _no_tray_efficiency(top.table("column"))
     try:
         internals = TrayInternals(**values) if trays else PackedInternals(**values)
     except SizingInputError as error:

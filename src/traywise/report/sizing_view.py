@@ -197,7 +197,8 @@ def sizing_markdown(record):
             ("column height, tangent to tangent", f"{s['column_height_m']:.2f} m"),
             ("pressure drop", _pressure_drop(s)),
             _stage_model_drop(record)]
-    rows += [(key.replace("_", " "), _shown(value)) for key, value in s["internals"].items() if value is not None]
+    rows += [("packing type" if key == "type" else key.replace("_", " "), _shown(value))
+             for key, value in s["internals"].items() if value is not None]
     if s["kind"] == "trays":
         rows += [("trays", s["trays"]), ("downcomer area / column area", f"{s['downcomer_area_fraction']:.3f}"),
                  ("weir length", f"{s['weir_length_m']:.3f} m"),
