@@ -35,6 +35,14 @@ def test_a_tray_efficiency_with_packing_is_refused(efficiency):
     assert "HETP" in str(refused.value) and "internals.tray_type" in str(refused.value)
 
 
+def test_oconnell_trays_with_packing_are_refused():
+    design = (Path(__file__).resolve().parents[1] / "cases" / "ammonia-scrubber-design.toml").read_text(encoding="utf-8")
+    assert "oconnell_efficiency = true" in design
+    text = design.replace("overall_efficiency = 0.5\n", "") + '\n[internals]\npacking = "ceramic raschig rings 25 mm"\n'
+    with pytest.raises(CaseError, match="design.oconnell_efficiency"):
+        parse_case(text, "packed-design.toml")
+
+
 def test_trays_with_units_and_defaults():
     internals = with_internals('tray_type = "valve"\ntray_spacing = "24 in"\nweir_height = "2 in"\n').internals
     assert isinstance(internals.internals, TrayInternals) and internals.diameter is None

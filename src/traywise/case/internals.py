@@ -30,13 +30,18 @@ class InternalsInput:
     pressure_drop_from_sizing: bool = False
 
 
-def _no_tray_efficiency(column):
-    """A packed column has no trays: refuse the tray efficiencies of its [column] table."""
+NO_TRAYS = ("applies to trays, and [internals] describes packing: a packed column's height comes from its "
+            "theoretical stages and the HETP; leave the tray efficiency out, or size trays (internals.tray_type)")
+
+
+def _no_tray_efficiency(top):
+    """A packed column has no trays: refuse the tray efficiencies of its [column] and [design] tables."""
+    column, design = top.table("column"), top.table("design")
     for key in ("overall_efficiency", "murphree_efficiency"):
         if column is not None and key in column:
-            column.fail(key, "applies to trays, and [internals] describes packing: a packed column's height comes from "
-                        "its theoretical stages and the HETP; leave the tray efficiency out, or size trays "
-                        "(internals.tray_type)")
+            column.fail(key, NO_TRAYS)
+    if design is not None and "oconnell_efficiency" in design and design.boolean("oconnell_efficiency"):
+        design.fail("oconnell_efficiency", NO_TRAYS)
 
 
 def read_internals(top):
@@ -78,7 +83,7 @@ def read_internals(top):
     if diameter is not None and not 0.05 <= diameter <= 20.0:
         section.fail("diameter", f"found {diameter:g} m; expected 0.05-20 m")
     if packed:
-        _no_tray_efficiency(top.table("column"))
+        _no_tray_efficiency(top)
     try:
         internals = TrayInternals(**values) if trays else PackedInternals(**values)
     except SizingInputError as error:
