@@ -85,6 +85,9 @@ class Pitzer:
         self.pair_scatter = np.zeros((len(entries), s))  # entry -> the row of W m it adds to
         self.pair_scatter[np.arange(len(entries)), self.pair_rows] = 1.0
         self.has_w1 = bool(np.any(self.w1))
+        # W0 + h W1 is sparse (one entry per cation-anion pair): its entries, added onto the dense part
+        self.w_entries = np.nonzero((self.w0 != 0.0) | (self.w1 != 0.0))
+        self.w0_values, self.w1_values = self.w0[self.w_entries][:, None], self.w1[self.w_entries][:, None]
         self.a_phi_coefficients, self.b, self.alpha = a_phi_coefficients, b, alpha
         self.water_molar_mass = water_molar_mass
 
@@ -128,16 +131,14 @@ class Pitzer:
             scalar = amp * f1 + 0.5 * h_i * mw1m  # coefficient of q in ln gamma
             curvature = amp * f2 + 0.5 * h_ii * mw1m  # coefficient of q q^T in the Hessian
             a = h_i[:, None] * w1m  # the Hessian's cross term a q^T + q a^T
-            hessian = self.w1[:, :, None] * h
-            hessian += self.w0[:, :, None]
             # a q^T + q a^T + curvature q q^T = b q^T + q b^T with b = a + curvature q / 2
             bq = (a + (0.5 * curvature)[:, None] * q).T[:, None, :] * q[None, :, None]
-            hessian += bq
-            hessian += bq.transpose(1, 0, 2)
+            hessian = bq + bq.transpose(1, 0, 2)
+            hessian[self.w_entries] += self.w0_values + self.w1_values * h
         else:
             scalar, curvature, a = amp * f1, amp * f2, None
             hessian = self.qq[:, :, None] * curvature
-            hessian += self.w0[:, :, None]
+            hessian[self.w_entries] += self.w0_values
         if self.pairs:  # molecule pairs: W_ac = 2 lambda
             mc = m[:, self.pair_columns]
             wm += (lam * mc) @ self.pair_scatter

@@ -182,11 +182,18 @@ class SpeciationSystem:
         self.charge_row = charge_row.astype(bool)
         self.weak_rows = self.target.astype(bool)
         self.fixed_rows = np.diag(self.fixed).astype(bool)
-        self.constant_jacobian = (self.c + self.fixed)[:, :, None]
+        constant = self.c + self.fixed
+        self.constant_entries = np.nonzero(constant)  # the Jacobian's constant part, sparse
+        self.constant_values = constant[self.constant_entries][:, None]
         self.h = position["H+"]
         self.masters = np.array([j for j in range(s) if j not in set(self.derived) and self.c[:, j].any()], dtype=int)
         self.c_masters = self.c[np.ix_(self.derived, self.masters)]  # C on the derived rows is I plus these
         self.abs_charges = np.abs(self.charges)
+        # the rows the sparse parts of the Jacobian touch (``_residual_and_jacobian``)
+        self.undriven_rows = np.array([i for i in range(s) if i not in set(self.derived)], dtype=int)
+        self.balance_rows = np.flatnonzero(self.balance.any(axis=1))
+        self.water_rows = np.flatnonzero(self.nu_w)
+        self.r_rows = np.flatnonzero(self.weak_rows | self.fixed_rows)
         self.fixed_index = np.flatnonzero(self.fixed_rows)
         self.water_molar_mass = water_molar_mass
         self.sodium_row = position.get("Na+")
@@ -236,15 +243,21 @@ class SpeciationSystem:
         # the Jacobian stage-last (s, s, n), so that its products run along the stages
         s, n = hessian.shape[1:]
         # C H: a derived species' row is its own row of H less its masters' (C is I on the derived)
-        jacobian = np.zeros((s, s, n))
+        jacobian = np.empty((s, s, n))
+        jacobian[self.undriven_rows] = 0.0
         masters = hessian[self.masters].reshape(self.masters.size, -1)
         jacobian[self.derived] = hessian[self.derived] + (self.c_masters @ masters).reshape(self.derived.size, s, n)
-        jacobian += self.balance[:, :, None] * weight.T[:, None, :]
+        rows = self.balance_rows
+        jacobian[rows] += self.balance[rows][:, :, None] * weight.T[rows][:, None, :]
         jacobian *= m.T[None]
-        jacobian += self.constant_jacobian
-        # rank-two part: water activity in the mass action, r in the balances and fixed rows
-        jacobian -= self.nu_w[:, None, None] * (dln_aw_dm * m).T[None]
-        jacobian += (balance * self.weak_rows + self.fixed_rows).T[:, None, :] * dln_r.T[None]
+        jacobian[self.constant_entries] += self.constant_values
+        # rank-two part, on the rows it touches: water activity in the mass action (the rows of the
+        # species that bind water), r in the balances and fixed rows (in the columns of those species)
+        water = self.water_rows
+        jacobian[water] -= self.nu_w[water][:, None, None] * (dln_aw_dm * m).T[None]
+        rows = self.r_rows
+        jacobian[rows[:, None], water[None, :]] += ((balance * self.weak_rows + self.fixed_rows).T[rows][:, None, :]
+                                                    * dln_r.T[water][None])
         return r, jacobian.transpose(2, 0, 1), m, activity
 
     def _ln_r0(self, totals_rows):
