@@ -53,12 +53,20 @@ def uncertainty_record(case, result, files=()):
 
 
 def not_sampled(case, inputs):
-    """What the samples leave out, each in one line: the equilibrium tables a case brings, and a
-    tray efficiency that is not sampled (``uncertainty.inputs``)."""
+    """What the samples leave out, each in one line: the equilibrium tables a case brings, the
+    electrolyte liquid's constants, the real gas's parameters, and a tray efficiency that is not
+    sampled (``uncertainty.inputs``)."""
     model = case.model
     lines = [f"the equilibrium table of {model.names[i]} (the case's own data, with no uncertainty stated): the "
              "figures here leave its uncertainty out"
              for i, kind in enumerate(model.equilibrium) if kind == "table"]
+    electrolytes = [name for name, kind in zip(model.names, model.equilibrium) if kind == "electrolyte"]
+    if electrolytes:
+        lines.append(f"the aqueous electrolyte liquid of {' and '.join(electrolytes)} (its Henry's, dissociation and "
+                     "Pitzer constants): the figures here leave their uncertainty out")
+    if model.gas_phase is not None:
+        lines.append("the Peng-Robinson parameters of the real gas (critical constants, acentric factors, binary "
+                     "parameters, partial molar volumes)")
     sampled = {e.quantity for e in inputs if e.component == COLUMN}
     held = "held at the case's value (uncertainty.tray_efficiency is 0 %, or scope 'listed' without it)"
     murphree_given = bool((case.column.murphree < 1.0).any())

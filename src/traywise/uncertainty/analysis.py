@@ -137,6 +137,9 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     if electrolytes:  # its constants and Pitzer parameters come from components/electrolyte/, unsampled
         sentence = (f"{sentence[:-1]}; the aqueous electrolyte liquid of {' and '.join(electrolytes)} (its Henry's, "
                     "dissociation and Pitzer constants) is not sampled.")
+    if model.gas_phase is not None:  # critical constants, acentric factors, kij and partial volumes
+        sentence = (f"{sentence[:-1]}; the Peng-Robinson parameters of the real gas (critical constants, acentric "
+                    "factors, binary parameters, partial molar volumes) are not sampled.")
     return UncertaintyResult(inputs, tuple(correlations), seed, n_samples, engine, scores, factors, job.outputs,
                              np.array(nominal, dtype=float), data, converged, tuple(r[2] for r in results),
                              summaries, design_output, model.names[key], sentence, seconds)

@@ -46,7 +46,8 @@ def perturbed_model(model, inputs, factors):
 
     Returns
     -------
-    PropertyModel   Same components (perturbed records), models, activity model and tables
+    PropertyModel   Same components (perturbed records), models, activity model, tables and real
+    gas (its critical constants, binary parameters and partial volumes are not sampled)
     """
     scaled = {}
     for entry, factor in zip(inputs, factors):
@@ -55,7 +56,8 @@ def perturbed_model(model, inputs, factors):
     if not scaled:
         return model
     components = [perturbed_component(c, scaled.get(c.name, {})) for c in model.components]
-    return PropertyModel(components, model.equilibrium, activity=model.activity, tables=model.tables)
+    return PropertyModel(components, model.equilibrium, activity=model.activity, tables=model.tables,
+                         gas_phase=model.gas_phase)
 
 
 def perturbed_column(column, inputs, factors):
