@@ -28,10 +28,10 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..errors import TraywiseError
-
-STRAIGHT_LINE_LIMIT = 2.0  # chord slope over K beyond which the line is far from straight [-]; our judgement
 from .equilibrium_curve import mole_ratio_equilibrium
 from .kremser import approach_to_equilibrium, kremser_gas_outlet, kremser_stages
+
+STRAIGHT_LINE_LIMIT = 2.0  # chord slope over K beyond which the line is far from straight [-]; our judgement
 
 
 @dataclass(frozen=True)
