@@ -357,3 +357,63 @@ def test_an_unforeseen_error_in_a_sample_is_kept_as_its_failure(monkeypatch):
     monkeypatch.setattr(samples, "solve_column", broken)
     outputs, ok, reason = samples.solve_sample(job, np.ones(len(inputs)))
     assert not ok and np.isnan(outputs).all() and reason == "unexpected ValueError: f(0.0) and f(0.69) have the same sign"
+
+
+# -- the electrolyte liquid's constants --------------------------------------------------------
+
+ACID_GAS = Path(__file__).resolve().parents[1].joinpath("cases", "acid-gas-vent-scrubber.toml")
+
+
+def test_the_electrolyte_liquids_henry_and_dissociation_constants_are_sampled_with_their_sources():
+    """SO2's Henry's constant from the data file, u = 0.05/1.23 as Goldberg & Parker state it
+    (J. Res. NBS 90 (1985) 341, the file's note); its first dissociation constant by its difference
+    from the second source the file checks it against at 25 degC (1.39e-2 against 1.3e-2 mol/kg,
+    Seinfeld & Pandis 2006, recalled from memory); CO2's Henry's constant and its temperature
+    dependence from its component file, its K1 at the 2 % floor (the two sources agree closer)."""
+    case = parse_case(ACID_GAS.read_text(encoding="utf-8"), "acid.toml")
+    inputs, _, _, _ = uncertainty_settings(case)
+    found = {(e.component, e.quantity): e for e in inputs}
+    henry = found[("sulfur dioxide", "henry_constant")]
+    assert henry.relative == pytest.approx(0.05 / 1.23, rel=1e-12) and "goldberg1985" in henry.basis and not henry.default
+    k1 = found[("sulfur dioxide", "dissociation_constant")]
+    assert k1.relative == pytest.approx(1.39 / 1.3 - 1.0, rel=1e-6) and "seinfeld2006" in k1.basis
+    assert ("sulfur dioxide", "enthalpy_of_solution") not in found  # the data file's temperature dependence
+    assert found[("carbon dioxide", "henry_constant")] == library_uncertainty(case.model.components[2], "henry_constant")
+    assert ("carbon dioxide", "enthalpy_of_solution") in found
+    assert found[("carbon dioxide", "dissociation_constant")].relative == pytest.approx(0.02)
+
+
+def _apparent(model, t, x):
+    props = model.evaluate(np.full(t.size, t), np.full(t.size, 1.05e5), np.tile(x, (t.size, 1)))
+    return props
+
+
+@pytest.mark.parametrize("quantity", ["henry_constant", "dissociation_constant"])
+def test_a_factor_on_an_electrolyte_constant_moves_that_constant_and_keeps_the_liquid_consistent(quantity):
+    """At a fixed liquid the speciation does not depend on the gas: a Henry's constant times 1.3
+    multiplies SO2's apparent K by 1.3 exactly; a first dissociation constant times 1.3 leaves
+    less molecular SO2 and lowers it. Either way the perturbed liquid keeps van 't Hoff's relation
+    between ln K and h_V - h_L (central difference, 1e-6)."""
+    case = parse_case(ACID_GAS.read_text(encoding="utf-8"), "acid.toml")
+    model = case.model
+    i = model.names.index("sulfur dioxide")
+    x = np.zeros(model.n_components)
+    x[model.names.index("water")], x[i] = 0.998, 0.002
+    entry = UncertainInput("sulfur dioxide", quantity, 0.1, "test", False)
+    perturbed = perturbed_model(model, (entry,), [1.3])
+    t = np.array([300.0])
+    ratio = _apparent(perturbed, t, x).k[0, i] / _apparent(model, t, x).k[0, i]
+    if quantity == "henry_constant":
+        assert ratio == pytest.approx(1.3, rel=1e-9)
+    else:
+        assert ratio < 0.95
+        name = "sulfur_dioxide_1"
+        base, moved = model.electrolyte.data.reactions[name], perturbed.electrolyte.data.reactions[name]
+        for temperature in (280.0, 330.0):
+            assert moved.ln_k(temperature)[0] - base.ln_k(temperature)[0] == pytest.approx(math.log(1.3), abs=1e-12)
+            assert moved.ln_k(temperature)[1] == pytest.approx(base.ln_k(temperature)[1], rel=1e-12)
+    step = 1e-3
+    ln_k = [np.log(_apparent(perturbed, t + d, x).k[0, i]) for d in (-step, step)]
+    slope = (ln_k[1] - ln_k[0]) / (1.0 / (t[0] + step) - 1.0 / (t[0] - step))
+    props = _apparent(perturbed, t, x)
+    assert slope == pytest.approx(-(props.h_vapour[0, i] - props.h_liquid[0, i]) / GAS_CONSTANT, rel=1e-6)

@@ -2,7 +2,7 @@
 (cases/README.md). Turned into an ``UncertaintyRequest`` (traywise.uncertainty.inputs)."""
 
 from ..errors import CaseError
-from ..uncertainty.inputs import ATTRIBUTES, QUANTITIES, SCOPES, UncertaintyRequest
+from ..uncertainty.inputs import QUANTITIES, SCOPES, UncertaintyRequest, used_quantities
 from .reader import where
 
 DEFAULT_SAMPLES = 200
@@ -32,12 +32,12 @@ def read_uncertainty(top, components):
         if i is None:
             values.fail(written, f"'{written}' is not a component of this case; its components are {components.names()}")
         name, kind = components.model.names[i], components.model.equilibrium[i]
-        for quantity, (what, kinds, _, _) in QUANTITIES.items():
+        for quantity, (what, _, _, _) in QUANTITIES.items():
             if quantity not in section:
                 continue
-            if kind not in kinds or getattr(components.model.components[i], ATTRIBUTES[quantity]) is None:
+            if quantity not in used_quantities(components.model, i):
                 section.fail(quantity, f"{name} (equilibrium '{kind}') has no {what} that this case uses; the "
-                             f"quantities it uses: {', '.join(_used(components.model, i)) or 'none'}")
+                             f"quantities it uses: {', '.join(used_quantities(components.model, i)) or 'none'}")
             relative[(name, quantity)] = section.fraction(quantity, low=0.0, high=1.0, open_low=False)
         if CORRELATION_KEY in section:
             correlations[name] = section.fraction(CORRELATION_KEY, low=-1.0, high=1.0, open_high=True)
@@ -48,11 +48,6 @@ def read_uncertainty(top, components):
     return UncertaintyRequest(samples=samples, seed=seed, scope=scope, relative=relative, correlations=correlations,
                               tray_efficiency=tray_efficiency)
 
-
-def _used(model, i):
-    """The quantities of component i that the model uses."""
-    kind, component = model.equilibrium[i], model.components[i]
-    return [q for q, (_, kinds, _, _) in QUANTITIES.items() if kind in kinds and getattr(component, ATTRIBUTES[q]) is not None]
 
 
 def uncertainty_settings(case, *, samples=None, seed=None):

@@ -164,12 +164,12 @@ def eos_liquid(components, equilibrium):
     return EosLiquid(members, chosen, kij_matrix(chosen)[0]) if chosen else None
 
 
-def aqueous_electrolyte(components, equilibrium):
-    """The aqueous electrolyte liquid (``electrolyte.AqueousElectrolyte``) of the 'electrolyte'
-    solutes, with water (a 'raoult' component) and any non-volatile sodium hydroxide as members;
-    None without 'electrolyte' solutes (then sodium hydroxide is a plain non-volatile liquid, as
-    every component is under physical Henry's law). A solute the liquid does not know, or no
-    water, is refused."""
+def aqueous_electrolyte(components, equilibrium, data=None):
+    """The aqueous electrolyte liquid (``electrolyte.AqueousElectrolyte``, on ``data``: default the
+    library's data file) of the 'electrolyte' solutes, with water (a 'raoult' component) and any
+    non-volatile sodium hydroxide as members; None without 'electrolyte' solutes (then sodium
+    hydroxide is a plain non-volatile liquid, as every component is under physical Henry's law).
+    A solute the liquid does not know, or no water, is refused."""
     from .electrolyte import AqueousElectrolyte  # only cases with electrolytes load its data
 
     caustic = [i for i, c in enumerate(components) if c.cas == SODIUM_HYDROXIDE_CAS and equilibrium[i] == "nonvolatile"]
@@ -189,7 +189,7 @@ def aqueous_electrolyte(components, equilibrium):
         if components[i].cas == SODIUM_HYDROXIDE_CAS:
             raise InputError(components[i].name, "sodium hydroxide is non-volatile: give it equilibrium 'nonvolatile' "
                              "(it joins the electrolyte liquid by itself)")
-    return AqueousElectrolyte(components, sorted(water[:1] + solutes + caustic))
+    return AqueousElectrolyte(components, sorted(water[:1] + solutes + caustic), data)
 
 
 def _position(names, name, where):

@@ -73,6 +73,8 @@ class PropertyModel:
         of them; anchoring to Henry's constants needs water among them.
     tables : dict, optional   Name -> ``EquilibriumTable`` for every 'table' component.
     gas_phase : gas_phase.GasPhase, optional   The real gas (None: ideal gas); also settable.
+    electrolyte_data : electrolyte.data.ElectrolyteData, optional   The aqueous electrolyte liquid's
+        constants (default: the library's data file; a perturbed copy for the uncertainty samples).
 
     Without liquid mole fractions, ``evaluate`` takes the reference liquid: the first 'raoult'
     or 'nonvolatile' component (else the heaviest 'eos' one), pure, every solute at infinite
@@ -85,7 +87,8 @@ class PropertyModel:
     the liquid, are understated.
     """
 
-    def __init__(self, components, equilibrium=None, *, activity=None, tables=None, gas_phase=None):
+    def __init__(self, components, equilibrium=None, *, activity=None, tables=None, gas_phase=None,
+                 electrolyte_data=None):
         self.components = tuple(components)
         kinds = tuple(equilibrium) if equilibrium is not None else tuple(c.equilibrium for c in components)
         if len(kinds) != len(self.components):
@@ -118,6 +121,7 @@ class PropertyModel:
             self.reference_liquid[min(liquid)] = 1.0
         self.activity = activity
         self.tables = dict(tables or {})
+        self._electrolyte_data = electrolyte_data
         self._liquids = self._composition_liquids(activity)
         self.composition_dependent = bool(self._liquids)
         self.gas_phase = gas_phase
@@ -155,7 +159,7 @@ class PropertyModel:
             liquids.append(eos)
             if not self._liquid_index.size:
                 self.reference_liquid[eos.heaviest] = 1.0
-        electrolyte = aqueous_electrolyte(self.components, self.equilibrium)
+        electrolyte = aqueous_electrolyte(self.components, self.equilibrium, self._electrolyte_data)
         if electrolyte is not None:
             liquids.append(electrolyte)
         self.electrolyte = electrolyte

@@ -12,6 +12,7 @@ import math
 
 from .. import __version__
 from .cautions import SAFETY_CAUTIONS, safety_one_line
+from ..uncertainty.electrolyte_inputs import ELECTROLYTE_NOT_SAMPLED
 from ..uncertainty.inputs import COLUMN, MURPHREE, OVERALL
 from .folder import MARKER, write_results_folder
 
@@ -62,8 +63,8 @@ def not_sampled(case, inputs):
              for i, kind in enumerate(model.equilibrium) if kind == "table"]
     electrolytes = [name for name, kind in zip(model.names, model.equilibrium) if kind == "electrolyte"]
     if electrolytes:
-        lines.append(f"the aqueous electrolyte liquid of {' and '.join(electrolytes)} (its Henry's, dissociation and "
-                     "Pitzer constants): the figures here leave their uncertainty out")
+        lines.append(f"{ELECTROLYTE_NOT_SAMPLED} of {' and '.join(electrolytes)}: the figures here leave "
+                     "their uncertainty out (its Henry's and first dissociation constants are sampled)")
     if model.gas_phase is not None:
         lines.append("the Peng-Robinson parameters of the real gas (critical constants, acentric factors, binary "
                      "parameters, partial molar volumes)")

@@ -14,6 +14,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..mesh.newton import SolverSettings, solve_column
+from .electrolyte_inputs import ELECTROLYTE_NOT_SAMPLED
 from .inputs import COLUMN, MURPHREE
 from .sampling import factors_from_scores, normal_scores
 from .samples import run_local, sample_job, solve_sample
@@ -134,9 +135,8 @@ def run_uncertainty(column, model, inputs, *, key, correlations=(), design=None,
     if tables:
         sentence = f"{sentence[:-1]}; the equilibrium table of {' and '.join(tables)} is not sampled."
     electrolytes = [name for name, kind in zip(model.names, model.equilibrium) if kind == "electrolyte"]
-    if electrolytes:  # its constants and Pitzer parameters come from components/electrolyte/, unsampled
-        sentence = (f"{sentence[:-1]}; the aqueous electrolyte liquid of {' and '.join(electrolytes)} (its Henry's, "
-                    "dissociation and Pitzer constants) is not sampled.")
+    if electrolytes:  # its Henry's and first dissociation constants are sampled (electrolyte_inputs), not the rest
+        sentence = f"{sentence[:-1]}; {ELECTROLYTE_NOT_SAMPLED} of {' and '.join(electrolytes)} are not sampled."
     if model.gas_phase is not None:  # critical constants, acentric factors, kij and partial volumes
         sentence = (f"{sentence[:-1]}; the Peng-Robinson parameters of the real gas (critical constants, acentric "
                     "factors, binary parameters, partial molar volumes) are not sampled.")

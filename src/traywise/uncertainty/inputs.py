@@ -42,15 +42,18 @@ from dataclasses import dataclass
 
 from ..properties.component import MODEL_KINDS
 from ..properties.constants import T_REFERENCE
+from .electrolyte_inputs import DISSOCIATION, data_constant, data_uncertainty
 
 HENRY, SOLUTION = "henry_constant", "enthalpy_of_solution"
 # quantity -> (what it is, the equilibrium models that use it, default u, why the default)
 QUANTITIES = {
-    HENRY: ("Henry's constant at 298.15 K", ("henry", "activity"), 0.10,
+    HENRY: ("Henry's constant at 298.15 K", ("henry", "activity", "electrolyte"), 0.10,
             "default: 10 % on a Henry's constant (common practice); the source states no uncertainty"),
     SOLUTION: ("enthalpy of solution at 298.15 K (temperature dependence of the Henry's constant)",
-               ("henry", "activity"), 0.20,
+               ("henry", "activity", "electrolyte"), 0.20,
                "default: 20 % on an enthalpy of solution from a Henry's-constant fit (common practice)"),
+    DISSOCIATION: ("first dissociation constant in water (the electrolyte liquid)", ("electrolyte",), None,
+                   "from the electrolyte data file (electrolyte_inputs.py)"),
     "vapour_pressure": ("vapour pressure", ("raoult", "activity"), 0.02,
                         "default: 2 % on a vapour-pressure correlation (common practice)"),
     "heat_of_vaporisation": ("heat of vaporisation", ("raoult",), 0.01,
@@ -147,17 +150,15 @@ def uncertain_inputs(model, request=UncertaintyRequest(), *, column=None, overal
     """
     stated = dict(request.relative or {})
     inputs = []
-    for component, kind in zip(model.components, model.equilibrium):
-        for quantity, (_, kinds, _, _) in QUANTITIES.items():
-            if kind not in kinds or getattr(component, ATTRIBUTES[quantity]) is None:
-                continue
+    for i, component in enumerate(model.components):
+        for quantity in used_quantities(model, i):
             if (component.name, quantity) in stated:
                 relative = float(stated[(component.name, quantity)])
                 entry = UncertainInput(component.name, quantity, relative, "stated in the case file", False)
             elif request.scope == "listed":
                 continue
             else:
-                entry = library_uncertainty(component, quantity)
+                entry = _electrolyte_uncertainty(model, component, quantity) or library_uncertainty(component, quantity)
             if entry.relative > 0.0:
                 inputs.append(entry)
     inputs += [e for e in efficiency_inputs(request, column, overall_efficiency, stage_design) if e.relative > 0.0]
@@ -168,6 +169,43 @@ def uncertain_inputs(model, request=UncertaintyRequest(), *, column=None, overal
         if all(name in names for name in pair) and rho != 0.0:
             correlations.append((names.index(pair[0]), names.index(pair[1]), float(rho)))
     return tuple(inputs), tuple(correlations)
+
+
+def used_quantities(model, i):
+    """The quantities (``QUANTITIES``) of component i that the model uses: by its equilibrium
+    model, with a value to perturb; for an 'electrolyte' solute the Henry's constant of its
+    molecular form, its temperature dependence where the component file holds it, and its first
+    dissociation constant where it has one (``electrolyte_inputs``)."""
+    kind, component = model.equilibrium[i], model.components[i]
+    found = []
+    for quantity, (_, kinds, _, _) in QUANTITIES.items():
+        if kind not in kinds:
+            continue
+        if kind == "electrolyte":
+            data = model.electrolyte.data
+            if quantity == DISSOCIATION and data_constant(component, DISSOCIATION, data) is None:
+                continue
+            if quantity == SOLUTION and data_constant(component, HENRY, data) is not None:
+                continue  # the temperature dependence of a data-file constant is not sampled
+            if quantity != DISSOCIATION and data_constant(component, quantity, data) is None \
+                    and component.henry_in_water is None:
+                continue
+        elif getattr(component, ATTRIBUTES[quantity]) is None:
+            continue
+        found.append(quantity)
+    return found
+
+
+def _electrolyte_uncertainty(model, component, quantity):
+    """The ``UncertainInput`` of a data-file constant of the electrolyte liquid, or None where the
+    value is the component file's."""
+    if model.electrolyte is None or model.equilibrium[model.names.index(component.name)] != "electrolyte":
+        return None
+    constant = data_constant(component, quantity, model.electrolyte.data)
+    if constant is None:
+        return None
+    relative, basis = data_uncertainty(constant, model.electrolyte.data)
+    return UncertainInput(component.name, quantity, relative, basis, False)
 
 
 def efficiency_inputs(request, column, overall_efficiency, stage_design):

@@ -10,6 +10,9 @@ A factor f multiplies, per quantity (``inputs.QUANTITIES``):
   vapour_pressure       Psat(T) at every T (its slope, and so Clapeyron's latent heat, unchanged)
   heat_of_vaporisation  the latent heat at its temperature
   gas_heat_capacity, liquid_heat_capacity   Cp at every T (all coefficients)
+  dissociation_constant the first dissociation constant of an 'electrolyte' solute, and the Henry's
+                        constants the electrolyte data file holds (SO2, HCl): ln K of the data file's
+                        constant shifted (``electrolyte_inputs``)
   murphree_efficiency   every stage's Murphree efficiency (capped at 1, ``perturbed_column``)
   overall_efficiency    the theoretical stages per actual tray (``sampled_overall_efficiency``)
 """
@@ -21,6 +24,7 @@ from ..properties.component import VapourPressure
 from ..properties.model import PropertyModel
 import numpy as np
 
+from .electrolyte_inputs import data_constant, ln_k_shift, perturbed_data
 from .inputs import COLUMN, HENRY, MURPHREE, OVERALL, REFERENCE_TEMPERATURE, SOLUTION
 
 
@@ -49,15 +53,22 @@ def perturbed_model(model, inputs, factors):
     PropertyModel   Same components (perturbed records), models, activity model, tables and real
     gas (its critical constants, binary parameters and partial volumes are not sampled)
     """
-    scaled = {}
+    scaled, shifts = {}, {}
+    data = None if model.electrolyte is None else model.electrolyte.data
     for entry, factor in zip(inputs, factors):
-        if entry.component != COLUMN:
+        if entry.component == COLUMN:
+            continue
+        component = model.components[model.names.index(entry.component)]
+        constant = None if data is None else data_constant(component, entry.quantity, data)
+        if constant is not None and model.equilibrium[model.names.index(entry.component)] == "electrolyte":
+            shifts[constant] = ln_k_shift(entry.quantity, float(factor))
+        else:
             scaled.setdefault(entry.component, {})[entry.quantity] = float(factor)
-    if not scaled:
+    if not scaled and not shifts:
         return model
     components = [perturbed_component(c, scaled.get(c.name, {})) for c in model.components]
     return PropertyModel(components, model.equilibrium, activity=model.activity, tables=model.tables,
-                         gas_phase=model.gas_phase)
+                         gas_phase=model.gas_phase, electrolyte_data=None if data is None else perturbed_data(data, shifts))
 
 
 def perturbed_column(column, inputs, factors):

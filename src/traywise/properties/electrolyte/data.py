@@ -34,6 +34,7 @@ class Reaction:
     source: str
     check_25C: float
     check_source: str
+    note: str = ""  # the data file's note (stated uncertainties, what was recalled from memory)
 
     def ln_k(self, temperature):
         """ln K and its first two temperature derivatives at temperature [K]."""
@@ -85,7 +86,7 @@ def _reaction(name, table, where):
         else:
             raise ComponentDataError(f"{where}: reactions.{name}.form", f"'{table['form']}' unknown; use 'edwards' or 'van_t_hoff'")
         return Reaction(name, table["equation"], coefficients, float(table["t_min"]), float(table["t_max"]),
-                        table["source"], float(table["check_25C"]), table["check_source"])
+                        table["source"], float(table["check_25C"]), table["check_source"], table.get("note", ""))
     except KeyError as missing:
         raise ComponentDataError(f"{where}: reactions.{name}", f"lacks {missing}") from None
 
