@@ -84,3 +84,21 @@ def test_the_real_gas_and_the_electrolyte_liquid_are_named_as_not_sampled(tmp_pa
         assert words in record["statement"] and record["statement"].endswith("not sampled.")
         assert any(words in line for line in record["not_sampled"])
         assert words in (out / "uncertainty.md").read_text(encoding="utf-8")
+
+
+def test_an_outlet_below_what_the_solver_resolves_is_said_so(tmp_path):
+    """The caustic demo takes sulfur dioxide to mole fractions near 1e-34, far below the 1e-12
+    the solver resolves (component flows converge to about 1e-9 of each feed): no figure, no
+    drivers and no histogram are made of the solver's noise."""
+    out = tmp_path / "caustic"
+    result = CliRunner().invoke(main, ["uncertainty", str(REPOSITORY / "cases" / "caustic-vent-scrubber.toml"), "--out",
+                                       str(out), "--samples", "4", "--processes", "1", "--no-plots"])
+    assert result.exit_code == 0, result.output
+    record = json.loads((out / "uncertainty.json").read_text(encoding="utf-8"))
+    assert "sulfur dioxide leaves below 1e-06 ppmv, what the solver resolves, with 90 % confidence" in record["statement"]
+    (outlet,) = [o for o in record["outputs"] if o["name"] == "outlet_ppmv:sulfur dioxide"]
+    assert outlet["p90"] < 1e-6 and all(d["spearman"] is None for d in outlet["drivers"])
+    assert "P90 < 1e-06 (nominal < 1e-06)" in result.output
+    row = next(line for line in (out / "uncertainty.md").read_text(encoding="utf-8").splitlines()
+               if line.startswith("| outlet_ppmv:sulfur dioxide |"))
+    assert row.endswith("| none (below 1e-06 ppmv, what the solver resolves) |")

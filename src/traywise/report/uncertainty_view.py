@@ -14,6 +14,7 @@ from .. import __version__
 from .cautions import SAFETY_CAUTIONS, safety_one_line
 from ..uncertainty.electrolyte_inputs import ELECTROLYTE_NOT_SAMPLED
 from ..uncertainty.inputs import COLUMN, MURPHREE, OVERALL
+from ..uncertainty.statistics import RESOLVED_PPMV, below_resolution
 from .folder import MARKER, write_results_folder
 
 DISPLAY = {  # SI unit -> (display unit, scale, offset)
@@ -21,6 +22,9 @@ DISPLAY = {  # SI unit -> (display unit, scale, offset)
     "kg/s": ("kg/h", 3600.0, 0.0),
     "W": ("kW", 1e-3, 0.0),
 }
+
+
+UNRESOLVED = f"below {RESOLVED_PPMV:g} ppmv, what the solver resolves"
 
 
 def display(unit, value):
@@ -139,7 +143,7 @@ def _table(record):
         unit, _ = display(s["unit"], 0.0)
         shown = [_shown(s["unit"], s[k]) for k in ("nominal", "p10", "p50", "p90", "mean")]
         drivers = ", ".join(f"{d['input']} ({d['spearman']:+.2f})" for d in s["drivers"][:3] if d["spearman"] is not None)
-        lines.append(f"| {s['name']} | {unit} | " + " | ".join(shown) + f" | {drivers or 'none (does not vary)'} |")
+        lines.append(f"| {s['name']} | {unit} | " + " | ".join(shown) + f" | {drivers or _no_drivers(s)} |")
     return "\n".join(lines)
 
 
@@ -155,8 +159,19 @@ def _first_order_section(record):
     return "\n".join(lines)
 
 
+def _no_drivers(summary):
+    """Why an output has no drivers: below what the solver resolves, or it does not vary."""
+    return f"none ({UNRESOLVED})" if below_resolution(summary["unit"], summary["p90"]) else "none (does not vary)"
+
+
 def _shown(unit, value):
-    return "n/a" if value is None else f"{display(unit, value)[1]:.5g}"
+    """An output value as text in its display unit; an outlet below what the solver resolves
+    (``statistics.RESOLVED_PPMV``) as '< 1e-06' ppmv."""
+    if value is None:
+        return "n/a"
+    if unit == "ppmv" and value < RESOLVED_PPMV:
+        return f"< {RESOLVED_PPMV:g}"
+    return f"{display(unit, value)[1]:.5g}"
 
 
 def uncertainty_markdown(record):

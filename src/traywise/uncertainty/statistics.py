@@ -20,6 +20,9 @@ from dataclasses import dataclass
 import numpy as np
 
 PERCENTILES = (10.0, 50.0, 90.0)
+# outlets below this [ppmv] (a mole fraction of 1e-12) carry no information: the solver converges
+# component flows to about 1e-9 of each feed (the reports' trace floor, report/tables.TRACE_FLOOR)
+RESOLVED_PPMV = 1e-6
 
 
 @dataclass(frozen=True)
@@ -31,7 +34,8 @@ class OutputSummary:
     mean, std : float        [unit]
     p10, p50, p90 : float    Percentiles [unit]
     drivers : tuple of (input name, spearman rho [-], swing per standard uncertainty [unit])
-                             sorted by |rho|, largest first (rho NaN when the output does not vary)
+                             sorted by |rho|, largest first (rho NaN when the output does not vary,
+                             or is an outlet below RESOLVED_PPMV in 90 % of the samples)
     first_order : tuple of (input name, index [-], 95 % half-width [-]) in input order; () when
                              SALib is not installed, the output does not vary or the samples
                              are too few (``first_order_note`` says which)
@@ -51,6 +55,11 @@ class OutputSummary:
     first_order_note: str = ""
 
 
+def below_resolution(unit, p90):
+    """Whether an output is an outlet below RESOLVED_PPMV in 90 % of the samples."""
+    return unit == "ppmv" and p90 is not None and p90 < RESOLVED_PPMV
+
+
 def percentiles(values):
     """(P10, P50, P90) of ``values``: each the smallest sampled value that at least that share
     of the samples stays at or below (the inverted empirical CDF; a stage count stays a count)."""
@@ -66,8 +75,9 @@ def summarise(name, unit, nominal, values, scores, input_names):
 
     values = np.asarray(values, dtype=float)
     p10, p50, p90 = percentiles(values)
+    unresolved = below_resolution(unit, p90)  # differences below it are the solver's, not the data's
     drivers = []
-    if values.size > 2 and scores.shape[1] and np.ptp(values) > 0.0:
+    if values.size > 2 and scores.shape[1] and np.ptp(values) > 0.0 and not unresolved:
         centred = values - values.mean()
         slopes = (scores - scores.mean(axis=0)).T @ centred / np.maximum(np.sum((scores - scores.mean(axis=0)) ** 2, axis=0), 1e-300)
         for j, input_name in enumerate(input_names):
@@ -78,7 +88,8 @@ def summarise(name, unit, nominal, values, scores, input_names):
         drivers = [(input_name, math.nan, 0.0) for input_name in input_names]
     std = float(np.std(values, ddof=1)) if values.size > 1 else math.nan
     mean = float(np.mean(values)) if values.size else math.nan
-    first_order, note = first_order_indices(values, scores, input_names)
+    first_order, note = ((), f"the outlet is below {RESOLVED_PPMV:g} ppmv, what the solver resolves") if unresolved \
+        else first_order_indices(values, scores, input_names)
     return OutputSummary(name, unit, float(nominal), mean, std, p10, p50, p90, tuple(drivers), first_order, note)
 
 
@@ -124,6 +135,9 @@ def confidence_sentence(values, converged, *, design_output=None, key=None):
         return f"{lead}, a solvent flow of {p90 * 3600.0:.4g} kg/h meets the target with 90 % confidence{failed}."
     if design_output == "cooler_duty":
         return f"{lead}, a cooler duty of {p90 / 1e3:.4g} kW holds the limit with 90 % confidence{failed}."
+    if p90 < RESOLVED_PPMV:
+        return (f"{lead}, {key} leaves below {RESOLVED_PPMV:g} ppmv, what the solver resolves, with 90 % "
+                f"confidence{failed}.")
     return f"{lead}, {key} leaves at or below {p90:.4g} ppmv with 90 % confidence{failed}."
 
 
