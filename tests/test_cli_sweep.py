@@ -169,3 +169,24 @@ def test_sweep_is_listed_and_documents_its_options():
     help_text = invoke("sweep", "--help").stdout
     for option in ("--input", "--from", "--to", "--points", "--log", "--output", "--stage", "--processes", "--out"):
         assert option in help_text
+
+
+def test_the_warnings_of_converged_points_and_unresolved_outlets_are_shown(tmp_path):
+    """The caustic demo swept down to 200 kg/h of its dilute caustic: there the sodium hydroxide
+    is used up (the single run warns so, and so must the sweep, at that point); at 500 kg/h the
+    sulfur dioxide leaves far below the 1e-12 mole fraction the solver resolves, shown as
+    '< 1e-06' ppmv, its number kept in sweep.csv."""
+    case = Path(__file__).resolve().parents[1] / "cases" / "caustic-vent-scrubber.toml"
+    folder = tmp_path / "caustic"
+    result = invoke("sweep", case, "--input", "solvent_flow", "--from", "200 kg/h", "--to", "500 kg/h", "--points", "2",
+                    "--out", folder, "--no-plots")
+    assert result.exit_code == 0, result.output
+    record = json.loads((folder / "sweep.json").read_text(encoding="utf-8"))
+    (warning,) = [w for w in record["warnings"] if w.startswith("at solvent flow = 200 kg/h: ")]
+    assert "the sodium hydroxide is used up" in warning and warning in result.output
+    rows = read_csv(folder)
+    assert "the sodium hydroxide is used up" in rows[0]["message"] and rows[0]["converged"] == "true"
+    outlet = next(key for key in rows[1] if key.startswith("outlet_ppmv:sulfur dioxide"))
+    assert 0.0 < float(rows[1][outlet]) < 1e-6
+    table = [line for line in (folder / "sweep.md").read_text(encoding="utf-8").splitlines() if line.startswith("| 500")]
+    assert table and "| < 1e-06 |" in table[0]

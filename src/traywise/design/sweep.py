@@ -58,7 +58,9 @@ class SweepTable:
     outputs : tuple of str            Output names (module docstring), units in ``units``
     data : ndarray (n, m)             Outputs; NaN on rows that failed
     converged : ndarray (n,) bool
-    messages : tuple of str           Why a row failed ('' where it converged)
+    messages : tuple of str           Why a row failed; for a converged row the warnings of its
+                                      solution ('; '-joined: a correlation or the electrolyte
+                                      liquid out of its range, caustic used up), '' where none
     iterations : ndarray (n,) int     Newton iterations spent on each point
     """
 
@@ -191,7 +193,8 @@ def _run(job, values, on_point=None):
             results.append(([math.nan] * len(specs), False, str(failure), getattr(failure, "iterations", 0)))
         else:
             previous = solution
-            results.append(([_evaluate(spec, solution) for spec in specs], True, "", solution.convergence.iterations))
+            results.append(([_evaluate(spec, solution) for spec in specs], True, "; ".join(solution.warnings),
+                            solution.convergence.iterations))
         if on_point:
             on_point(len(results))
     return results

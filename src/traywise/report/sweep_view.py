@@ -14,9 +14,10 @@ import math
 from .. import __version__
 from .cautions import SAFETY_CAUTIONS, safety_one_line
 from .folder import MARKER, write_results_folder
-from .results import plain
+from .results import DEFAULT_UNITS, plain
 from .sweep_labels import converter, is_whole, label, words
 from .tables import TRACE_FLOOR, TRACE_TEXT, markdown_table, percent, text_table
+from .warning_units import in_display_units
 
 CSV_FILE, FIGURE_FILE, RECORD_FILE, REPORT_FILE = "sweep.csv", "sweep.png", "sweep.json", "sweep.md"
 SI_SUFFIX = {"K": "_K", "W": "_W", "Pa": "_Pa", "mol/s": "_mol_per_s"}  # as in stages.csv and results.json
@@ -88,7 +89,8 @@ def sweep_record(case, request, table, files, designed=None):
         "display_units": getattr(case, "display_units", None),
         "solvent_molar_mass_kg_per_mol": _solvent_molar_mass(case),
         "design": _design(case, designed),
-        "warnings": list(dict.fromkeys(sweep_warnings(case, request, table, designed))),
+        "warnings": list(dict.fromkeys(in_display_units(w, getattr(case, "display_units", None) or DEFAULT_UNITS)
+                                       for w in sweep_warnings(case, request, table, designed))),
         "files": sorted(files),
         "safety_cautions": list(SAFETY_CAUTIONS),
     }
@@ -109,8 +111,12 @@ def _design(case, designed):
                   "designed_value": designed["value"], "designed_cooler_stage": designed["stage"]})
 
 
+POINT_WARNINGS_LISTED = 10  # converged points whose warnings are listed; the rest are counted
+
+
 def sweep_warnings(case, request, table, designed=None):
-    """The case's warnings, what was done to the range, and the points that failed."""
+    """The case's warnings, what was done to the range, the points that failed, and the warnings
+    of converged points (a correlation or the electrolyte liquid out of its range, caustic used up)."""
     view = {"display_units": getattr(case, "display_units", None),
             "solvent_molar_mass_kg_per_mol": _solvent_molar_mass(case)}
     warnings = [*case.warnings, *request.notes]
@@ -125,6 +131,13 @@ def sweep_warnings(case, request, table, designed=None):
             f"{words(request.variable)} = {_display_value(view, request.variable, request.unit, table.values[first])} "
             f"{converter(view, request.variable, request.unit)[0]}: {table.messages[first]}"
         )
+    warned = [i for i in range(table.values.size) if table.converged[i] and table.messages[i]]
+    for i in warned[:POINT_WARNINGS_LISTED]:
+        warnings.append(f"at {words(request.variable)} = {_display_value(view, request.variable, request.unit, table.values[i])} "
+                        f"{converter(view, request.variable, request.unit)[0]}: {table.messages[i]}")
+    if len(warned) > POINT_WARNINGS_LISTED:
+        warnings.append(f"and at {len(warned) - POINT_WARNINGS_LISTED} more converged points (their warnings are in the "
+                        f"message column of {CSV_FILE})")
     return warnings
 
 
@@ -206,4 +219,6 @@ def _display_value(record, name, unit, value):
     shown = converter(record, name, unit)[1](value)
     if unit == "-" and 0.0 < abs(shown) < TRACE_FLOOR:
         return TRACE_TEXT
+    if unit == "ppmv" and 0.0 < abs(shown) < 1e6 * TRACE_FLOOR:  # the same floor, as ppmv
+        return f"< {1e6 * TRACE_FLOOR:g}"
     return f"{shown:.5g}"
