@@ -9,6 +9,7 @@ line, never left out silently. matplotlib through its object interface (as in ``
 import numpy as np
 
 from .plots import DPI, MARGINS, log_scale
+from .tables import TRACE_FLOOR
 from .sweep_labels import converter, is_whole, label, reference_lines, words
 
 PANEL_HEIGHT = 2.0  # inches per output
@@ -44,6 +45,10 @@ def write_sweep_plot(path, record, table):
     for axes, name, output_unit, column in zip(panels, table.outputs, table.units, table.data.T):
         convert = converter(record, name, output_unit)[1]
         y = convert(np.asarray(column, dtype=float))
+        floor = {"outlet_ppmv": 1e6 * TRACE_FLOOR, "outlet_mole_fraction": TRACE_FLOOR}.get(name.split(":")[0])
+        if floor is not None and np.any(y[~failed] < floor):  # below it the solver's noise, not the data's
+            y = np.maximum(y, floor)
+            axes.axhline(floor, color="grey", ls="-", lw=0.8, label="what the solver resolves (values below drawn on it)")
         style = {"drawstyle": "steps-mid"} if steps or is_whole(name) else {}
         axes.plot(x[~failed], y[~failed], "o-", ms=3, color="tab:blue", **style)
         shown = y[~failed]
@@ -70,7 +75,7 @@ def write_sweep_plot(path, record, table):
     if steps:
         panels[-1].xaxis.get_major_locator().set_params(integer=True)
     panels[-1].set_xlabel(label(record, variable, unit))
-    panels[0].set_title(f"{record['case']['title']}: sweep of the {words(variable)}", fontsize="medium")
+    panels[0].set_title(_wrapped(f"{record['case']['title']}: sweep of the {words(variable)}", 80), fontsize="medium")
     figure.savefig(path, format="png")
 
 
