@@ -9,7 +9,7 @@ line, never left out silently. matplotlib through its object interface (as in ``
 import numpy as np
 
 from .plots import DPI, MARGINS, log_scale
-from .tables import TRACE_FLOOR
+from .tables import TRACE_FLOOR, TRACE_PPMV
 from .sweep_labels import converter, is_whole, label, reference_lines, words
 
 PANEL_HEIGHT = 2.0  # inches per output
@@ -45,7 +45,7 @@ def write_sweep_plot(path, record, table):
     for axes, name, output_unit, column in zip(panels, table.outputs, table.units, table.data.T):
         convert = converter(record, name, output_unit)[1]
         y = convert(np.asarray(column, dtype=float))
-        floor = {"outlet_ppmv": 1e6 * TRACE_FLOOR, "outlet_mole_fraction": TRACE_FLOOR}.get(name.split(":")[0])
+        floor = {"outlet_ppmv": TRACE_PPMV, "outlet_mole_fraction": TRACE_FLOOR}.get(name.split(":")[0])
         if floor is not None and np.any(y[~failed] < floor):  # below it the solver's noise, not the data's
             y = np.maximum(y, floor)
             axes.axhline(floor, color="grey", ls="-", lw=0.8, label="what the solver resolves (values below drawn on it)")

@@ -16,7 +16,7 @@ from .cautions import SAFETY_CAUTIONS, safety_one_line
 from .folder import MARKER, write_results_folder
 from .results import DEFAULT_UNITS, plain
 from .sweep_labels import converter, is_whole, label, words
-from .tables import TRACE_FLOOR, TRACE_TEXT, markdown_table, percent, text_table
+from .tables import TRACE_FLOOR, TRACE_PPMV, TRACE_TEXT, markdown_table, percent, text_table
 from .warning_units import in_display_units
 
 CSV_FILE, FIGURE_FILE, RECORD_FILE, REPORT_FILE = "sweep.csv", "sweep.png", "sweep.json", "sweep.md"
@@ -219,6 +219,6 @@ def _display_value(record, name, unit, value):
     shown = converter(record, name, unit)[1](value)
     if unit == "-" and 0.0 < abs(shown) < TRACE_FLOOR:
         return TRACE_TEXT
-    if unit == "ppmv" and 0.0 < abs(shown) < 1e6 * TRACE_FLOOR:  # the same floor, as ppmv
-        return f"< {1e6 * TRACE_FLOOR:g}"
+    if unit == "ppmv" and 0.0 < abs(shown) < TRACE_PPMV:
+        return f"< {TRACE_PPMV:g}"
     return f"{shown:.5g}"

@@ -11,11 +11,12 @@ fractions carry no information.
 
 import math
 
-from ..properties.constants import ZERO_CELSIUS
+from ..properties.constants import TRACE_MOLE_FRACTION, ZERO_CELSIUS
 
 SECONDS_PER_HOUR = 3600.0
-TRACE_FLOOR = 1e-12  # fractions below it print as "< 1e-12"
+TRACE_FLOOR = TRACE_MOLE_FRACTION  # fractions below it print as "< 1e-12"
 TRACE_TEXT = f"< {TRACE_FLOOR:g}"
+TRACE_PPMV = 1e6 * TRACE_FLOOR  # the same floor as ppmv, printed "< 1e-06"
 
 
 class Display:

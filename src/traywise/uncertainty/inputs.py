@@ -181,18 +181,16 @@ def used_quantities(model, i):
     for quantity, (_, kinds, _, _) in QUANTITIES.items():
         if kind not in kinds:
             continue
-        if kind == "electrolyte":
-            data = model.electrolyte.data
-            if quantity == DISSOCIATION and data_constant(component, DISSOCIATION, data) is None:
-                continue
-            if quantity == SOLUTION and data_constant(component, HENRY, data) is not None:
-                continue  # the temperature dependence of a data-file constant is not sampled
-            if quantity != DISSOCIATION and data_constant(component, quantity, data) is None \
-                    and component.henry_in_water is None:
-                continue
-        elif getattr(component, ATTRIBUTES[quantity]) is None:
-            continue
-        found.append(quantity)
+        if kind == "electrolyte" and quantity in (HENRY, SOLUTION, DISSOCIATION):
+            in_data = data_constant(component, DISSOCIATION if quantity == DISSOCIATION else HENRY,
+                                    model.electrolyte.data) is not None
+            own = component.henry_in_water is not None
+            # the temperature dependence of a data-file constant is not sampled
+            used = {HENRY: in_data or own, SOLUTION: own and not in_data, DISSOCIATION: in_data}[quantity]
+        else:
+            used = getattr(component, ATTRIBUTES[quantity]) is not None
+        if used:
+            found.append(quantity)
     return found
 
 

@@ -58,9 +58,9 @@ def perturbed_model(model, inputs, factors):
     for entry, factor in zip(inputs, factors):
         if entry.component == COLUMN:
             continue
-        component = model.components[model.names.index(entry.component)]
-        constant = None if data is None else data_constant(component, entry.quantity, data)
-        if constant is not None and model.equilibrium[model.names.index(entry.component)] == "electrolyte":
+        i = model.names.index(entry.component)
+        constant = None if model.equilibrium[i] != "electrolyte" else data_constant(model.components[i], entry.quantity, data)
+        if constant is not None:
             shifts[constant] = ln_k_shift(entry.quantity, float(factor))
         else:
             scaled.setdefault(entry.component, {})[entry.quantity] = float(factor)

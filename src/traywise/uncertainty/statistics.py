@@ -19,10 +19,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from ..properties.constants import TRACE_MOLE_FRACTION
+
 PERCENTILES = (10.0, 50.0, 90.0)
-# outlets below this [ppmv] (a mole fraction of 1e-12) carry no information: the solver converges
-# component flows to about 1e-9 of each feed (the reports' trace floor, report/tables.TRACE_FLOOR)
-RESOLVED_PPMV = 1e-6
+RESOLVED_PPMV = 1e6 * TRACE_MOLE_FRACTION  # outlets below it [ppmv] carry no information
 
 
 @dataclass(frozen=True)
