@@ -97,6 +97,18 @@ def test_fractional_stage_rule_from_each_end(a, theta):
 # --- a concentrated case on the curved mole-ratio equilibrium ---------------------------------
 
 
+@pytest.mark.parametrize("a", [1e3, 1e9, 3.7e18])
+@pytest.mark.parametrize("n", [1, 5, 12])
+def test_kremser_outlet_of_a_large_absorption_factor_is_its_tail_not_zero(a, n):
+    # Y_out / Y_in = (A - 1) / (A**(N+1) - 1) for a solute-free solvent: far below rounding of
+    # 1 - phi (phi rounds to 1 once A**N passes 1e16), but a number, printed "< 1e-12", not 0
+    y_in = 1e-3
+    y_out = kremser_gas_outlet(y_in, 0.0, equilibrium_slope=2.0, absorption_factor=a, n_stages=n)
+    expected = y_in * math.exp(math.log(a - 1.0) - math.log(a) * (n + 1)) / -math.expm1(-(n + 1) * math.log(a))
+    assert y_out > 0.0
+    assert y_out == pytest.approx(expected, rel=1e-12)
+
+
 def test_concentrated_curved_case_steps_sensibly():
     # 20 mol% solute, K = 2e5 Pa / 101325 Pa = 1.974; flows chosen for hand arithmetic:
     # V' = 80, L' = 250 mol/s, Y_in = 20/80 = 0.25, Y_out = 0.025 (90 %), X_out = 0.225 / 3.125 = 0.072.

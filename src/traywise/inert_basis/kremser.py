@@ -66,6 +66,21 @@ def kremser_fraction_absorbed(absorption_factor, n_stages):
     return _plain(np.where(n == 0.0, 0.0, phi))
 
 
+def _fraction_left(absorption_factor, n_stages):
+    """1 - phi = (A - 1) / (A**(N+1) - 1), and 1 / (N+1) at A = 1, formed without the difference
+    1 - phi: where phi rounds to 1 (A**N beyond 1e16) the gas outlet stays its tiny true value
+    instead of an exact zero. Arguments as for ``kremser_fraction_absorbed`` (checked there)."""
+    kremser_fraction_absorbed(absorption_factor, n_stages)  # the same checks of A and N
+    a, n = np.broadcast_arrays(np.asarray(absorption_factor, dtype=float), np.asarray(n_stages, dtype=float))
+    with np.errstate(divide="ignore", invalid="ignore", over="ignore", under="ignore"):
+        ln_a = np.log(a)
+        above = np.expm1(-ln_a) * np.exp(-n * ln_a) / np.expm1(-(n + 1.0) * ln_a)  # A > 1, in A**-N
+        below = np.expm1(ln_a) / np.expm1((n + 1.0) * ln_a)  # A < 1
+        at_one = 1.0 / (n + 1.0)
+    left = np.where(ln_a > 0.0, above, np.where(ln_a < 0.0, below, at_one))
+    return np.where(n == 0.0, 1.0, np.where(np.isinf(n) & (ln_a > 0.0), 0.0, left))
+
+
 def kremser_stages(absorption_factor, fraction_absorbed):
     """Theoretical stages for a given approach to equilibrium (Kremser's equation inverted).
 
@@ -160,8 +175,8 @@ def kremser_gas_outlet(gas_ratio_in, liquid_ratio_in, *, equilibrium_slope, abso
     A. Kremser, Natl. Petroleum News 22 (1930) 43; Treybal, Mass-Transfer Operations, 3rd ed.
     1980, ch. 5 (solvent entering with solute).
     """
-    phi = kremser_fraction_absorbed(absorption_factor, n_stages)
-    return _plain(gas_ratio_in - phi * (gas_ratio_in - np.multiply(equilibrium_slope, liquid_ratio_in)))
+    in_equilibrium = np.multiply(equilibrium_slope, liquid_ratio_in)
+    return _plain(in_equilibrium + _fraction_left(absorption_factor, n_stages) * (gas_ratio_in - in_equilibrium))
 
 
 def approach_to_equilibrium(gas_ratio_in, gas_ratio_out, *, liquid_ratio_in, equilibrium_slope):
