@@ -10,7 +10,8 @@ a root in the diameter on the stage that sets it, then every stage once at that 
 95 evaluations of fluids' flooding equations in all; an irrigated pressure drop per stage by
 fluids' Stichlmair_wet; plus Onda's HETP). The whole run: the ammonia-recovery demo with 40 stages (no overall efficiency),
 solved, compared, reported, with and without plots. Target (issue 13): sizing adds under 10 % to
-a 40-stage run.
+a 40-stage run. With plots a sized run draws one figure more (hydraulics.png), printed beside
+one of the run's own figures for scale.
 
 Run: python tests/benchmarks/bench_sizing.py [REPEAT]   (default 11; medians and min-max)
 """
@@ -62,6 +63,27 @@ def main(repeat=11):
     for label, times in rows:
         share = "" if times is solve_times else f"{100 * np.median(times) / base:13.1f} %"
         print(f"{label:40s} {1e3 * np.median(times):12.2f} {1e3 * times.min():7.2f}-{1e3 * times.max():<8.2f} {share:>15s}")
+    print_figures(solution, model, repeat)
+
+
+def print_figures(solution, model, repeat):
+    """What the sizing's figure costs beside one of the run's own (warm, in-process): with plots a
+    run draws one figure more when it sizes, and a figure has a floor of its own (axes, ticks,
+    text, PNG) whatever it shows."""
+    from traywise.report.plots import Temperatures, _save, _temperature_profile
+    from traywise.report.sizing_view import write_hydraulics_plot
+
+    sizing = size_column(solution, model.components, PackedInternals("ceramic raschig rings 25 mm"), key_component="ammonia")
+    shown = Temperatures({"unit": "degC", "scale": 1.0, "offset": -273.15})
+    with tempfile.TemporaryDirectory() as folder:
+        figures = (("hydraulics.png (the sizing's)", lambda: write_hydraulics_plot(Path(folder) / "h.png", sizing)),
+                   ("temperature_profile.png (for scale)",
+                    lambda: _save(Path(folder) / "t.png", lambda figure: _temperature_profile(figure, solution, None, shown))))
+        print(f"\n{'figure, warm':40s} {'median [ms]':>12s} {'min-max [ms]':>16s}")
+        for label, draw in figures:
+            draw()  # warm: matplotlib's imports and font cache
+            times, _ = timed(draw, repeat)
+            print(f"{label:40s} {1e3 * np.median(times):12.2f} {1e3 * times.min():7.2f}-{1e3 * times.max():<8.2f}")
 
 
 def run_rows(repeat):
