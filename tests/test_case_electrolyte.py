@@ -97,6 +97,19 @@ def test_the_assumptions_say_which_solutes_ionise():
     assert line("henry").startswith("No chemical reactions or ionisation")
 
 
+def test_the_chemistry_table_prints_unresolved_forms_of_a_solute_as_below_the_floor():
+    # below a mole fraction of 1e-12 (5.6e-11 mol/kg in water) a solute's forms are not resolved by
+    # the solved column; H+ and OH- come from the water equilibrium and the charge balance
+    from traywise.report.electrolyte_view import TRACE_MOLALITY, electrolyte_blocks
+
+    assert TRACE_MOLALITY == pytest.approx(1e-12 / 0.018015268)
+    record = {"electrolyte": {"species": ["H+", "OH-", "SO3--", "Na+"], "pH": [13.7], "ionic_strength_mol_per_kg": [0.51],
+                              "molality_mol_per_kg": {"H+": [3.4e-14], "OH-": [0.51], "SO3--": [3.7e-28], "Na+": [0.51]},
+                              "with_henry": None}}
+    (_, _, (headers, rows)), *_ = electrolyte_blocks(record)
+    assert rows[0] == ("1", "13.70", "0.51", "3.4e-14", "0.51", "< 5.6e-11", "0.51")
+
+
 def test_the_acid_gas_demo_on_the_electrolyte_liquid_shows_itself_with_and_without_it(tmp_path):
     """The acid-gas demo as written (sulfur dioxide and carbon dioxide on the electrolyte liquid,
     the library's default in water): the run solves the same column with Henry's law beside it;

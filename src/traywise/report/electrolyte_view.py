@@ -1,12 +1,20 @@
 """The report's section on the aqueous electrolyte liquid: pH, ionic strength and the molality of
 every species on every stage, read from the results record's ``electrolyte`` section."""
 
+from ..properties.constants import TRACE_MOLE_FRACTION
+from ..properties.electrolyte.pitzer import WATER_MOLAR_MASS
 from .tables import concentration, percent
+
+# the trace floor as a molality in (nearly pure) water, about 5.6e-11 mol/kg: a solute's forms
+# below it are not resolved by the solved column (its mole fraction is below TRACE_MOLE_FRACTION)
+TRACE_MOLALITY = TRACE_MOLE_FRACTION / WATER_MOLAR_MASS
+RESOLVED_ALWAYS = ("H+", "OH-")  # set by the water equilibrium and the charge balance, resolved at any level
 
 SECTION = "Liquid chemistry (aqueous electrolyte)"
 NOTE = ("Species molalities per kg of water on each stage, from the converged profile; pH is -log10 of "
-        "the hydrogen-ion activity on the molality basis. The model's stated range and any caustic used "
-        "up are in the warnings.")
+        "the hydrogen-ion activity on the molality basis. Forms of a solute below "
+        f"{TRACE_MOLALITY:.2g} mol/kg (a mole fraction of {TRACE_MOLE_FRACTION:g}) print as \"< {TRACE_MOLALITY:.2g}\": "
+        "the solved column does not resolve them. The model's stated range and any caustic used up are in the warnings.")
 
 
 def electrolyte_blocks(results):
@@ -18,10 +26,17 @@ def electrolyte_blocks(results):
     headers = ["stage", "pH", "I [mol/kg]"] + [f"{name} [mol/kg]" for name in species]
     rows = [
         (str(j + 1), f"{chemistry['pH'][j]:.2f}", f"{chemistry['ionic_strength_mol_per_kg'][j]:.3g}",
-         *(f"{chemistry['molality_mol_per_kg'][name][j]:.3g}" for name in species))
+         *(_molality(name, chemistry['molality_mol_per_kg'][name][j]) for name in species))
         for j in range(len(chemistry["pH"]))
     ]
     return [(SECTION, "table", (headers, rows)), (None, "text", NOTE), *_with_and_without(results)]
+
+
+def _molality(name, value):
+    """A species molality [mol/kg] as text; "< 5.6e-11" for a solute's form below the trace floor."""
+    if name not in RESOLVED_ALWAYS and 0.0 < value < TRACE_MOLALITY:
+        return f"< {TRACE_MOLALITY:.2g}"
+    return f"{value:.3g}"
 
 
 def _with_and_without(results):

@@ -5,6 +5,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from .speciation import SPECIES
+
 IONIC_STRENGTH_LIMIT = 6.0  # mol/kg: the Pitzer parameters were fitted up to 6 mol/kg (pitzer1973)
 CAUSTIC_SPENT = 0.01  # free OH- below this fraction of the sodium: the caustic is used up
 LN_10 = float(np.log(10.0))
@@ -31,6 +33,11 @@ class Speciation:
 
     @classmethod
     def from_equilibrium(cls, system, eq, totals):
+        """The record of a solved ``eq`` at the apparent molalities ``totals`` (n, k) [mol/kg], not
+        floored. The speciation is solved with each apparent molality at least the trace floor
+        (speciation.MOLALITY_FLOOR); the forms of a solute below it are scaled down to its true
+        amount (for a trace the share of each form does not depend on the amount: first order in
+        it), so that no stage shows the floor as a molality."""
         position = system.position
         h = position["H+"]
         ph = -(eq.y[:, h] + eq.ln_gamma[:, h]) / LN_10
@@ -39,7 +46,18 @@ class Speciation:
             caustic = eq.m[:, position["OH-"]]
         else:
             sodium = caustic = np.zeros(eq.t.size)
-        return cls(system.species, eq.m, ph, eq.ionic_strength, caustic, sodium)
+        return cls(system.species, eq.m * _trace_scale(system, eq.totals, totals), ph, eq.ionic_strength, caustic, sodium)
+
+
+def _trace_scale(system, floored, totals):
+    """(n, s): per species the product, over the solutes it holds, of true over floored apparent
+    molality (1 for a solute above the trace floor and for H+ and OH-)."""
+    ratio = np.asarray(totals, dtype=float) / floored
+    scale = np.ones((floored.shape[0], len(system.species)))
+    for i, name in enumerate(system.species):
+        for solute in SPECIES[name][4]:
+            scale[:, i] *= ratio[:, system.solutes.index(solute)]
+    return scale
 
 
 def _stages(mask):
