@@ -69,9 +69,10 @@ def kremser_fraction_absorbed(absorption_factor, n_stages):
 def _fraction_left(absorption_factor, n_stages):
     """1 - phi = (A - 1) / (A**(N+1) - 1), and 1 / (N+1) at A = 1, formed without the difference
     1 - phi: where phi rounds to 1 (A**N beyond 1e16) the gas outlet stays its tiny true value
-    instead of an exact zero. Arguments as for ``kremser_fraction_absorbed`` (checked there)."""
-    kremser_fraction_absorbed(absorption_factor, n_stages)  # the same checks of A and N
+    instead of an exact zero. Arguments as for ``kremser_fraction_absorbed``."""
     a, n = np.broadcast_arrays(np.asarray(absorption_factor, dtype=float), np.asarray(n_stages, dtype=float))
+    _require(np.isfinite(a) & (a >= 0.0), "absorption_factor", "a finite number >= 0", a)
+    _require(n >= 0.0, "n_stages", "a number of stages >= 0", n)
     with np.errstate(divide="ignore", invalid="ignore", over="ignore", under="ignore"):
         ln_a = np.log(a)
         above = np.expm1(-ln_a) * np.exp(-n * ln_a) / np.expm1(-(n + 1.0) * ln_a)  # A > 1, in A**-N
