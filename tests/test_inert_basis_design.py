@@ -17,6 +17,7 @@ from traywise.inert_basis.kremser import kremser_fraction_absorbed, kremser_gas_
 from traywise.properties.constants import P_STANDARD
 from traywise.properties.inline import inline_component
 from traywise.properties.model import PropertyModel
+from traywise.inert_basis import stepping
 from traywise.inert_basis.design import (
     inert_basis_design,
     minimum_liquid_to_gas_ratio,
@@ -226,6 +227,28 @@ def test_minimum_ratio_finds_the_tangent_pinch():
     step_stages(curve, 1.001 * tangent, gas_ratio_in=y_in, gas_ratio_out=y_out)
     with pytest.raises(PinchError, match="pinch: inside the column"):
         step_stages(curve, 0.999 * tangent, gas_ratio_in=y_in, gas_ratio_out=y_out)
+
+
+def test_one_sampling_for_every_trial_outlet_finds_the_same_pinches():
+    """``outlet_for_stages`` checks its trial outlets against one sampling of Y*(X) - (L'/V')X
+    (``_Overhang``): on the down-bending curve of the tangent-pinch test, with L'/V' = 0.3
+    (tangent at Y_out = (sqrt(K) - sqrt(L'/V'))**2 / (1 - K) = 0.0508), it must call a line
+    pinched exactly where ``_pinch``, checking that line alone, does."""
+    k, y_in, ratio = 0.5, 0.6, 0.3
+    curve = mole_ratio_equilibrium(absorber_model(k * P_STANDARD), "solute", temperature=T, pressure=P_STANDARD)
+    overhang = stepping._Overhang.sampled(curve, ratio, 0.0, y_in / ratio)
+    tangent = (math.sqrt(k) - math.sqrt(ratio)) ** 2 / (1.0 - k)
+    outlets = [y for y in np.geomspace(0.003, 0.5, 60) if abs(y / tangent - 1.0) > 0.01]
+    alone = [stepping._pinch(curve, ratio, y_in, y, 0.0, (y_in - y) / ratio) is not None for y in outlets]
+    together = [overhang.touches(curve, y, (y_in - y) / ratio) for y in outlets]
+    assert together == alone
+    assert together == [y < tangent for y in outlets]  # below the tangent outlet every line crosses
+
+
+def test_a_falling_curve_is_refused_when_rating_for_stages():
+    wavy = lambda x: 0.05 * np.sin(40.0 * np.asarray(x)) + x  # falls for X in (0.052, 0.105)
+    with pytest.raises(InputError, match="must increase"):
+        stepping.outlet_for_stages(wavy, 0.5, 0.05, 0.0, 3.0, "top")
 
 
 def test_target_beyond_the_bottom_pinch_raises():

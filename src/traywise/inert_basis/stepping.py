@@ -202,11 +202,12 @@ def outlet_for_stages(equilibrium, ratio, gas_in, liquid_in, n_stages, start):
             f"the entering solvent (X_in = {liquid_in:.6g}); no stage absorbs anything",
         )
     cap = max(MAX_STAGES, 2 * math.ceil(n_stages))
+    overhang = _Overhang.sampled(equilibrium, ratio, liquid_in, liquid_in + (gas_in - floor) / ratio)
 
     def stages(u):
         gas_out = floor + (gas_in - floor) * math.exp(u)
         liquid_out = liquid_in + (gas_in - gas_out) / ratio
-        if gas_out <= floor or _pinch(equilibrium, ratio, gas_in, gas_out, liquid_in, liquid_out) is not None:
+        if gas_out <= floor or overhang.touches(equilibrium, gas_out, liquid_out):
             return math.inf
         return _staircase(equilibrium, ratio, gas_in, gas_out, liquid_in, liquid_out, start, cap)[0]
 
@@ -228,6 +229,44 @@ def outlet_for_stages(equilibrium, ratio, gas_in, liquid_in, n_stages, start):
         raise ConvergenceError("no outlet found that steps off the requested stages", iterations=iteration + 1, residual=math.inf)
     u = brent_root(lambda s: stages(s) - n_stages, many, few, xtol=1e-13, rtol=_RTOL)
     return floor + (gas_in - floor) * math.exp(u)
+
+
+@dataclass(frozen=True)
+class _Overhang:
+    """The curve's height over every operating line of one slope L'/V' from the top terminal,
+    sampled once for all the trial outlets of ``outlet_for_stages``.
+
+    The line Y = Y_out + (L'/V')(X - X_in) clears the curve at X where Y_out > g(X) =
+    Y*(X) - (L'/V')(X - X_in), which does not depend on Y_out; so a line touches or crosses the
+    curve on [X_in, X_out] where the running maximum of g up to X_out, or g(X_out) itself (the
+    bottom terminal), reaches Y_out. g is sampled on 2 PINCH_SAMPLES - 1 points from X_in to the
+    farthest outlet X_far any trial reaches: as finely as ``_pinch`` wherever X_out >= X_far/2
+    (the trial absorbs half the most it could or more). A crossing missed between coarser
+    samples still counts as pinched, more slowly: the staircase stalls at it past the cap.
+    """
+
+    ratio: float  # L'/V' [mol/mol]
+    liquid: np.ndarray  # samples of X [mol/mol]
+    highest: np.ndarray  # running maximum of g over the samples [mol/mol]
+    first_fall: int  # index of the first sample after which Y* falls (the sample count if none)
+
+    @classmethod
+    def sampled(cls, equilibrium, ratio, liquid_in, liquid_far):
+        x = np.linspace(liquid_in, liquid_far, 2 * PINCH_SAMPLES - 1)
+        curve = _curve(equilibrium, x)
+        with np.errstate(invalid="ignore"):  # a curve that reaches y* = 1 is infinite there
+            falling = np.flatnonzero(np.diff(curve) < 0.0)
+        return cls(ratio, x, np.maximum.accumulate(curve - ratio * (x - liquid_in)), int(falling[0]) if falling.size else x.size)
+
+    def touches(self, equilibrium, gas_out, liquid_out):
+        """True when the line from (X_in, ``gas_out``) reaching ``liquid_out`` touches or crosses
+        the curve; an InputError where the curve falls before ``liquid_out``."""
+        last = int(np.searchsorted(self.liquid, liquid_out, side="right")) - 1
+        if self.first_fall < last:
+            x = self.liquid[self.first_fall:self.first_fall + 2]
+            raise InputError("equilibrium", f"Y*(X) falls between X = {x[0]:.6g} and {x[1]:.6g}; it must increase")
+        bottom = _curve(equilibrium, liquid_out) - self.ratio * (liquid_out - self.liquid[0])
+        return bool(self.highest[last] >= gas_out or bottom >= gas_out)
 
 
 def _check_terminals(equilibrium, ratio, gas_in, gas_out, liquid_in):

@@ -1,6 +1,7 @@
 """An equilibrium curve Y*(X) tabulated once and interpolated, for liquids whose single-point
-evaluation is costly (the aqueous electrolyte liquid solves its speciation by Newton's method,
-about 1 ms a call, and the stage stepping asks for several hundred single points).
+evaluation is costly (the aqueous electrolyte liquid solves its speciation by Newton's method and
+the Peng-Robinson liquid two cubics with their derivatives, about 1 ms a call either way, and the
+stage stepping asks for several hundred single points).
 
 The table holds ln Y* and its exact slope d ln Y*/d ln X (from the model's own composition
 derivatives) at nodes in ln X, and interpolates by cubic Hermite polynomials, whose error falls
@@ -115,11 +116,12 @@ class TabulatedEquilibrium:
 def stepping_equilibrium(model, key, *, temperature, pressure, solvent_mole_fractions=None, highest_gas_ratio=None):
     """The model's Y*(X) of ``key`` for stage stepping (arguments as ``mole_ratio_equilibrium``,
     and ``highest_gas_ratio`` as ``tabulate``): tabulated when the model has the aqueous
-    electrolyte liquid, whose single points cost about 1 ms each, or the exact curve when the
-    table cannot be built (the model refuses even the dilute end of it)."""
+    electrolyte liquid or the Peng-Robinson liquid ('eos' components), whose single points cost
+    about 1 ms each, or the exact curve when the table cannot be built (the model refuses even the
+    dilute end of it)."""
     curve = mole_ratio_equilibrium(model, key, temperature=temperature, pressure=pressure,
                                    solvent_mole_fractions=solvent_mole_fractions)
-    if not (isinstance(curve, MixtureEquilibrium) and model.electrolyte is not None):
+    if not (isinstance(curve, MixtureEquilibrium) and (model.electrolyte is not None or "eos" in model.equilibrium)):
         return curve
     try:
         return tabulate(curve, highest_gas_ratio=highest_gas_ratio)
