@@ -6,7 +6,7 @@ from pathlib import Path
 
 from traywise.case import load_case
 from traywise.inert_basis.verdict import CELSIUS, TemperatureUnit
-from traywise.report import plots
+from traywise.report import figure_pool, plots
 from traywise.report.outputs import write_outputs
 from traywise.run import run_case
 
@@ -30,6 +30,7 @@ def _written(tmp_path, monkeypatch, changes):
         save(path, drawing)
 
     monkeypatch.setattr(plots, "_save", save_and_read)
+    monkeypatch.setattr(figure_pool, "_may_fork", lambda: False)  # the texts are read in this process
     run = run_case(load_case(CASE).with_changes(**changes))
     record = write_outputs(tmp_path / "results", run, plots=True)
     return record["isothermal_comparison"]["verdict"], texts

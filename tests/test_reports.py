@@ -236,3 +236,20 @@ def test_percent_near_complete_removal_keeps_what_is_left_visible():
 def test_concentration_switches_from_percent_to_ppm():
     assert concentration(0.15) == "15 mol%"
     assert concentration(2.5e-5) == "25 ppm (mol)"
+
+
+@pytest.mark.parametrize("low, high, minor", [(1e-8, 1.0, False), (2e-3, 1.0, True), (0.2, 0.8, True)])
+def test_log_axes_keep_minor_ticks_only_over_a_few_decades(low, high, minor):
+    """Over more than three decades the minor ticks are dropped (unlabelled there, and a third of
+    the x-y diagram's drawing); over a few, where they carry the only labels, they stay."""
+    from matplotlib.figure import Figure
+    from matplotlib.ticker import NullLocator
+
+    from traywise.report.plots import log_scale, thin_log_ticks
+
+    axes = Figure().add_subplot()
+    axes.plot([low, high], [1.0, 2.0])
+    log_scale(axes, "x")
+    axes.set_xlim(low, high)
+    thin_log_ticks(axes, "x")
+    assert isinstance(axes.xaxis.get_minor_locator(), NullLocator) != minor

@@ -71,12 +71,12 @@ def print_figures(solution, model, repeat):
     run draws one figure more when it sizes, and a figure has a floor of its own (axes, ticks,
     text, PNG) whatever it shows."""
     from traywise.report.plots import Temperatures, _save, _temperature_profile
-    from traywise.report.sizing_view import write_hydraulics_plot
+    from traywise.report.sizing_view import draw_hydraulics
 
     sizing = size_column(solution, model.components, PackedInternals("ceramic raschig rings 25 mm"), key_component="ammonia")
     shown = Temperatures({"unit": "degC", "scale": 1.0, "offset": -273.15})
     with tempfile.TemporaryDirectory() as folder:
-        figures = (("hydraulics.png (the sizing's)", lambda: write_hydraulics_plot(Path(folder) / "h.png", sizing)),
+        figures = (("hydraulics.png (the sizing's)", lambda: _save(Path(folder) / "h.png", lambda figure: draw_hydraulics(figure, sizing))),
                    ("temperature_profile.png (for scale)",
                     lambda: _save(Path(folder) / "t.png", lambda figure: _temperature_profile(figure, solution, None, shown))))
         print(f"\n{'figure, warm':40s} {'median [ms]':>12s} {'min-max [ms]':>16s}")

@@ -11,7 +11,7 @@ from .folder import MARKER, write_results_folder
 from .html import html_report
 from .markdown import markdown_report
 from .results import results_record
-from .sizing_view import write_sizing_files
+from .sizing_view import sizing_drawings, write_sizing_files
 from .stages import component_labels, write_stages_csv
 
 RESULTS_FILE = "results.json"
@@ -40,8 +40,8 @@ def write_outputs(target, run, *, plots=True):
             from .plots import write_plots
 
             figures = write_plots(folder, solution, run.comparison, run.xy_design, run.speciation,
-                                  getattr(case, "display_units", None))
-        figures += write_sizing_files(folder, run.sizing, plots=plots)
+                                  getattr(case, "display_units", None), more=sizing_drawings(run.sizing))
+        figures += write_sizing_files(folder, run.sizing)
         record = results_record(run, [RESULTS_FILE, STAGES_FILE, REPORT_FILE, HTML_FILE, MARKER, *figures])
         (folder / REPORT_FILE).write_text(markdown_report(record), encoding="utf-8")
         (folder / HTML_FILE).write_text(html_report(record, folder), encoding="utf-8")

@@ -13,6 +13,7 @@ the Agg canvas (no pyplot, no global backend), so that runs without plots never 
 
 import numpy as np
 
+from .figure_pool import draw_figures
 from .results import DEFAULT_UNITS
 
 DPI = 110
@@ -21,10 +22,12 @@ MARGINS = {"left": 0.12, "right": 0.97, "bottom": 0.11, "top": 0.91, "wspace": 0
 
 
 LOG_PANEL_RATIO = 100.0  # Y_in / Y_out beyond which the x-y diagram gets a log-log panel
+MINOR_TICK_DECADES = 3.0  # a log axis spanning more decades than this is drawn without minor ticks
 
 
-def write_plots(folder, solution, comparison, design, speciation=None, units=None):
-    """Draw every figure into ``folder``; return the file names.
+def write_plots(folder, solution, comparison, design, speciation=None, units=None, more=()):
+    """Draw every figure into ``folder``, on two cores where possible (``figure_pool``); return
+    the file names.
 
     Parameters
     ----------
@@ -37,20 +40,25 @@ def write_plots(folder, solution, comparison, design, speciation=None, units=Non
     speciation : Speciation or None   The electrolyte liquid's pH profile is drawn when given.
     units : dict or None   The display units (``Case.display_units``); temperatures are drawn in
         its temperature unit (degC when None).
+    more : sequence of (file name, draw, weight)   Further figures drawn with these (the sizing's).
+
+    Each figure's weight is its drawing time relative to a one-panel figure, measured once on the
+    ammonia demo (60-70 ms a panel; the two-panel x-y diagram with its log-log panel 175 ms).
     """
     shown = Temperatures((units or DEFAULT_UNITS)["temperature"])
     drawings = [
-        ("temperature_profile.png", lambda figure: _temperature_profile(figure, solution, comparison, shown)),
-        ("composition_profiles.png", lambda figure: _composition_profiles(figure, solution)),
-        ("heat_balance.png", lambda figure: _heat_balance(figure, solution)),
+        ("temperature_profile.png", lambda figure: _temperature_profile(figure, solution, comparison, shown), 1.0),
+        ("composition_profiles.png", lambda figure: _composition_profiles(figure, solution), 1.6),
+        ("heat_balance.png", lambda figure: _heat_balance(figure, solution), 1.0),
     ]
     if design is not None:
-        drawings.append(("xy_diagram.png", lambda figure: _xy_diagram(figure, solution, design, shown)))
+        drawings.append(("xy_diagram.png", lambda figure: _xy_diagram(figure, solution, design, shown),
+                         2.8 if _xy_has_log_panel(design) else 1.0))
     if speciation is not None:
-        drawings.append(("ph_profile.png", lambda figure: _ph_profile(figure, solution, speciation)))
-    for name, draw in drawings:
-        _save(folder / name, draw)
-    return [name for name, _ in drawings]
+        drawings.append(("ph_profile.png", lambda figure: _ph_profile(figure, solution, speciation), 1.0))
+    drawings.extend(more)
+    draw_figures(folder, drawings, _save)
+    return [name for name, _, _ in drawings]
 
 
 class Temperatures:
@@ -83,6 +91,18 @@ def log_scale(axes, which):
     axis = getattr(axes, f"{which}axis")
     axis.set_major_formatter(LogFormatter())
     axis.set_minor_formatter(LogFormatter(labelOnlyBase=False))
+
+
+def thin_log_ticks(axes, which):
+    """Drop the minor ticks of the logarithmic ``which`` axis of ``axes`` when its view spans more
+    than ``MINOR_TICK_DECADES`` decades: they carry no labels there, yet building them is about
+    a third of drawing such a figure (75 ms of the ammonia demo's x-y diagram). Call it once
+    the data and limits are set."""
+    from matplotlib.ticker import NullLocator
+
+    low, high = sorted(getattr(axes, f"get_{which}lim")())
+    if low > 0.0 and np.log10(high / low) > MINOR_TICK_DECADES:
+        getattr(axes, f"{which}axis").set_minor_locator(NullLocator())
 
 
 def _stage_axis(axes, n_stages, *, feeds=False):
@@ -136,6 +156,7 @@ def _composition_profiles(figure, solution):
         axes.set_xlabel("mole fraction [-]")
         axes.set_title(title)
         _stage_axis(axes, solution.n_stages)
+        thin_log_ticks(axes, "x")
     liquid_axes.set_ylabel("")
     liquid_axes.legend(loc="best", fontsize="x-small")
     figure.suptitle("Composition profiles")
@@ -161,7 +182,7 @@ def _xy_diagram(figure, solution, design, shown):
     """Linear x-y diagram; when the gas is cleaned by more than two decades, a log-log panel
     beside it shows the stages near the lean end, which the linear one crowds into a corner."""
     stepping = design.stepping
-    logarithmic = design.gas_ratio_in > LOG_PANEL_RATIO * design.gas_ratio_out > 0.0
+    logarithmic = _xy_has_log_panel(design)
     if logarithmic:
         figure.set_size_inches(2.0 * FIGURE_SIZE[0], FIGURE_SIZE[1])
         figure.subplots_adjust(left=0.07, right=0.98, wspace=0.22)
@@ -188,7 +209,13 @@ def _xy_diagram(figure, solution, design, shown):
         log_scale(panels[1], "y")
         panels[1].set_ylim(bottom=0.3 * design.gas_ratio_out, top=2.0 * design.gas_ratio_in)
         panels[1].set_title("log-log, lean end", fontsize="small")
+        thin_log_ticks(panels[1], "x")
+        thin_log_ticks(panels[1], "y")
     figure.suptitle(f"x-y diagram of {design.key}, isothermal at {shown(design.temperature):.1f} {shown.unit}")
+
+
+def _xy_has_log_panel(design):
+    return design.gas_ratio_in > LOG_PANEL_RATIO * design.gas_ratio_out > 0.0
 
 
 def _rigorous_passing_streams(solution, key):

@@ -236,15 +236,19 @@ def _shown(value):
     return str(value)
 
 
-def write_sizing_files(folder, sizing, *, plots=True):
-    """Write hydraulics.csv (and hydraulics.png with ``plots``) into ``folder``; their names."""
+def write_sizing_files(folder, sizing):
+    """Write hydraulics.csv into ``folder``; its name (none without sizing)."""
     if sizing is None:
         return []
     write_hydraulics_csv(folder / HYDRAULICS_FILE, sizing)
-    if not plots:
-        return [HYDRAULICS_FILE]
-    write_hydraulics_plot(folder / HYDRAULICS_PLOT, sizing)
-    return [HYDRAULICS_FILE, HYDRAULICS_PLOT]
+    return [HYDRAULICS_FILE]
+
+
+def sizing_drawings(sizing):
+    """hydraulics.png as (file name, draw, weight) for ``plots.write_plots``; none without sizing."""
+    if sizing is None:
+        return []
+    return [(HYDRAULICS_PLOT, lambda figure: draw_hydraulics(figure, sizing), 1.3)]
 
 
 def write_hydraulics_csv(path, sizing):
@@ -278,24 +282,20 @@ def write_hydraulics_csv(path, sizing):
             writer.writerow([int(v) if i == 0 else f"{float(v):.6g}" if np.isfinite(v) else "" for i, v in enumerate(row)])
 
 
-def write_hydraulics_plot(path, sizing):
+def draw_hydraulics(figure, sizing):
     """hydraulics.png: percent of flood and pressure drop against stage (stage 1 at the top)."""
-    from .plots import _save, _stage_axis
+    from .plots import _stage_axis
 
     h = sizing.hydraulics
     stages = np.arange(1, h.fraction_of_flood.size + 1)
-
-    def draw(figure):
-        flood, drop = figure.subplots(1, 2, sharey=True)
-        flood.plot(100 * np.where(np.isfinite(h.fraction_of_flood), h.fraction_of_flood, np.nan), stages, marker="o")
-        flood.axvline(100 * sizing.internals.fraction_of_flood, linestyle="--", color="grey", label="design")
-        flood.set_xlabel("percent of flood [%]")
-        flood.legend(loc="best")
-        drop.plot(h.stage_pressure_drop / 1e3, stages, marker="s", color="tab:red")
-        drop.set_xlabel("pressure drop per tray [kPa]" if sizing.kind == "trays" else "pressure drop per stage's bed [kPa]")
-        _stage_axis(flood, stages.size)
-        drop.grid(True, alpha=0.3)
-        floods = f" - THE COLUMN FLOODS (stages {_stage_ranges(list(sizing.flooded_stages))})" if sizing.floods else ""
-        figure.suptitle(f"Hydraulics: D = {sizing.diameter:.3f} m{floods}")
-
-    _save(path, draw)
+    flood, drop = figure.subplots(1, 2, sharey=True)
+    flood.plot(100 * np.where(np.isfinite(h.fraction_of_flood), h.fraction_of_flood, np.nan), stages, marker="o")
+    flood.axvline(100 * sizing.internals.fraction_of_flood, linestyle="--", color="grey", label="design")
+    flood.set_xlabel("percent of flood [%]")
+    flood.legend(loc="best")
+    drop.plot(h.stage_pressure_drop / 1e3, stages, marker="s", color="tab:red")
+    drop.set_xlabel("pressure drop per tray [kPa]" if sizing.kind == "trays" else "pressure drop per stage's bed [kPa]")
+    _stage_axis(flood, stages.size)
+    drop.grid(True, alpha=0.3)
+    floods = f" - THE COLUMN FLOODS (stages {_stage_ranges(list(sizing.flooded_stages))})" if sizing.floods else ""
+    figure.suptitle(f"Hydraulics: D = {sizing.diameter:.3f} m{floods}")
