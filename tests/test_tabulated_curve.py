@@ -1,5 +1,5 @@
-"""The tabulated equilibrium curve Y*(X) of the costly liquids (the aqueous electrolyte liquid
-and the Peng-Robinson liquid): against the model point by point, outside its nodes equal to the
+"""The tabulated equilibrium curve Y*(X) of the costly liquids (the aqueous electrolyte liquid,
+the Peng-Robinson liquid and the activity-coefficient liquid): against the model point by point, outside its nodes equal to the
 model, its inverse, its slopes against finite differences, and the inert-basis design it gives
 against the design on the exact curve.
 
@@ -20,6 +20,7 @@ from traywise.inert_basis.tabulated_curve import (TABLE_TOLERANCE, TabulatedEqui
                                                   tabulate)
 from traywise.properties.library import find_component
 from traywise.properties.model import PropertyModel
+from traywise.properties.unifac_parameters import unifac
 
 P = 1.2e5
 
@@ -51,18 +52,28 @@ def oil_model():
     return PropertyModel([find_component(name) for name in OIL], ["eos"] * len(OIL))
 
 
+def unifac_model():
+    """Water and acetone by modified UNIFAC (Dortmund), anchored to acetone's Henry's constant."""
+    parts = [find_component(name) for name in ("water", "acetone", "nitrogen")]
+    return PropertyModel(parts, ["raoult", "activity", "insoluble"], activity=unifac(parts[:2]))
+
+
 OIL_CURVES = [("propane", 303.15, 0.05), ("ethane", 283.15, 0.1)]
+ACTIVITY_CURVES = [("acetone", 298.15, 0.05)]
 
 
 def _id(curve):
     if len(curve) == 3:
-        return f"{curve[0]}-in-oil-{curve[1]:.0f}K"
+        return f"{curve[0]}-{'by-unifac' if curve in ACTIVITY_CURVES else 'in-oil'}-{curve[1]:.0f}K"
     return f"{'+'.join(curve[1])}{'-caustic' if curve[2] else ''}-{curve[3]:.0f}K"
 
 
-@pytest.fixture(scope="module", params=CURVES + OIL_CURVES, ids=_id)
+@pytest.fixture(scope="module", params=CURVES + OIL_CURVES + ACTIVITY_CURVES, ids=_id)
 def curves(request):
-    if len(request.param) == 3:
+    if request.param in ACTIVITY_CURVES:
+        key, t, gas_ratio = request.param
+        model, solvent = unifac_model(), np.array([1.0, 0.0, 0.0])
+    elif len(request.param) == 3:
         key, t, gas_ratio = request.param
         model, solvent = oil_model(), np.eye(len(OIL))[0]
     else:
@@ -161,6 +172,8 @@ def test_stepping_uses_a_table_only_for_the_costly_liquids(monkeypatch):
     curve = stepping_equilibrium(water_model, "ammonia", temperature=293.15, pressure=P, highest_gas_ratio=0.1)
     assert isinstance(curve, TabulatedEquilibrium)
     curve = stepping_equilibrium(oil_model(), "propane", temperature=303.15, pressure=P, highest_gas_ratio=0.1)
+    assert isinstance(curve, TabulatedEquilibrium)
+    curve = stepping_equilibrium(unifac_model(), "acetone", temperature=298.15, pressure=P, highest_gas_ratio=0.1)
     assert isinstance(curve, TabulatedEquilibrium)
     henry_model = PropertyModel([find_component("water"), find_component("ammonia"), find_component("nitrogen")])
     curve = stepping_equilibrium(henry_model, "ammonia", temperature=293.15, pressure=P, highest_gas_ratio=0.1)

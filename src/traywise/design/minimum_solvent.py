@@ -26,7 +26,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from ..inert_basis.equilibrium_curve import mole_ratio_equilibrium
+from ..inert_basis.tabulated_curve import stepping_equilibrium
 from ..errors import InputError
 from ..mesh.newton import SolverSettings
 from ..inert_basis.stepping import minimum_liquid_to_gas_ratio
@@ -226,8 +226,9 @@ def _longer(column, n_stages):
 
 def _inert_basis_minimum(column, model, target, temperature):
     """(L'/V')min, the same as a total solvent feed [mol/s], and the T [K] and P [Pa] used.
-    The equilibrium curve takes K in the solvent fed (key left out), as the inert-basis design
-    of the comparison does, for composition-dependent models."""
+    The equilibrium curve takes K in the solvent fed (key left out), and is the one the
+    inert-basis design of the comparison steps on (``stepping_equilibrium``), for
+    composition-dependent models."""
     i = model.component_index(target.key)
     gas, solvent = column.gas.component_flows, column.solvent.component_flows
     inert_gas, solvent_free = gas.sum() - gas[i], solvent.sum() - solvent[i]
@@ -239,7 +240,8 @@ def _inert_basis_minimum(column, model, target, temperature):
         gas_out = y_out / (1.0 - y_out)
     t = column.solvent.temperature if temperature is None else float(temperature)
     p = float(np.mean(column.pressures))
-    curve = mole_ratio_equilibrium(model, target.key, temperature=t, pressure=p, solvent_mole_fractions=solvent)
+    curve = stepping_equilibrium(model, target.key, temperature=t, pressure=p, solvent_mole_fractions=solvent,
+                                 highest_gas_ratio=gas_in)
     ratio = minimum_liquid_to_gas_ratio(curve, gas_ratio_in=gas_in, gas_ratio_out=gas_out, liquid_ratio_in=liquid_in)
     return ratio, ratio * inert_gas * solvent.sum() / solvent_free, t, p
 

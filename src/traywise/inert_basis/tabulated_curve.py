@@ -1,7 +1,8 @@
 """An equilibrium curve Y*(X) tabulated once and interpolated, for liquids whose single-point
 evaluation is costly (the aqueous electrolyte liquid solves its speciation by Newton's method and
-the Peng-Robinson liquid two cubics with their derivatives, about 1 ms a call either way, and the
-stage stepping asks for several hundred single points).
+the Peng-Robinson liquid two cubics with their derivatives, about 1 ms a call either way, an
+activity model's group sums about 0.3 ms, and the stage stepping asks for several hundred single
+points).
 
 The table holds ln Y* and its exact slope d ln Y*/d ln X (from the model's own composition
 derivatives) at nodes in ln X, and interpolates by cubic Hermite polynomials, whose error falls
@@ -34,6 +35,7 @@ ACCEPTED_ERROR = 10.0  # a table off by more than this many tolerances at that s
 TOP_MARGIN = 2.0  # the table reaches the liquid in equilibrium with this multiple of the richest gas
 TOP_LADDER = (1e-6, 1e-5, 1e-4, 1e-3, 3e-3, 0.01, 0.03, 0.1, 0.2, 0.3, 0.45, 0.6, 0.8, 0.95)  # mole fractions probed
 DILUTE_RUNG = 0.01  # rungs up to here are asked together (the model accepts a dilute liquid)
+COSTLY_LIQUIDS = {"eos", "activity"}  # equilibrium models besides 'electrolyte' whose curves are tabulated
 
 
 @dataclass(frozen=True, eq=False)
@@ -116,12 +118,13 @@ class TabulatedEquilibrium:
 def stepping_equilibrium(model, key, *, temperature, pressure, solvent_mole_fractions=None, highest_gas_ratio=None):
     """The model's Y*(X) of ``key`` for stage stepping (arguments as ``mole_ratio_equilibrium``,
     and ``highest_gas_ratio`` as ``tabulate``): tabulated when the model has the aqueous
-    electrolyte liquid or the Peng-Robinson liquid ('eos' components), whose single points cost
-    about 1 ms each, or the exact curve when the table cannot be built (the model refuses even the
-    dilute end of it)."""
+    electrolyte liquid, the Peng-Robinson liquid or an activity model (``COSTLY_LIQUIDS``), whose
+    single points cost 0.3-1.4 ms each, or the exact curve when the table cannot be built (the
+    model refuses even the dilute end of it)."""
     curve = mole_ratio_equilibrium(model, key, temperature=temperature, pressure=pressure,
                                    solvent_mole_fractions=solvent_mole_fractions)
-    if not (isinstance(curve, MixtureEquilibrium) and (model.electrolyte is not None or "eos" in model.equilibrium)):
+    costly = model.electrolyte is not None or bool(COSTLY_LIQUIDS & set(model.equilibrium))
+    if not (isinstance(curve, MixtureEquilibrium) and costly):
         return curve
     try:
         return tabulate(curve, highest_gas_ratio=highest_gas_ratio)
