@@ -16,13 +16,15 @@ one of the run's own figures for scale.
 Run: python tests/benchmarks/bench_sizing.py [REPEAT]   (default 11; medians and min-max)
 """
 
+import os
 import re
 import sys
 import tempfile
 import time
 from pathlib import Path
 
-import numpy as np
+os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")  # before numpy, as the command line sets it: a
+import numpy as np  # noqa: E402  (single-threaded process draws its figures on two cores, figure_pool)
 
 sys.path.insert(0, str(Path(__file__).resolve().parent))
 from bench_solver import case  # noqa: E402
