@@ -35,7 +35,7 @@ ACCEPTED_ERROR = 10.0  # a table off by more than this many tolerances at that s
 TOP_MARGIN = 2.0  # the table reaches the liquid in equilibrium with this multiple of the richest gas
 TOP_LADDER = (1e-6, 1e-5, 1e-4, 1e-3, 3e-3, 0.01, 0.03, 0.1, 0.2, 0.3, 0.45, 0.6, 0.8, 0.95)  # mole fractions probed
 DILUTE_RUNG = 0.01  # rungs up to here are asked together (the model accepts a dilute liquid)
-COSTLY_LIQUIDS = {"eos", "activity"}  # equilibrium models besides 'electrolyte' whose curves are tabulated
+COSTLY_LIQUIDS = {"electrolyte", "eos", "activity"}  # equilibrium models whose stepping curves are tabulated
 
 
 @dataclass(frozen=True, eq=False)
@@ -123,8 +123,7 @@ def stepping_equilibrium(model, key, *, temperature, pressure, solvent_mole_frac
     model refuses even the dilute end of it)."""
     curve = mole_ratio_equilibrium(model, key, temperature=temperature, pressure=pressure,
                                    solvent_mole_fractions=solvent_mole_fractions)
-    costly = model.electrolyte is not None or bool(COSTLY_LIQUIDS & set(model.equilibrium))
-    if not (isinstance(curve, MixtureEquilibrium) and costly):
+    if not (isinstance(curve, MixtureEquilibrium) and COSTLY_LIQUIDS & set(model.equilibrium)):
         return curve
     try:
         return tabulate(curve, highest_gas_ratio=highest_gas_ratio)
