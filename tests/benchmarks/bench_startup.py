@@ -4,6 +4,13 @@ fastest and slowest wall time of REPEAT (>= 11) cold processes against the targe
 and with --baseline SRC the same commands from another source tree (for instance an older
 checkout's src/) interleaved run by run, so that both see the same load.
 
+Each is timed twice over: 'compiled', with the modules' bytecode already written (in a
+temporary PYTHONPYCACHEPREFIX, by one untimed run first), as ``pip install`` leaves an installed
+package (it compiles every module at install time); and 'source', with no bytecode written
+(PYTHONDONTWRITEBYTECODE=1), so that every start compiles traywise's source again, as a source
+checkout starts where that variable is set (this development machine sets it). The target is
+read on 'compiled': a user's cold start.
+
 Run: python tests/benchmarks/bench_startup.py [REPEAT] [--baseline PATH/TO/src]
 Targets: --help 0.1 s; ammonia demo 0.6 s without plots, 1.5 s with plots (medians). The
 machine is shared: the load average is printed before and after; read the spread beside the
@@ -27,9 +34,19 @@ COMMANDS = {  # label: (arguments after `python -m traywise.cli`, target [s])
 }
 
 
-def one_run(arguments, source, folder, index):
-    """Wall time [s] of one cold `python -m traywise.cli ARGUMENTS` with ``source`` first on the path."""
+MODES = ("compiled", "source")
+
+
+def one_run(arguments, source, folder, index, bytecode):
+    """Wall time [s] of one cold `python -m traywise.cli ARGUMENTS` with ``source`` first on the
+    path, its bytecode kept in the folder ``bytecode`` ('compiled'), or never written (None: 'source')."""
     env = {**os.environ, "PYTHONPATH": str(source), "MPLBACKEND": "Agg"}
+    env.pop("PYTHONDONTWRITEBYTECODE", None)
+    env.pop("PYTHONPYCACHEPREFIX", None)
+    if bytecode is not None:
+        env["PYTHONPYCACHEPREFIX"] = str(bytecode)
+    else:
+        env["PYTHONDONTWRITEBYTECODE"] = "1"
     if arguments[0] == "run":
         arguments = [*arguments, "--out", str(Path(folder) / f"results-{index}")]
     start = time.perf_counter()
@@ -46,22 +63,31 @@ def main(repeat=11, baseline=None):
     if baseline:
         trees["baseline"] = Path(baseline).resolve()
     print(f"load average before: {os.getloadavg()[0]:.2f} {os.getloadavg()[1]:.2f} {os.getloadavg()[2]:.2f}")
-    times = {(tree, label): [] for tree in trees for label in COMMANDS}
+    times = {(tree, mode, label): [] for tree in trees for mode in MODES for label in COMMANDS}
     with tempfile.TemporaryDirectory() as folder:
+        bytecode = {tree: Path(folder) / f"bytecode-{k}" for k, tree in enumerate(trees)}
+        for tree, source in trees.items():  # bytecode written once, untimed
+            for arguments, _target in COMMANDS.values():
+                one_run(arguments, source, folder, 0, bytecode[tree])
         index = 0
         for _ in range(repeat):
             for label, (arguments, _target) in COMMANDS.items():
                 for tree, source in trees.items():
-                    index += 1
-                    times[tree, label].append(one_run(arguments, source, folder, index))
-    print(f"{'command':<24} {'tree':<10} {'median [s]':>10} {'min':>6} {'max':>6} {'target':>6} {'ratio':>5}")
+                    for mode in MODES:
+                        index += 1
+                        where = bytecode[tree] if mode == "compiled" else None
+                        times[tree, mode, label].append(one_run(arguments, source, folder, index, where))
+    print(f"{'command':<24} {'tree':<10} {'bytecode':<9} {'median [s]':>10} {'min':>6} {'max':>6} {'target':>6} {'ratio':>5}")
     for label, (_arguments, target) in COMMANDS.items():
         for tree in trees:
-            values = sorted(times[tree, label])
-            median = statistics.median(values)
-            print(f"{label:<24} {tree:<10} {median:10.3f} {values[0]:6.3f} {values[-1]:6.3f} {target:6.1f} {median / target:5.2f}")
+            for mode in MODES:
+                values = sorted(times[tree, mode, label])
+                median = statistics.median(values)
+                print(f"{label:<24} {tree:<10} {mode:<9} {median:10.3f} {values[0]:6.3f} {values[-1]:6.3f} {target:6.1f} "
+                      f"{median / target:5.2f}")
     print(f"load average after: {os.getloadavg()[0]:.2f} {os.getloadavg()[1]:.2f} {os.getloadavg()[2]:.2f}")
-    print(f"({repeat} cold processes per command and tree, interleaved; python -m traywise.cli)")
+    print(f"({repeat} cold processes per command, tree and bytecode mode, interleaved; python -m traywise.cli; "
+          "targets read on 'compiled')")
 
 
 if __name__ == "__main__":

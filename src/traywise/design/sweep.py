@@ -18,7 +18,6 @@ Outputs (strings; ``key`` is a component name):
 
 import math
 import os
-from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass
 
 import numpy as np
@@ -137,6 +136,8 @@ def sweep(
     if processes == 1 or total <= 1:
         results = _run(job, values, (lambda done: progress(done, total)) if progress else None)
     else:
+        from concurrent.futures import ProcessPoolExecutor  # with multiprocessing: only when a sweep runs in parallel
+
         # A multiple of ``processes`` chunks of near-equal size keeps the workers evenly loaded.
         chunks = np.array_split(values, processes * math.ceil(total / (processes * CHUNK_SIZE)))
         results = []
