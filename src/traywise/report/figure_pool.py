@@ -2,8 +2,9 @@
 process draws the rest (each figure costs 60-180 ms of matplotlib, and a run with plots spends
 more than half its time on them).
 
-The work is split by each figure's rough relative cost (``weight``, largest first onto the
-lighter side). Fork is used only on Linux and only while this process runs a single thread (a
+The work is split by each figure's rough relative cost (``weight``) so that the heavier share is
+as light as it can be (a run draws a handful of figures: every split of the heaviest
+``EXACT_SPLIT`` is tried; any further, lighter ones go onto the lighter side in turn). Fork is used only on Linux and only while this process runs a single thread (a
 fork with other threads alive can deadlock the child; the command line limits BLAS to one
 thread, so its runs qualify). Where fork is not used, or the child fails, is killed or outlasts
 ``CHILD_TIMEOUT``, this process draws the child's figures itself: the folder never lacks one.
@@ -14,6 +15,7 @@ import signal
 import sys
 import time
 
+EXACT_SPLIT = 12  # figures whose every split is tried (2**11 at most); a run draws up to six
 CHILD_TIMEOUT = 120.0  # s a child may take before its figures are drawn here instead
 POLL_INTERVAL = 0.002  # s between looks at the child once this process's own share is done
 
@@ -59,9 +61,22 @@ def _threads():
 
 
 def _split(drawings):
-    """(here, there): the drawings in two shares of about equal weight, heaviest placed first."""
-    shares, totals = ([], []), [0.0, 0.0]
-    for drawing in sorted(drawings, key=lambda d: -d[2]):
+    """(here, there): the drawings in two shares whose heavier is as light as possible (exactly
+    for the heaviest ``EXACT_SPLIT``, the heaviest of all here; the rest placed greedily)."""
+    ordered = sorted(drawings, key=lambda d: -d[2])
+    exact, rest = ordered[:EXACT_SPLIT], ordered[EXACT_SPLIT:]
+    weights = [d[2] for d in exact]
+    total, best, chosen = sum(weights), float("inf"), 0
+    for mask in range(1 << max(len(exact) - 1, 0)):  # bit i: exact[i + 1] here too
+        here = weights[0] + sum(w for i, w in enumerate(weights[1:]) if mask >> i & 1)
+        heavier = max(here, total - here)
+        if heavier < best:
+            best, chosen = heavier, mask
+    shares = ([exact[0]], [])
+    for i, drawing in enumerate(exact[1:]):
+        shares[0 if chosen >> i & 1 else 1].append(drawing)
+    totals = [sum(d[2] for d in share) for share in shares]
+    for drawing in rest:
         lighter = 0 if totals[0] <= totals[1] else 1
         shares[lighter].append(drawing)
         totals[lighter] += drawing[2]
