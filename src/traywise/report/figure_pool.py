@@ -4,10 +4,11 @@ more than half its time on them).
 
 The work is split by each figure's rough relative cost (``weight``) so that the heavier share is
 as light as it can be (a run draws a handful of figures: every split of the heaviest
-``EXACT_SPLIT`` is tried; any further, lighter ones go onto the lighter side in turn). Fork is used only on Linux and only while this process runs a single thread (a
-fork with other threads alive can deadlock the child; the command line limits BLAS to one
-thread, so its runs qualify). Where fork is not used, or the child fails, is killed or outlasts
-``CHILD_TIMEOUT``, this process draws the child's figures itself: the folder never lacks one.
+``EXACT_SPLIT`` is tried; any further, lighter ones go onto the lighter side in turn). Fork is
+used only on Linux and only while this process runs a single thread (a fork with other threads
+alive can deadlock the child; the command line limits BLAS to one thread, so its runs qualify).
+Where fork is not used, or the child fails, is killed or outlasts ``CHILD_TIMEOUT``, this process
+draws the child's figures itself: the folder never lacks one.
 """
 
 import os
