@@ -1,7 +1,7 @@
 """A run imports only what it needs: no scipy.optimize or scipy.linalg (half a second each of
 start-up, measured in tests/benchmarks/bench_cli.py), no multiprocessing unless a sweep or a
-study runs in parallel (about 14 ms, measured with python -X importtime), one BLAS thread unless the user sets one,
-and the banded solver gives the same answer through either LAPACK route."""
+study runs in parallel (about 14 ms of imports, timed cold with and without it), one BLAS thread
+unless the user sets one, and the banded solver gives the same answer through either LAPACK route."""
 
 import os
 import subprocess
