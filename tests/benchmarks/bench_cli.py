@@ -33,10 +33,11 @@ def command():
     return [installed] if installed else [sys.executable, "-m", "traywise.cli"]
 
 
-def environment(bytecode):
-    """The environment of a run: bytecode kept in the folder ``bytecode``, or never written (None)."""
+def environment(bytecode, source=REPOSITORY / "src"):
+    """The environment of a run with ``source`` first on the path: bytecode kept in the folder
+    ``bytecode``, or never written (None)."""
     env = dict(os.environ)
-    env["PYTHONPATH"] = os.pathsep.join(filter(None, [str(REPOSITORY / "src"), env.get("PYTHONPATH")]))
+    env["PYTHONPATH"] = os.pathsep.join(filter(None, [str(source), env.get("PYTHONPATH")]))
     env["MPLBACKEND"] = "Agg"
     env.pop("PYTHONPYCACHEPREFIX", None)
     env.pop("PYTHONDONTWRITEBYTECODE", None)

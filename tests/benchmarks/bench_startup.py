@@ -25,6 +25,9 @@ import tempfile
 import time
 from pathlib import Path
 
+sys.path.insert(0, str(Path(__file__).resolve().parent))
+from bench_cli import environment  # noqa: E402  (the same environment: path, Agg, bytecode or none)
+
 REPOSITORY = Path(__file__).resolve().parents[2]
 DEMO = REPOSITORY / "cases" / "ammonia-recovery.toml"
 COMMANDS = {  # label: (arguments after `python -m traywise.cli`, target [s])
@@ -40,13 +43,7 @@ MODES = ("compiled", "source")
 def one_run(arguments, source, folder, index, bytecode):
     """Wall time [s] of one cold `python -m traywise.cli ARGUMENTS` with ``source`` first on the
     path, its bytecode kept in the folder ``bytecode`` ('compiled'), or never written (None: 'source')."""
-    env = {**os.environ, "PYTHONPATH": str(source), "MPLBACKEND": "Agg"}
-    env.pop("PYTHONDONTWRITEBYTECODE", None)
-    env.pop("PYTHONPYCACHEPREFIX", None)
-    if bytecode is not None:
-        env["PYTHONPYCACHEPREFIX"] = str(bytecode)
-    else:
-        env["PYTHONDONTWRITEBYTECODE"] = "1"
+    env = environment(bytecode, source)
     if arguments[0] == "run":
         arguments = [*arguments, "--out", str(Path(folder) / f"results-{index}")]
     start = time.perf_counter()

@@ -8,3 +8,4 @@ ZERO_CELSIUS = 273.15  # K (exact by definition)
 # component flows converge to about 1e-9 of each feed); reports print them as "< 1e-12" and the
 # uncertainty analysis claims no figure below it.
 TRACE_MOLE_FRACTION = 1e-12
+TRACE_PPMV = 1e6 * TRACE_MOLE_FRACTION  # the same floor in ppmv

@@ -8,8 +8,9 @@ line, never left out silently. matplotlib through its object interface (as in ``
 
 import numpy as np
 
+from ..properties.constants import TRACE_PPMV
 from .plots import DPI, MARGINS, log_scale
-from .tables import TRACE_FLOOR, TRACE_PPMV
+from .tables import TRACE_FLOOR
 from .sweep_labels import converter, is_whole, label, reference_lines, words
 
 PANEL_HEIGHT = 2.0  # inches per output

@@ -12,11 +12,12 @@ import json
 import math
 
 from .. import __version__
+from ..properties.constants import TRACE_PPMV
 from .cautions import SAFETY_CAUTIONS, safety_one_line
 from .folder import MARKER, write_results_folder
 from .results import DEFAULT_UNITS, plain
 from .sweep_labels import converter, is_whole, label, words
-from .tables import TRACE_FLOOR, TRACE_PPMV, TRACE_TEXT, markdown_table, percent, text_table
+from .tables import TRACE_FLOOR, TRACE_TEXT, markdown_table, percent, text_table
 from .warning_units import in_display_units
 
 CSV_FILE, FIGURE_FILE, RECORD_FILE, REPORT_FILE = "sweep.csv", "sweep.png", "sweep.json", "sweep.md"

@@ -16,7 +16,6 @@ from ..properties.constants import TRACE_MOLE_FRACTION, ZERO_CELSIUS
 SECONDS_PER_HOUR = 3600.0
 TRACE_FLOOR = TRACE_MOLE_FRACTION  # fractions below it print as "< 1e-12"
 TRACE_TEXT = f"< {TRACE_FLOOR:g}"
-TRACE_PPMV = 1e6 * TRACE_FLOOR  # the same floor as ppmv, printed "< 1e-06"
 
 
 class Display:

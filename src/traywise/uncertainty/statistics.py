@@ -19,10 +19,9 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ..properties.constants import TRACE_MOLE_FRACTION
+from ..properties.constants import TRACE_PPMV as RESOLVED_PPMV  # outlets below it [ppmv] carry no information
 
 PERCENTILES = (10.0, 50.0, 90.0)
-RESOLVED_PPMV = 1e6 * TRACE_MOLE_FRACTION  # outlets below it [ppmv] carry no information
 
 
 @dataclass(frozen=True)
