@@ -8,8 +8,11 @@ factorisation and solve (dgbsv) of one band of this size, timed on a reused Fort
 buffer (median of many), times the number of factorisations the solve used, plus one property
 evaluation over all stages. That band is diagonally dominant and needs no row interchanges; the
 column's own Jacobian does (fill-in up to below + above), so its factorisation at the solution is
-timed the same way beside it ('own LU'), for reading the ratio. ``hybr`` is scipy.optimize.root(method='hybr') on the same scaled
-residuals with a finite-difference Jacobian and the same start (where it converges).
+timed the same way beside it ('own LU'), for reading the ratio. Every Newton step needs the
+property sweep (values and derivatives) at its iterate and one factorisation of its own Jacobian,
+while the floor counts one sweep in all; so no solve of this form, whatever else it saves, gets
+below 'bound' = iter x (props + own LU) / floor. ``hybr`` is scipy.optimize.root(method='hybr') on
+the same scaled residuals with a finite-difference Jacobian and the same start (where it converges).
 
 Run: python tests/benchmarks/bench_solver.py [REPEAT] [SIZES]   (REPEAT >= 11 cold solves, default
 11; SIZES such as 8x40,6x40,6x320 for components x stages, default every size; the 40-stage
@@ -135,7 +138,8 @@ def main(repeat=11, sizes=None):
         wanted |= {(c, 40) for c, _ in wanted}
     print(
         f"{'comp':>4} {'stages':>6} {'iter':>4} {'median ms':>9} {'min ms':>7} {'max ms':>7} {'wall ms':>8} "
-        f"{'floor ms':>8} {'LU ms':>7} {'props ms':>8} {'actual/floor':>12} {'x 40-stage':>10} {'hybr/ours':>9} {'own LU ms':>9}"
+        f"{'floor ms':>8} {'LU ms':>7} {'props ms':>8} {'actual/floor':>12} {'x 40-stage':>10} {'hybr/ours':>9} {'own LU ms':>9} "
+        f"{'bound':>5}"
     )
     for n_components in (3, 6, 8):
         reference = None
@@ -158,11 +162,13 @@ def main(repeat=11, sizes=None):
             print(
                 f"{n_components:4d} {n_stages:6d} {iterations:4d} {median * 1e3:9.2f} {times.min() * 1e3:7.2f} "
                 f"{times.max() * 1e3:7.2f} {np.median(walls) * 1e3:8.2f} {total * 1e3:8.2f} {one * 1e3:7.3f} {sweep * 1e3:8.3f} "
-                f"{median / total:12.2f} {scaling} {base:>9} {own * 1e3:9.3f}"
+                f"{median / total:12.2f} {scaling} {base:>9} {own * 1e3:9.3f} {iterations * (sweep + own) / total:5.2f}"
             )
     print(f"({repeat} cold solves per size; CPU times except 'wall'; iter = Newton steps, each one factorisation; "
           "floor = LU x iter + one property sweep; LU on a diagonally dominant random band, which needs no row "
-          "interchanges; own LU: the same on the column's Jacobian at its solution; shared machine: medians are noisy)")
+          "interchanges; own LU: the same on the column's Jacobian at its solution; bound = iter x (props + own LU) / floor, "
+          "the least actual/floor of a solve that spends nothing beyond its steps' sweeps and factorisations; shared "
+          "machine: medians are noisy)")
 
 
 if __name__ == "__main__":
