@@ -85,10 +85,11 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
     iteration goes on; the converged state is always one the model evaluated cleanly. Neither
     estimate is best everywhere: 'hot' suits pinched, heat-bulged columns, 'linear' columns
     whose absorption front sits at the bottom. On the 200 generated
-    hard cases of tests/benchmarks (Newton steps counted): 'hot' alone converges on all, in at
-    most 37; 'linear' alone fails on 4; taking turns after 12 solo steps needed median 7, max
-    63, after 20 solo steps median 7, max 55 (the setting kept: the race is the safety net,
-    and each turn it takes doubles the cost).
+    hard cases of tests/benchmarks (Newton steps counted, max_growth 1000): 'hot' alone (with
+    'cold' behind it) converges on all, in at most 33; 'linear' alone on all, in up to 113;
+    taking turns after 12 solo steps needed median 6, max 55, after 20 solo steps median 6,
+    max 47 (the setting kept: the race is the safety net, and each turn it takes doubles the
+    cost).
     """
     equations = StageEquations(column, model)
     linear = BandedSystem(
