@@ -10,8 +10,9 @@ from support.balances import recomputed_closure
 from support.electrolyte import components
 from support.hard_cases import hard_case
 from traywise.column import Column, Feed
+import traywise.mesh.newton as newton
 from traywise.mesh.equations import StageEquations
-from traywise.mesh.newton import solve_column
+from traywise.mesh.newton import SolverSettings, solve_column
 from traywise.mesh.start import initial_estimate
 from traywise.properties.library import find_component
 from traywise.properties.model import PropertyModel
@@ -36,6 +37,21 @@ def test_hot_estimate_stays_at_or_below_the_solvent_boiling_point():
     k_water = model.evaluate(t[-1:], equations.pressure[-1:]).k[0, 0]
     assert 0.95 < k_water <= 1.0
 
+
+
+def test_the_starts_take_turns_after_the_solo_steps_and_reach_the_same_answer(monkeypatch):
+    """With a solo budget of two steps, 'hot' and then 'linear' are built and iterate in turn
+    until one converges (on the default budget 'hot' converges alone); the answer is the same."""
+    column, model, description = hard_case(17)  # 19 Newton steps from 'hot' alone
+    alone = solve_column(column, model)
+    built, estimate = [], newton.estimate_with_properties
+    monkeypatch.setattr(newton, "estimate_with_properties",
+                        lambda equations, profile: built.append(profile) or estimate(equations, profile))
+    raced = solve_column(column, model, settings=SolverSettings(solo_iterations=2))
+    assert built == ["hot", "linear"], description
+    assert np.allclose(raced.temperature, alone.temperature, rtol=0.0, atol=1e-7)
+    assert np.allclose(raced.liquid_flows, alone.liquid_flows, rtol=1e-7, atol=1e-12)
+    assert np.allclose(raced.vapour_flows, alone.vapour_flows, rtol=1e-7, atol=1e-12)
 
 # Ammonia and CO2 from nitrogen into water (invented washes from the generator of
 # tests/benchmarks/bench_electrolyte_cases.py, seed 12345): (stages, water [mol/s], solvent T [K],
