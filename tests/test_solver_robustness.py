@@ -6,11 +6,11 @@ solve_column applies before it returns anything."""
 import numpy as np
 import pytest
 
+import traywise.mesh.newton as newton
 from support.balances import recomputed_closure
 from support.electrolyte import components
 from support.hard_cases import hard_case
 from traywise.column import Column, Feed
-import traywise.mesh.newton as newton
 from traywise.mesh.equations import StageEquations
 from traywise.mesh.newton import SolverSettings, solve_column
 from traywise.mesh.start import initial_estimate
@@ -38,7 +38,6 @@ def test_hot_estimate_stays_at_or_below_the_solvent_boiling_point():
     assert 0.95 < k_water <= 1.0
 
 
-
 def test_the_starts_take_turns_after_the_solo_steps_and_reach_the_same_answer(monkeypatch):
     """With a solo budget of two steps, 'hot' and then 'linear' are built and iterate in turn
     until one converges (on the default budget 'hot' converges alone); the answer is the same."""
@@ -52,6 +51,7 @@ def test_the_starts_take_turns_after_the_solo_steps_and_reach_the_same_answer(mo
     assert np.allclose(raced.temperature, alone.temperature, rtol=0.0, atol=1e-7)
     assert np.allclose(raced.liquid_flows, alone.liquid_flows, rtol=1e-7, atol=1e-12)
     assert np.allclose(raced.vapour_flows, alone.vapour_flows, rtol=1e-7, atol=1e-12)
+
 
 # Ammonia and CO2 from nitrogen into water (invented washes from the generator of
 # tests/benchmarks/bench_electrolyte_cases.py, seed 12345): (stages, water [mol/s], solvent T [K],
