@@ -1,7 +1,8 @@
 """A sample of the robustness grid (the full 200-case grid is tests/benchmarks/bench_robustness.py):
 concentrated, strongly heat-releasing cases converge from the automatic start, and every
 solution passes the physical checks (sum K x = 1 on every stage, positive flows), which
-solve_column applies before it returns anything."""
+solve_column applies before it returns anything; the race of the starting estimates; ammonia and
+CO2 washes on the electrolyte liquid that the step control once let fail."""
 
 import numpy as np
 import pytest
