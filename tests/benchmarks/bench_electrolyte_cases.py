@@ -2,7 +2,7 @@
 (SO2 and HCl into sodium hydroxide, from far below to past stoichiometry) and ammonia washes
 with an acid gas (CO2 or H2S). Prints the share converged and refused, with each refusal's
 reason, the Newton steps and the three cases that took most. Invented cases.
-Run: python tests/benchmarks/bench_electrolyte_cases.py [n_cases]"""
+Run: python tests/benchmarks/bench_electrolyte_cases.py [n_cases] [seed]   (default 40, 11)"""
 
 import statistics
 import sys
@@ -49,8 +49,8 @@ def ammonia_acid_case(rng):
     return column, model, f"NH3+{acid} {stages} stages NH3 {nh3:.1e} {acid} {acid_y:.1e}"
 
 
-def main(n_cases=40):
-    rng = np.random.default_rng(11)
+def main(n_cases=40, seed=11):
+    rng = np.random.default_rng(seed)
     for label, build in (("caustic scrubbers", caustic_case), ("ammonia with an acid gas", ammonia_acid_case)):
         steps, times, refused, slowest = [], [], [], []
         for _ in range(n_cases):
@@ -75,4 +75,4 @@ def main(n_cases=40):
 
 
 if __name__ == "__main__":
-    main(int(sys.argv[1]) if len(sys.argv) > 1 else 40)
+    main(*(int(arg) for arg in sys.argv[1:3]))

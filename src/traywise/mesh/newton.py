@@ -36,10 +36,11 @@ class SolverSettings:
         that the flow limit clips often raises the residual for one step and then converges
         quadratically, and switched evolution relaxation already shrinks dt by that growth; a
         rejection with dt cut tenfold instead takes shorter steps that the limit clips as much.
-        Measured, Newton steps, with 10 and with 1000: bench_electrolyte_cases.py 150, ammonia
-        with CO2 or H2S into water 146 of 150 converged (max 209) and 150 (max 16), caustic
-        scrubbers 150 both (max 62 and 53); bench_robustness.py 800, 800 both (median 6, max 206
-        and 47)
+        Measured (Newton steps, solo_iterations 40) with 10 / 100 / 300 / 1000:
+        bench_electrolyte_cases.py 150 at seeds 11 and 12345, ammonia with CO2 or H2S into water
+        converged 146 and 147 of 150 (max 209, 217) / all (68, 217) / all (16, 217) / all (16, 16),
+        caustic scrubbers all, max 82, 30 / 82, 30 / 36, 30 / 36, 30; bench_robustness.py 800, all,
+        median 6, max 206 / 33 / 33 / 33 (1000 is the one value with no battery above 40 steps)
     polish_steps : Newton steps taken past the tolerance while each still reduces the residual
         tenfold (so that balances summed over many stages close to 1e-9)
     rounding_level : no polish step is taken from a residual below this: the rounding error
