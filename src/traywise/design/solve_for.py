@@ -4,7 +4,8 @@ that meets a target.
 Each loop brackets the root of the target's shortfall (``targets.py``) by stepping the variable
 geometrically, then closes it with Brent's method (R. P. Brent, Algorithms for Minimization
 without Derivatives, Prentice-Hall 1973, ch. 4), a safeguarded secant method; every solve
-warm-starts from the previous converged solution when the stage count is unchanged. The stage
+warm-starts from the previous converged solution when the stage count is unchanged (a solvent
+flow the warm start cannot reach is approached along flows between, see ``_Solver``). The stage
 count is an integer and is bracketed and bisected instead.
 """
 
@@ -22,6 +23,7 @@ MAX_STAGES = 200  # stage-count searches stop here
 MAX_DUTY_DOUBLINGS = 40
 DUTY_RESOLUTION = 1e-3  # relative; how closely the duty at which the liquid freezes is located
 X_TOLERANCE = 1e-12  # Brent's tolerance on the (log) variable, relative
+BRIDGE_SEGMENTS = (2, 4, 8)  # steps of the paths of solvent flows tried when a warm start fails
 
 
 @dataclass(frozen=True)
@@ -64,28 +66,73 @@ class DesignResult:
 
 class _Solver:
     """Solves columns one after another, warm-starting from the last converged solution with
-    the same stage count; counts solves and iterations; labels failures with the variable."""
+    the same stage count; counts solves and iterations; labels failures with the variable.
 
-    def __init__(self, model, settings):
-        self.model, self.settings = model, settings
-        self.last, self.solves, self.iterations = None, 0, 0
+    With ``bridge_flows`` (the columns differ only in their solvent flow), a solve that fails
+    from the last converged solution is tried again along a path of solvent flows between the
+    two, geometric, each warm-started from the one before: 1, then 3, then 7 flows between
+    (``BRIDGE_SEGMENTS``), a natural-parameter continuation (E. L. Allgower, K. Georg,
+    Introduction to Numerical Continuation Methods, SIAM 2003, ch. 1). A state that converges but
+    cannot exist (``UnphysicalSolution``) is an answer, and is never bridged around.
+    """
+
+    def __init__(self, model, settings, *, bridge_flows=True):
+        self.model, self.settings, self.bridge_flows = model, settings, bridge_flows
+        self.last, self.last_flow, self.solves, self.iterations = None, None, 0, 0
 
     def __call__(self, column, label):
         start = self.last if self.last is not None and self.last.n_stages == column.n_stages else None
-        self.solves += 1
         try:
-            solution = solve_column(column, self.model, settings=self.settings, start=start)
+            try:
+                solution = self._solve(column, start)
+            except UnphysicalSolution:
+                raise
+            except ConvergenceError as failure:
+                if not self.bridge_flows or start is None:
+                    raise
+                solution = self._bridged(column, failure)
         except ConvergenceError as failure:
-            self.iterations += failure.iterations
             raise type(failure)(
                 f"design loop at {label}: {failure.reason}",
                 iterations=failure.iterations,
                 residual=failure.residual,
                 stage=failure.stage,
             ) from failure
-        self.iterations += solution.convergence.iterations
-        self.last = solution
+        self.last, self.last_flow = solution, column.solvent.flow if self.bridge_flows else None
         return solution
+
+    def _solve(self, column, start):
+        self.solves += 1
+        try:
+            solution = solve_column(column, self.model, settings=self.settings, start=start)
+        except ConvergenceError as failure:
+            self.iterations += failure.iterations
+            raise
+        self.iterations += solution.convergence.iterations
+        return solution
+
+    def _bridged(self, column, failure):
+        """``column`` solved along solvent flows from the last converged one's; raises
+        ``failure`` (its reason extended) when no path converges."""
+        origin, low, high = self.last, self.last_flow, column.solvent.flow
+        for segments in BRIDGE_SEGMENTS:
+            solution = origin
+            try:
+                for i in range(1, segments):
+                    solution = self._solve(with_solvent_flow(column, low * (high / low) ** (i / segments)), solution)
+            except ConvergenceError:
+                continue  # a flow on the way failed, or converged to a state that cannot exist: a finer path
+            try:
+                return self._solve(column, solution)
+            except UnphysicalSolution:
+                raise  # converged, to a state that cannot exist: the answer for this column
+            except ConvergenceError:
+                continue
+        raise type(failure)(
+            f"{failure.reason}; nor along paths of up to {BRIDGE_SEGMENTS[-1] - 1} solvent flows between it and "
+            f"{low:.6g} mol/s, where the search converged",
+            iterations=failure.iterations, residual=failure.residual, stage=failure.stage,
+        ) from failure
 
 
 def solvent_for_target(column, model, target, *, limit=None, settings=SolverSettings()):
@@ -115,7 +162,7 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
     ConvergenceError   a rigorous solve failed; names the solvent flow
     """
     target = target.for_model(model)
-    solve = _Solver(model, settings)
+    solve = _Solver(model, settings, bridge_flows=True)
     base = column.solvent.flow
 
     short = {}  # converged flows that fall short of the target [mol/s] -> the solution
