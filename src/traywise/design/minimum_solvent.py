@@ -172,7 +172,8 @@ def minimum_solvent(
     solves = iterations = 0
     notes = []
     while True:
-        found = solvent_for_target(_longer(start, n), model, target, settings=settings)
+        guess = None if previous is None else previous.solution  # stretched where the longer column fails cold
+        found = solvent_for_target(_longer(start, n), model, target, guess=guess, settings=settings)
         solves, iterations = solves + found.solves, iterations + found.iterations
         if previous is not None and found.value > previous.value:
             # more stages never need more solvent: the longer column settled in another state

@@ -16,6 +16,7 @@ from dataclasses import dataclass
 from ..errors import ConvergenceError, PinchError, TargetNotReached, UnphysicalSolution
 from ..numerics import brent_root
 from ..mesh.newton import SolverSettings, solve_column
+from ..mesh.start import stretched
 from .variables import UNITS, with_cooler_duty, with_solvent_flow, with_stages
 
 MAX_SOLVENT_FACTOR = 2.0**14  # the solvent flow is searched within this factor of the given one
@@ -74,10 +75,14 @@ class _Solver:
     (``BRIDGE_SEGMENTS``), a natural-parameter continuation (E. L. Allgower, K. Georg,
     Introduction to Numerical Continuation Methods, SIAM 2003, ch. 1). A state that converges but
     cannot exist (``UnphysicalSolution``) is an answer, and is never bridged around.
+
+    ``guess``, a converged solution of the same feeds on another stage count: a solve without a
+    warm start of its own that fails from the automatic estimates is tried again from ``guess``
+    stretched to its stages (``mesh.start.stretched``).
     """
 
-    def __init__(self, model, settings, *, bridge_flows=True):
-        self.model, self.settings, self.bridge_flows = model, settings, bridge_flows
+    def __init__(self, model, settings, *, bridge_flows=False, guess=None):
+        self.model, self.settings, self.bridge_flows, self.guess = model, settings, bridge_flows, guess
         self.last, self.last_flow, self.solves, self.iterations = None, None, 0, 0
 
     def __call__(self, column, label):
@@ -88,9 +93,12 @@ class _Solver:
             except UnphysicalSolution:
                 raise
             except ConvergenceError as failure:
-                if not self.bridge_flows or start is None:
+                if start is None and self.guess is not None:
+                    solution = self._from_guess(column, failure)
+                elif start is not None and self.bridge_flows:
+                    solution = self._bridged(column, failure)
+                else:
                     raise
-                solution = self._bridged(column, failure)
         except ConvergenceError as failure:
             raise type(failure)(
                 f"design loop at {label}: {failure.reason}",
@@ -110,6 +118,19 @@ class _Solver:
             raise
         self.iterations += solution.convergence.iterations
         return solution
+
+    def _from_guess(self, column, failure):
+        """``column`` solved from ``guess`` stretched to its stages; raises ``failure`` (its
+        reason extended) when that fails too."""
+        try:
+            return self._solve(column, stretched(self.guess, column.n_stages))
+        except UnphysicalSolution:
+            raise
+        except ConvergenceError:
+            raise type(failure)(
+                f"{failure.reason}; nor from the {self.guess.n_stages}-stage solution stretched to {column.n_stages} stages",
+                iterations=failure.iterations, residual=failure.residual, stage=failure.stage,
+            ) from failure
 
     def _bridged(self, column, failure):
         """``column`` solved along solvent flows from the last converged one's; raises
@@ -135,7 +156,7 @@ class _Solver:
         ) from failure
 
 
-def solvent_for_target(column, model, target, *, limit=None, settings=SolverSettings()):
+def solvent_for_target(column, model, target, *, limit=None, guess=None, settings=SolverSettings()):
     """The solvent flow that just meets a solute target with the column's stages.
 
     The solvent feed is scaled (composition kept); the search runs on ln(flow) from the flow
@@ -147,6 +168,9 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
     model : PropertyModel
     target : SoluteTarget
     limit : TemperatureLimit, optional   Checked on the result and warned about, not enforced
+    guess : ColumnSolution, optional   The same feeds solved on another stage count (at about the
+                                    flow sought): where the first solve fails from the automatic
+                                    estimates, it starts from this one stretched to the stages
     settings : SolverSettings
 
     Returns
@@ -162,7 +186,7 @@ def solvent_for_target(column, model, target, *, limit=None, settings=SolverSett
     ConvergenceError   a rigorous solve failed; names the solvent flow
     """
     target = target.for_model(model)
-    solve = _Solver(model, settings, bridge_flows=True)
+    solve = _Solver(model, settings, bridge_flows=True, guess=guess)
     base = column.solvent.flow
 
     short = {}  # converged flows that fall short of the target [mol/s] -> the solution

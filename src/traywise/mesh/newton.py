@@ -71,8 +71,8 @@ def solve_column(column, model, *, settings=SolverSettings(), start=None):
     column : traywise.column.Column
     model : traywise.properties.model.PropertyModel
     settings : SolverSettings
-    start : ColumnSolution, optional   A solution of a similar column (same stage count and
-        components) to start from (warm start).
+    start : ColumnSolution or start.StageProfile, optional   A solution of a similar column
+        (same stage count and components) to start from (warm start).
 
     The automatic estimates 'hot', then 'linear' (see start.py) follow the warm start, and
     'cold' when both are refused or have failed (a hot gas over little solvent: at the

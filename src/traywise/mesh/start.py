@@ -26,6 +26,8 @@ property model refuses raises the model's ``PropertyRangeError`` (the solver the
 other estimates).
 """
 
+from dataclasses import dataclass
+
 import numpy as np
 
 from ..errors import ConvergenceError
@@ -33,6 +35,37 @@ from .lapack import solve_banded_in_place
 
 INSOLUBLE_K = 1e12  # stands in for an infinite K in the linear estimate only
 T_GRID = np.linspace(150.0, 700.0, 221)  # K, 2.5 K apart; where the hot-zone temperature is sought
+
+
+@dataclass(frozen=True)
+class StageProfile:
+    """Stage unknowns to start Newton from: what ``solve_column`` reads of a warm start.
+
+    temperature (N,) [K]; vapour_flows, liquid_flows (N, c) [mol/s]
+    """
+
+    temperature: np.ndarray
+    vapour_flows: np.ndarray
+    liquid_flows: np.ndarray
+
+    @property
+    def n_stages(self):
+        return self.temperature.size
+
+
+def stretched(solution, n_stages):
+    """The stage profile of ``solution`` (a ColumnSolution) on ``n_stages`` stages, interpolated
+    linearly in the relative height (top stage 0, bottom stage 1): a start for a column of the
+    same feeds with another stage count, whose pinch and absorption front sit at about the
+    same relative height."""
+    old = np.linspace(0.0, 1.0, solution.n_stages)
+    new = np.linspace(0.0, 1.0, n_stages)
+
+    def along(values):
+        return np.column_stack([np.interp(new, old, column) for column in values.T])
+
+    return StageProfile(np.interp(new, old, solution.temperature), along(solution.vapour_flows),
+                        along(solution.liquid_flows))
 
 
 def initial_estimate(equations, profile="hot"):
