@@ -1,4 +1,4 @@
-"""Design loops past a failed solve (``solve_for._Solver``), on ammonia and CO2 washes invented by
+"""Design loops past a failed solve (``design/loop_solver.py``), on ammonia and CO2 washes invented by
 the generator of tests/benchmarks/bench_reliability.py: the solvent-flow search reaches a flow
 its warm start cannot along flows between (valid case 154: a jump from 0.27 to 0.0021 mol/s of
 water); the minimum-solvent search solves a longer column that fails from the automatic
@@ -9,7 +9,7 @@ import pytest
 
 from support.electrolyte import components
 from traywise.column import Column, Feed
-from traywise.design import SoluteTarget, minimum_solvent, solve_for, solvent_for_target
+from traywise.design import SoluteTarget, loop_solver, minimum_solvent, solvent_for_target
 from traywise.design.minimum_solvent import _longer
 from traywise.design.variables import with_solvent_flow
 from traywise.errors import ConvergenceError
@@ -51,14 +51,14 @@ def test_the_search_converges_along_a_path_of_flows(wash):
 def test_when_no_path_converges_the_failure_says_so(wash, monkeypatch):
     """Every solve below 0.01 mol/s made to fail: the search's error names the path it tried."""
     column, model = wash
-    real = solve_for.solve_column
+    real = loop_solver.solve_column
 
     def failing_below(column, model, **options):
         if column.solvent.flow < 0.01:
             raise ConvergenceError("made to fail", iterations=1, residual=1.0)
         return real(column, model, **options)
 
-    monkeypatch.setattr(solve_for, "solve_column", failing_below)
+    monkeypatch.setattr(loop_solver, "solve_column", failing_below)
     with pytest.raises(ConvergenceError, match=r"made to fail; nor along paths of up to 7 solvent flows between it "
                                                r"and 0\.273834 mol/s, where the search converged"):
         solvent_for_target(column, model, TARGET)

@@ -5,7 +5,7 @@ Each loop brackets the root of the target's shortfall (``targets.py``) by steppi
 geometrically, then closes it with Brent's method (R. P. Brent, Algorithms for Minimization
 without Derivatives, Prentice-Hall 1973, ch. 4), a safeguarded secant method; every solve
 warm-starts from the previous converged solution when the stage count is unchanged (a solvent
-flow the warm start cannot reach is approached along flows between, see ``_Solver``). The stage
+flow the warm start cannot reach is approached along flows between, see ``loop_solver.py``). The stage
 count is an integer and is bracketed and bisected instead.
 """
 
@@ -15,8 +15,8 @@ from dataclasses import dataclass
 
 from ..errors import ConvergenceError, PinchError, TargetNotReached, UnphysicalSolution
 from ..numerics import brent_root
-from ..mesh.newton import SolverSettings, solve_column
-from ..mesh.start import stretched
+from ..mesh.newton import SolverSettings
+from .loop_solver import LoopSolver
 from .variables import UNITS, with_cooler_duty, with_solvent_flow, with_stages
 
 MAX_SOLVENT_FACTOR = 2.0**14  # the solvent flow is searched within this factor of the given one
@@ -24,7 +24,6 @@ MAX_STAGES = 200  # stage-count searches stop here
 MAX_DUTY_DOUBLINGS = 40
 DUTY_RESOLUTION = 1e-3  # relative; how closely the duty at which the liquid freezes is located
 X_TOLERANCE = 1e-12  # Brent's tolerance on the (log) variable, relative
-BRIDGE_SEGMENTS = (2, 4, 8)  # steps of the paths of solvent flows tried when a warm start fails
 
 
 @dataclass(frozen=True)
@@ -65,97 +64,6 @@ class DesignResult:
         return None if self.limit is None else self.limit.shortfall(self.solution) <= 0.0
 
 
-class _Solver:
-    """Solves columns one after another, warm-starting from the last converged solution with
-    the same stage count; counts solves and iterations; labels failures with the variable.
-
-    With ``bridge_flows`` (the columns differ only in their solvent flow), a solve that fails
-    from the last converged solution is tried again along a path of solvent flows between the
-    two, geometric, each warm-started from the one before: 1, then 3, then 7 flows between
-    (``BRIDGE_SEGMENTS``), a natural-parameter continuation (E. L. Allgower, K. Georg,
-    Introduction to Numerical Continuation Methods, SIAM 2003, ch. 1). A state that converges but
-    cannot exist (``UnphysicalSolution``) is an answer, and is never bridged around.
-
-    ``guess``, a converged solution of the same feeds on another stage count: a solve without a
-    warm start of its own that fails from the automatic estimates is tried again from ``guess``
-    stretched to its stages (``mesh.start.stretched``).
-    """
-
-    def __init__(self, model, settings, *, bridge_flows=False, guess=None):
-        self.model, self.settings, self.bridge_flows, self.guess = model, settings, bridge_flows, guess
-        self.last, self.last_flow, self.solves, self.iterations = None, None, 0, 0
-
-    def __call__(self, column, label):
-        start = self.last if self.last is not None and self.last.n_stages == column.n_stages else None
-        try:
-            try:
-                solution = self._solve(column, start)
-            except UnphysicalSolution:
-                raise
-            except ConvergenceError as failure:
-                if start is None and self.guess is not None:
-                    solution = self._from_guess(column, failure)
-                elif start is not None and self.bridge_flows:
-                    solution = self._bridged(column, failure)
-                else:
-                    raise
-        except ConvergenceError as failure:
-            raise type(failure)(
-                f"design loop at {label}: {failure.reason}",
-                iterations=failure.iterations,
-                residual=failure.residual,
-                stage=failure.stage,
-            ) from failure
-        self.last, self.last_flow = solution, column.solvent.flow if self.bridge_flows else None
-        return solution
-
-    def _solve(self, column, start):
-        self.solves += 1
-        try:
-            solution = solve_column(column, self.model, settings=self.settings, start=start)
-        except ConvergenceError as failure:
-            self.iterations += failure.iterations
-            raise
-        self.iterations += solution.convergence.iterations
-        return solution
-
-    def _from_guess(self, column, failure):
-        """``column`` solved from ``guess`` stretched to its stages; raises ``failure`` (its
-        reason extended) when that fails too."""
-        try:
-            return self._solve(column, stretched(self.guess, column.n_stages))
-        except UnphysicalSolution:
-            raise
-        except ConvergenceError:
-            raise type(failure)(
-                f"{failure.reason}; nor from the {self.guess.n_stages}-stage solution stretched to {column.n_stages} stages",
-                iterations=failure.iterations, residual=failure.residual, stage=failure.stage,
-            ) from failure
-
-    def _bridged(self, column, failure):
-        """``column`` solved along solvent flows from the last converged one's; raises
-        ``failure`` (its reason extended) when no path converges."""
-        origin, low, high = self.last, self.last_flow, column.solvent.flow
-        for segments in BRIDGE_SEGMENTS:
-            solution = origin
-            try:
-                for i in range(1, segments):
-                    solution = self._solve(with_solvent_flow(column, low * (high / low) ** (i / segments)), solution)
-            except ConvergenceError:
-                continue  # a flow on the way failed, or converged to a state that cannot exist: a finer path
-            try:
-                return self._solve(column, solution)
-            except UnphysicalSolution:
-                raise  # converged, to a state that cannot exist: the answer for this column
-            except ConvergenceError:
-                continue
-        raise type(failure)(
-            f"{failure.reason}; nor along paths of up to {BRIDGE_SEGMENTS[-1] - 1} solvent flows between it and "
-            f"{low:.6g} mol/s, where the search converged",
-            iterations=failure.iterations, residual=failure.residual, stage=failure.stage,
-        ) from failure
-
-
 def solvent_for_target(column, model, target, *, limit=None, guess=None, settings=SolverSettings()):
     """The solvent flow that just meets a solute target with the column's stages.
 
@@ -186,7 +94,7 @@ def solvent_for_target(column, model, target, *, limit=None, guess=None, setting
     ConvergenceError   a rigorous solve failed; names the solvent flow
     """
     target = target.for_model(model)
-    solve = _Solver(model, settings, bridge_flows=True, guess=guess)
+    solve = LoopSolver(model, settings, bridge_flows=True, guess=guess)
     base = column.solvent.flow
 
     short = {}  # converged flows that fall short of the target [mol/s] -> the solution
@@ -262,7 +170,7 @@ def stages_for_target(column, model, target, *, limit=None, max_stages=MAX_STAGE
     ConvergenceError   a rigorous solve failed; names the stage count
     """
     target = target.for_model(model)
-    solve = _Solver(model, settings)
+    solve = LoopSolver(model, settings)
     solutions = {}
 
     def shortfall(n):
@@ -316,7 +224,7 @@ def cooler_duty_for_limit(column, model, limit, *, stage, settings=SolverSetting
     TargetNotReached   the limit cannot be held by a cooler on that stage alone
     ConvergenceError   a rigorous solve failed; names the duty
     """
-    solve = _Solver(model, settings)
+    solve = LoopSolver(model, settings)
 
     known = {}  # duty -> shortfall, as for the solvent flow
 
